@@ -1,0 +1,99 @@
+#include "edge_entities.hpp"
+
+#include <StepGeom_Curve.hxx>
+#include <StepShape_ConnectedEdgeSet.hxx>
+#include <StepShape_Edge.hxx>
+#include <StepShape_EdgeBasedWireframeModel.hxx>
+#include <StepShape_HArray1OfConnectedEdgeSet.hxx>
+#include <StepShape_HArray1OfEdge.hxx>
+#include <StepShape_OrientedEdge.hxx>
+#include <TopAbs_ShapeEnum.hxx>
+#include <TopExp_Explorer.hxx>
+#include <TopTools_IndexedMapOfShape.hxx>
+#include <TopExp.hxx>
+#include <TopoDS_Shape.hxx>
+#include <TopoDS_TShape.hxx>
+#include <Transfer_Binder.hxx>
+#include <Transfer_TransientProcess.hxx>
+#include <TransferBRep.hxx>
+
+#include <cstddef>
+#include <limits>
+#include <vector>
+
+namespace stepframe::geometry::detail {
+
+namespace {
+
+// Ranks who made an edge: a curve or an edge entity beats a set holding it,
+// and among sets the one that produced fewer edges is the nearer.
+struct Candidate {
+  Handle(Standard_Transient) entity;
+  bool is_curve_or_edge = false;
+  std::size_t granularity = std::numeric_limits<std::size_t>::max();  // edges the entity produced
+
+  bool better_than(const Candidate& other) const {
+    if (is_curve_or_edge != other.is_curve_or_edge) return is_curve_or_edge;
+    return granularity < other.granularity;
+  }
+};
+
+void offer(std::unordered_map<const TopoDS_TShape*, Candidate>& best, const TopoDS_Shape& edge,
+           const Handle(Standard_Transient) & entity, std::size_t granularity) {
+  const Candidate offered{entity,
+                          entity->IsKind(STANDARD_TYPE(StepGeom_Curve)) || entity->IsKind(STANDARD_TYPE(StepShape_Edge)),
+                          granularity};
+  Candidate& slot = best[edge.TShape().get()];
+  if (offered.better_than(slot)) slot = offered;
+}
+
+// OCCT binds an edge-based wireframe model as a whole; its edges come out in
+// the order of the connected edge sets and their edges (StepToTopoDS_Builder).
+// Pair them up when the counts agree, so each edge names its EDGE_CURVE.
+void offer_wireframe_edges(std::unordered_map<const TopoDS_TShape*, Candidate>& best,
+                           const Handle(StepShape_EdgeBasedWireframeModel) & model, const TopoDS_Shape& result) {
+  std::vector<Handle(Standard_Transient)> step_edges;
+  const Handle(StepShape_HArray1OfConnectedEdgeSet) sets = model->EbwmBoundary();
+  if (sets.IsNull()) return;
+  for (Standard_Integer i = sets->Lower(); i <= sets->Upper(); ++i) {
+    const Handle(StepShape_ConnectedEdgeSet)& set = sets->Value(i);
+    if (set.IsNull() || set->CesEdges().IsNull()) continue;
+    const Handle(StepShape_HArray1OfEdge) edges = set->CesEdges();
+    for (Standard_Integer k = edges->Lower(); k <= edges->Upper(); ++k) {
+      Handle(Standard_Transient) edge(edges->Value(k));
+      if (auto oriented = Handle(StepShape_OrientedEdge)::DownCast(edge); !oriented.IsNull())
+        edge = oriented->EdgeElement();
+      step_edges.push_back(edge);
+    }
+  }
+  std::vector<TopoDS_Shape> occt_edges;
+  for (TopExp_Explorer it(result, TopAbs_EDGE); it.More(); it.Next()) occt_edges.push_back(it.Current());
+  if (occt_edges.size() != step_edges.size()) return;  // an edge failed to translate: keep the coarser map
+  for (std::size_t i = 0; i < occt_edges.size(); ++i) offer(best, occt_edges[i], step_edges[i], 1);
+}
+
+}  // namespace
+
+EdgeEntityMap map_edges_to_entities(const Handle(Transfer_TransientProcess) & process) {
+  std::unordered_map<const TopoDS_TShape*, Candidate> best;
+  if (process.IsNull()) return {};
+  for (Standard_Integer i = 1; i <= process->NbMapped(); ++i) {
+    const Handle(Standard_Transient)& entity = process->Mapped(i);
+    const Handle(Transfer_Binder) binder = process->MapItem(i);
+    if (entity.IsNull() || binder.IsNull()) continue;
+    const TopoDS_Shape result = TransferBRep::ShapeResult(binder);
+    if (result.IsNull()) continue;
+    TopTools_IndexedMapOfShape edges;
+    TopExp::MapShapes(result, TopAbs_EDGE, edges);
+    const auto count = static_cast<std::size_t>(edges.Extent());
+    for (Standard_Integer k = 1; k <= edges.Extent(); ++k) offer(best, edges(k), entity, count);
+    if (auto wireframe = Handle(StepShape_EdgeBasedWireframeModel)::DownCast(entity); !wireframe.IsNull())
+      offer_wireframe_edges(best, wireframe, result);
+  }
+  EdgeEntityMap map;
+  map.reserve(best.size());
+  for (auto& [tshape, candidate] : best) map.emplace(tshape, candidate.entity);
+  return map;
+}
+
+}  // namespace stepframe::geometry::detail
