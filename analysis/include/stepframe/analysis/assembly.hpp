@@ -1,0 +1,47 @@
+#pragma once
+// Global stiffness matrix of a frame model and its reduction to the free DOFs.
+//
+// Global DOF numbering: 6 per node in Dof order, global index = 6 * node + dof.
+
+#include "stepframe/analysis/frame_model.hpp"
+
+#include <Eigen/Core>
+#include <Eigen/SparseCore>
+
+#include <cstddef>
+#include <vector>
+
+namespace stepframe::analysis {
+
+/// Index of a node's direction in the global DOF vector.
+constexpr Eigen::Index global_dof(std::size_t node, int dof) {
+  return static_cast<Eigen::Index>(6 * node) + dof;
+}
+
+/// Which global DOFs are free (not supported) and where they sit in the reduced system.
+struct DofNumbering {
+  std::vector<Eigen::Index> free_index;      ///< per global DOF: reduced index, or -1 when supported
+  std::vector<Eigen::Index> global_of_free;  ///< per reduced index: its global DOF
+
+  Eigen::Index free_count() const { return static_cast<Eigen::Index>(global_of_free.size()); }
+  bool is_free(Eigen::Index global) const { return free_index[static_cast<std::size_t>(global)] >= 0; }
+};
+
+/// Numbers the free DOFs in global order; a DOF is supported when any support
+/// of its node fixes it.
+DofNumbering number_dofs(const FrameModel& model);
+
+/// Full global stiffness (6 * nodes square), summed from the members' T^T k T
+/// through triplets. The model must be valid (see validate_model).
+Eigen::SparseMatrix<double> assemble_stiffness(const FrameModel& model);
+
+/// The free-free block of a full global matrix, in reduced numbering.
+Eigen::SparseMatrix<double> free_block(const Eigen::SparseMatrix<double>& full, const DofNumbering& dofs);
+
+/// The free entries of a full global vector, in reduced numbering.
+Eigen::VectorXd free_part(const Eigen::VectorXd& full, const DofNumbering& dofs);
+
+/// Full global vector with the reduced values at the free DOFs and zero at the supported ones.
+Eigen::VectorXd expand_free(const Eigen::VectorXd& reduced, const DofNumbering& dofs);
+
+}  // namespace stepframe::analysis

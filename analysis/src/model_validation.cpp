@@ -1,0 +1,105 @@
+#include "stepframe/analysis/model_validation.hpp"
+
+#include <cmath>
+#include <stdexcept>
+#include <string>
+
+namespace stepframe::analysis {
+namespace {
+
+bool positive(double v) { return std::isfinite(v) && v > 0; }
+
+std::string member_label(std::size_t m) { return "member " + std::to_string(m); }
+
+void check_member(const FrameModel& model, std::size_t m) {
+  const FrameMember& member = model.members[m];
+  for (std::size_t end = 0; end < 2; ++end) {
+    if (member.nodes[end] >= model.nodes.size())
+      throw std::invalid_argument(member_label(m) + " refers to node " + std::to_string(member.nodes[end]) +
+                                  " but the model has " + std::to_string(model.nodes.size()) +
+                                  " nodes; fix the member's connectivity");
+  }
+  if (member.section >= model.sections.size())
+    throw std::invalid_argument(member_label(m) + " refers to section " + std::to_string(member.section) +
+                                " but the model has " + std::to_string(model.sections.size()) +
+                                " sections; assign a section to the member");
+  if (member.material >= model.materials.size())
+    throw std::invalid_argument(member_label(m) + " refers to material " + std::to_string(member.material) +
+                                " but the model has " + std::to_string(model.materials.size()) +
+                                " materials; assign a material to the member");
+  if (!std::isfinite(member.roll))
+    throw std::invalid_argument(member_label(m) + " has a roll angle that is not a finite number");
+
+  const double length = (model.nodes[member.nodes[1]] - model.nodes[member.nodes[0]]).norm();
+  if (!positive(length))
+    throw std::invalid_argument(member_label(m) + " has zero length (nodes " + std::to_string(member.nodes[0]) +
+                                " and " + std::to_string(member.nodes[1]) +
+                                " coincide); merge or remove the member");
+
+  const Section& s = model.sections[member.section];
+  const auto section_error = [&](const char* what) {
+    return std::invalid_argument(member_label(m) + ": section '" + s.designation + "' has a non-positive or invalid " +
+                                 what + "; correct the section properties");
+  };
+  if (!positive(s.A)) throw section_error("area A");
+  if (!positive(s.Iy)) throw section_error("second moment Iy");
+  if (!positive(s.Iz)) throw section_error("second moment Iz");
+  if (!positive(s.J)) throw section_error("torsion constant J");
+  if (!positive(s.depth)) throw section_error("depth");
+  if (!positive(s.width)) throw section_error("width");
+
+  const Material& mat = model.materials[member.material];
+  const auto material_error = [&](const char* what) {
+    return std::invalid_argument(member_label(m) + ": material '" + mat.name + "' has a non-positive or invalid " +
+                                 what + "; correct the material");
+  };
+  if (!positive(mat.E)) throw material_error("Young's modulus E");
+  if (!positive(mat.G)) throw material_error("shear modulus G");
+  if (!std::isfinite(mat.density) || mat.density < 0) throw material_error("density");
+}
+
+}  // namespace
+
+void validate_model(const FrameModel& model) {
+  if (model.members.empty()) throw std::invalid_argument("the model has no members; there is nothing to analyse");
+  for (std::size_t n = 0; n < model.nodes.size(); ++n) {
+    if (!model.nodes[n].allFinite())
+      throw std::invalid_argument("node " + std::to_string(n) + " has a coordinate that is not a finite number");
+  }
+  for (std::size_t m = 0; m < model.members.size(); ++m) check_member(model, m);
+
+  for (std::size_t s = 0; s < model.supports.size(); ++s) {
+    if (model.supports[s].node >= model.nodes.size())
+      throw std::invalid_argument("support " + std::to_string(s) + " refers to node " +
+                                  std::to_string(model.supports[s].node) + " which does not exist");
+  }
+  for (std::size_t c = 0; c < model.cases.size(); ++c) {
+    const LoadCase& lc = model.cases[c];
+    const std::string label = "load case " + std::to_string(c) + " '" + lc.name + "'";
+    for (const NodeLoad& load : lc.node_loads) {
+      if (load.node >= model.nodes.size())
+        throw std::invalid_argument(label + " loads node " + std::to_string(load.node) + " which does not exist");
+      if (!load.force.allFinite() || !load.moment.allFinite())
+        throw std::invalid_argument(label + " has a non-finite load on node " + std::to_string(load.node));
+    }
+    for (const MemberUniformLoad& load : lc.member_loads) {
+      if (load.member >= model.members.size())
+        throw std::invalid_argument(label + " loads member " + std::to_string(load.member) + " which does not exist");
+      if (!load.w.allFinite())
+        throw std::invalid_argument(label + " has a non-finite load on " + member_label(load.member));
+    }
+  }
+  for (std::size_t c = 0; c < model.combinations.size(); ++c) {
+    const Combination& combo = model.combinations[c];
+    for (const auto& [index, factor] : combo.factors) {
+      if (index >= model.cases.size())
+        throw std::invalid_argument("combination " + std::to_string(c) + " '" + combo.name + "' refers to load case " +
+                                    std::to_string(index) + " which does not exist");
+      if (!std::isfinite(factor))
+        throw std::invalid_argument("combination " + std::to_string(c) + " '" + combo.name +
+                                    "' has a factor that is not a finite number");
+    }
+  }
+}
+
+}  // namespace stepframe::analysis

@@ -1,0 +1,110 @@
+// Input checking and progress reporting of solve(). These check behaviour
+// the interface promises (solve.hpp, model_validation.hpp); no published
+// reference applies.
+
+#include "frame_fixtures.hpp"
+#include "stepframe/analysis/solve.hpp"
+
+#include <catch2/catch.hpp>
+
+using namespace stepframe::analysis;
+using Catch::Matchers::Contains;
+using V = Eigen::Vector3d;
+
+namespace {
+
+FrameModel two_member_cantilever() {
+  FrameModel model = test::single_member(V(0, 0, 0), V(2, 0, 0));
+  model.nodes.push_back(V(4, 0, 0));
+  model.members.push_back(FrameMember{{1, 2}, 0, 0, 0});
+  model.supports = {test::support(0, test::fixed_all)};
+  LoadCase lc;
+  lc.name = "tip";
+  lc.node_loads = {NodeLoad{2, V(0, 0, -1e3), V::Zero()}};
+  model.cases = {lc};
+  return model;
+}
+
+}  // namespace
+
+TEST_CASE("invalid models are rejected with the member named", "[analysis][validation]") {
+  REQUIRE_NOTHROW(solve(two_member_cantilever()));
+
+  FrameModel m = two_member_cantilever();
+  m.members[1].nodes[1] = 7;
+  CHECK_THROWS_WITH(solve(m), Contains("member 1") && Contains("node 7"));
+
+  m = two_member_cantilever();
+  m.members[1].section = 3;
+  CHECK_THROWS_WITH(solve(m), Contains("member 1") && Contains("section 3"));
+
+  m = two_member_cantilever();
+  m.members[0].material = 2;
+  CHECK_THROWS_WITH(solve(m), Contains("member 0") && Contains("material 2"));
+
+  m = two_member_cantilever();
+  m.nodes[2] = m.nodes[1];
+  CHECK_THROWS_WITH(solve(m), Contains("member 1") && Contains("zero length"));
+
+  for (double Section::*field : {&Section::A, &Section::Iy, &Section::Iz, &Section::J, &Section::depth}) {
+    m = two_member_cantilever();
+    m.sections[0].*field = 0;
+    CHECK_THROWS_AS(solve(m), std::invalid_argument);
+    CHECK_THROWS_WITH(solve(m), Contains("member 0") && Contains("TEST-I"));
+  }
+  m = two_member_cantilever();
+  m.materials[0].G = -1;
+  CHECK_THROWS_WITH(solve(m), Contains("member 0") && Contains("shear modulus"));
+
+  m = two_member_cantilever();
+  m.cases[0].member_loads = {MemberUniformLoad{5, V(0, 0, -1)}};
+  CHECK_THROWS_WITH(solve(m), Contains("member 5") && Contains("tip"));
+
+  m = two_member_cantilever();
+  m.combinations = {Combination{"ULS", {{0, 1.35}, {4, 1.5}}}};
+  CHECK_THROWS_WITH(solve(m), Contains("ULS") && Contains("load case 4"));
+
+  SolveOptions one_station;
+  one_station.stations = 1;
+  CHECK_THROWS_AS(solve(two_member_cantilever(), one_station), std::invalid_argument);
+}
+
+TEST_CASE("progress is reported from 0 to 1, never going back", "[analysis][progress]") {
+  std::vector<double> seen;
+  SolveOptions options;
+  options.progress = [&](double f) { seen.push_back(f); };
+  FrameModel model = two_member_cantilever();
+  model.combinations = {Combination{"twice", {{0, 2.0}}}};
+  const auto results = solve(model, options);
+  REQUIRE(results.size() == 2);
+  REQUIRE(seen.size() >= 3);
+  CHECK(seen.front() == 0.0);
+  CHECK(seen.back() == 1.0);
+  CHECK(std::is_sorted(seen.begin(), seen.end()));
+}
+
+TEST_CASE("results come in model order: cases, then combinations", "[analysis][solve]") {
+  FrameModel model = two_member_cantilever();
+  LoadCase second = model.cases[0];
+  second.name = "tip doubled";
+  second.node_loads[0].force *= 2;
+  model.cases.push_back(second);
+  model.combinations = {Combination{"sum", {{0, 1.0}, {1, 1.0}}}};
+  SolveOptions options;
+  options.stations = 5;
+  const auto results = solve(model, options);
+  REQUIRE(results.size() == 3);
+  CHECK(results[0].name == "tip");
+  CHECK(results[1].name == "tip doubled");
+  CHECK(results[2].name == "sum");
+  CHECK(results[2].is_combination);
+  for (const LoadResult& r : results) {
+    CHECK(r.displacements.size() == 18);
+    CHECK(r.reactions.size() == 18);
+    REQUIRE(r.members.size() == 2);
+    CHECK(r.members[0].stations.size() == 5);
+    CHECK(r.members[0].stations.front().x == 0.0);
+    CHECK(r.members[0].stations.back().x == 2.0);
+  }
+  CHECK(results[1].displacements(14) == Approx(2 * results[0].displacements(14)).epsilon(1e-12));
+}

@@ -1,0 +1,142 @@
+// Beams under a uniform load w. References (standard beam theory, common practice):
+//  - simply supported: midspan deflection 5 w L^4 / (384 E I), midspan moment
+//    w L^2 / 8, end shear w L / 2;
+//  - both ends fixed: end moments w L^2 / 12, midspan moment w L^2 / 24,
+//    midspan deflection w L^4 / (384 E I), deflected shape w x^2 (L - x)^2 / (24 E I).
+
+#include "frame_fixtures.hpp"
+#include "stepframe/analysis/solve.hpp"
+
+#include <catch2/catch.hpp>
+
+using namespace stepframe::analysis;
+using V = Eigen::Vector3d;
+
+namespace {
+
+constexpr double tol = 1e-9;  // relative; exact element and exact recovery
+
+const Station& station_at(const MemberResult& r, double x) {
+  for (const Station& st : r.stations)
+    if (std::abs(st.x - x) < 1e-12) return st;
+  FAIL("no station at x = " << x);
+  return r.stations.front();
+}
+
+}  // namespace
+
+TEST_CASE("simply supported beam under uniform load, one member", "[analysis][udl]") {
+  const double L = 6.0, w = 4.5e3;  // m, N/m (downwards)
+  const Section s = test::test_section();
+  const Material m = test::test_steel();
+  FrameModel model = test::single_member(V(0, 0, 0), V(L, 0, 0));
+  // Pin (translations and torsion) at the start, roller (transverse only) at the end.
+  model.supports = {test::support(0, {true, true, true, true, false, false}),
+                    test::support(1, {false, true, true, false, false, false})};
+  LoadCase lc;
+  lc.name = "uniform";
+  lc.member_loads = {MemberUniformLoad{0, V(0, 0, -w)}};
+  model.cases = {lc};
+
+  SolveOptions options;
+  options.stations = 21;  // station 10 sits at midspan
+  const LoadResult r = solve(model, options).at(0);
+  const MemberResult& mr = r.members.at(0);
+  REQUIRE(mr.stations.size() == 21);
+  const Station& mid = station_at(mr, L / 2);
+
+  const double delta = 5 * w * L * L * L * L / (384 * m.E * s.Iy);
+  CHECK(mid.displacement.z() == Approx(-delta).epsilon(tol));
+  CHECK(mid.displacement.x() == Approx(0).margin(1e-15));
+  CHECK(mid.displacement.y() == Approx(0).margin(1e-15));
+  CHECK(mr.max_local_deflection == Approx(delta).epsilon(tol));
+
+  // Sagging: My < 0 so the top fibre (local +z) is in compression.
+  CHECK(mid.forces(4) == Approx(-w * L * L / 8).epsilon(tol));
+  CHECK(mid.forces(2) == Approx(0).margin(1e-6));
+  CHECK(mid.max_abs_stress == Approx(w * L * L / 8 / s.Wy()).epsilon(tol));
+  CHECK(mr.max_abs_stress == Approx(w * L * L / 8 / s.Wy()).epsilon(tol));
+  // End shears: the beam pushes down on its supports.
+  CHECK(mr.start_forces(2) == Approx(-w * L / 2).epsilon(tol));
+  CHECK(mr.end_forces(2) == Approx(w * L / 2).epsilon(tol));
+  CHECK(mr.start_forces(4) == Approx(0).margin(1e-6));
+  CHECK(mr.end_forces(4) == Approx(0).margin(1e-6));
+  // Reactions w L / 2 upwards at each end.
+  CHECK(r.reactions(2) == Approx(w * L / 2).epsilon(tol));
+  CHECK(r.reactions(6 + 2) == Approx(w * L / 2).epsilon(tol));
+  // Parabolic moment diagram M(x) = -w x (L - x) / 2 at every station.
+  for (const Station& st : mr.stations) CHECK(st.forces(4) == Approx(-w * st.x * (L - st.x) / 2).margin(1e-6));
+}
+
+TEST_CASE("fixed-ended beam under uniform load", "[analysis][udl]") {
+  const double L = 5.0, w = 8e3;
+  const Section s = test::test_section();
+  const Material m = test::test_steel();
+
+  SECTION("modelled as two members with a free node at midspan") {
+    FrameModel model = test::single_member(V(0, 0, 0), V(L / 2, 0, 0));
+    model.nodes.push_back(V(L, 0, 0));
+    model.members.push_back(FrameMember{{1, 2}, 0, 0, 0});
+    model.supports = {test::support(0, test::fixed_all), test::support(2, test::fixed_all)};
+    LoadCase lc;
+    lc.name = "uniform";
+    lc.member_loads = {MemberUniformLoad{0, V(0, 0, -w)}, MemberUniformLoad{1, V(0, 0, -w)}};
+    model.cases = {lc};
+    const LoadResult r = solve(model).at(0);
+
+    // Midspan node deflection and moment.
+    CHECK(r.displacements(6 + 2) == Approx(-w * L * L * L * L / (384 * m.E * s.Iy)).epsilon(tol));
+    CHECK(r.members[0].end_forces(4) == Approx(-w * L * L / 24).epsilon(tol));
+    CHECK(r.members[1].start_forces(4) == Approx(-w * L * L / 24).epsilon(tol));
+    // Hogging end moments w L^2 / 12 (top fibre in tension: My > 0).
+    CHECK(r.members[0].start_forces(4) == Approx(w * L * L / 12).epsilon(tol));
+    CHECK(r.members[1].end_forces(4) == Approx(w * L * L / 12).epsilon(tol));
+    CHECK(r.members[0].max_abs_stress == Approx(w * L * L / 12 / s.Wy()).epsilon(tol));
+    // Support reactions: w L / 2 up and the fixing moments.
+    CHECK(r.reactions(2) == Approx(w * L / 2).epsilon(tol));
+    CHECK(r.reactions(4) == Approx(-w * L * L / 12).epsilon(tol));  // global ry at the left end
+    CHECK(r.reactions(12 + 4) == Approx(w * L * L / 12).epsilon(tol));
+    // Deflected shape between the nodes, member 0 covers 0 <= x <= L/2.
+    for (const Station& st : r.members[0].stations) {
+      const double x = st.x;
+      CHECK(st.displacement.z() ==
+            Approx(-w * x * x * (L - x) * (L - x) / (24 * m.E * s.Iy)).margin(1e-9 * w * L * L * L * L / (m.E * s.Iy)));
+    }
+  }
+
+  SECTION("modelled as one member: every DOF is supported") {
+    FrameModel model = test::single_member(V(0, 0, 0), V(0, L, 0));  // along Y this time
+    model.supports = {test::support(0, test::fixed_all), test::support(1, test::fixed_all)};
+    LoadCase lc;
+    lc.name = "uniform";
+    lc.member_loads = {MemberUniformLoad{0, V(0, 0, -w)}};
+    model.cases = {lc};
+    SolveOptions options;
+    options.stations = 11;
+    const MemberResult mr = solve(model, options).at(0).members.at(0);
+    const Station& mid = station_at(mr, L / 2);
+    CHECK(mid.displacement.z() == Approx(-w * L * L * L * L / (384 * m.E * s.Iy)).epsilon(tol));
+    CHECK(mid.forces(4) == Approx(-w * L * L / 24).epsilon(tol));
+    CHECK(mr.start_forces(4) == Approx(w * L * L / 12).epsilon(tol));
+    CHECK(mr.end_forces(4) == Approx(w * L * L / 12).epsilon(tol));
+    CHECK(mr.max_local_deflection == Approx(w * L * L * L * L / (384 * m.E * s.Iy)).epsilon(tol));
+  }
+}
+
+TEST_CASE("uniform load along local y bends the beam about z", "[analysis][udl]") {
+  const double L = 4.0, w = 1.2e3;
+  const Section s = test::test_section();
+  const Material m = test::test_steel();
+  FrameModel model = test::single_member(V(0, 0, 0), V(L, 0, 0));
+  model.supports = {test::support(0, {true, true, true, true, false, false}),
+                    test::support(1, {false, true, true, false, false, false})};
+  LoadCase lc;
+  lc.name = "lateral";
+  lc.member_loads = {MemberUniformLoad{0, V(0, w, 0)}};  // global +Y = local +y
+  model.cases = {lc};
+  const MemberResult mr = solve(model).at(0).members.at(0);
+  const Station& mid = station_at(mr, L / 2);
+  CHECK(mid.displacement.y() == Approx(5 * w * L * L * L * L / (384 * m.E * s.Iz)).epsilon(tol));
+  CHECK(std::abs(mid.forces(5)) == Approx(w * L * L / 8).epsilon(tol));
+  CHECK(mid.max_abs_stress == Approx(w * L * L / 8 / s.Wz()).epsilon(tol));
+}
