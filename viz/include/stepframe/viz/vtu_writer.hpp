@@ -1,0 +1,24 @@
+#pragma once
+// The line model of one load case or combination as a VTK XML unstructured
+// grid (.vtu): each member a polyline through its stations.
+
+#include "stepframe/analysis/frame_model.hpp"
+#include "stepframe/analysis/results.hpp"
+
+#include <filesystem>
+
+namespace stepframe::viz {
+
+/// Writes `result` for `model` to `file` (binary, zlib-compressed appended data).
+/// Points are the undeformed station positions [m].
+/// Point data: "displacement" (vector [m]; warp by it to see the deformed shape),
+///             "station_stress" (largest |sigma| at the station [Pa]).
+/// Cell data:  "stress" (largest |sigma| over the member [Pa]; the active scalar,
+///             so any VTK viewer colours by it), "member_id", "section_id",
+///             "section" (designation).
+/// Writes exactly `file`; callers that need atomic output pass a temporary
+/// name and rename it. Throws std::runtime_error naming the file on failure.
+void write_line_model_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
+                          const analysis::LoadResult& result);
+
+}  // namespace stepframe::viz
