@@ -1,0 +1,98 @@
+// The stepframe command line: data on stdout, logs on stderr.
+
+#include "stepframe/geometry/step_reader.hpp"
+#include "stepframe/inspect.hpp"
+#include "stepframe/run.hpp"
+
+#include <CLI/CLI.hpp>
+#include <spdlog/sinks/stdout_color_sinks.h>
+#include <spdlog/spdlog.h>
+
+#include <cstdio>
+#include <iostream>
+
+namespace {
+
+constexpr int internal_error = 4;
+
+int run_command(const std::filesystem::path& project, const std::filesystem::path& out, bool json) {
+  const auto outcome = stepframe::run_project(project, out, [](std::string_view stage, double fraction) {
+    if (fraction == 0.0) spdlog::info("{} ...", stage);
+  });
+  const int status = static_cast<int>(outcome.status);
+  if (!outcome.analysis) {
+    spdlog::error("{}", outcome.message);
+    if (json) std::cout << nlohmann::json{{"status", "error"}, {"exit_status", status}, {"message", outcome.message}}.dump(1) << '\n';
+    else std::cerr << "\n" << stepframe::caution << "\n";
+    return status;
+  }
+  if (json) {
+    const auto results = stepframe::results_json(*outcome.analysis);
+    nlohmann::json summary{{"status", results["status"]}, {"exit_status", status}, {"caution", stepframe::caution},
+                           {"checks", results["checks"]}, {"files", nlohmann::json::array()}};
+    for (const auto& f : outcome.files) summary["files"].push_back(f.string());
+    std::cout << summary.dump(1) << '\n';
+  } else {
+    std::cout << stepframe::summary_text(*outcome.analysis);
+    std::cout << "\nresults: " << (outcome.files.empty() ? std::string("(none)") : outcome.files.back().parent_path().string()) << "\n";
+  }
+  return status;
+}
+
+int inspect_command(const std::filesystem::path& model, double tolerance_mm, bool json) {
+  try {
+    const auto inspection = stepframe::inspect_step(model, tolerance_mm * 1e-3);
+    if (json) std::cout << stepframe::inspection_json(inspection).dump(1) << '\n';
+    else std::cout << stepframe::inspection_text(inspection);
+    return 0;
+  } catch (const stepframe::geometry::StepReadError& e) {
+    spdlog::error("{}", e.what());
+    return static_cast<int>(stepframe::ExitStatus::bad_input);
+  }
+}
+
+}  // namespace
+
+int main(int argc, char** argv) {
+  auto logger = spdlog::stderr_color_mt("stepframe");
+  logger->set_pattern("%^%l%$: %v");
+  spdlog::set_default_logger(logger);
+
+  CLI::App app{"stepframe: analyse steel frames drawn as STEP wireframes.\n" + std::string(stepframe::caution)};
+  app.set_version_flag("--version", std::string("stepframe ") + STEPFRAME_VERSION);
+  app.require_subcommand(1);
+  bool verbose = false, quiet = false;
+  app.add_flag("-v,--verbose", verbose, "Log details (debug level)");
+  app.add_flag("-q,--quiet", quiet, "Log only warnings and errors");
+
+  auto* run = app.add_subcommand("run", "Analyse a project and write results.json and VTK files");
+  std::filesystem::path project, out;
+  bool run_json = false;
+  run->add_option("PROJECT", project, "Project file (YAML)")->required()->check(CLI::ExistingFile);
+  run->add_option("--out", out, "Output folder (default: <project>-results beside the project file)");
+  run->add_flag("--json", run_json, "Print the run summary as JSON on stdout");
+
+  auto* inspect = app.add_subcommand("inspect", "Show what a STEP file holds: unit, extent, attributes, diagnostics");
+  std::filesystem::path model;
+  double tolerance_mm = 1.0;
+  bool inspect_json = false;
+  inspect->add_option("MODEL", model, "STEP file")->required();
+  inspect->add_option("--tolerance", tolerance_mm, "Merge tolerance for end points, in mm")->capture_default_str();
+  inspect->add_flag("--json", inspect_json, "Print JSON (results.json shapes) instead of tables");
+
+  try {
+    app.parse(argc, argv);
+  } catch (const CLI::ParseError& e) {
+    const int code = app.exit(e);
+    return code == 0 ? 0 : static_cast<int>(stepframe::ExitStatus::bad_input);
+  }
+  spdlog::set_level(quiet ? spdlog::level::warn : verbose ? spdlog::level::debug : spdlog::level::info);
+
+  try {
+    if (*run) return run_command(project, out, run_json);
+    return inspect_command(model, tolerance_mm, inspect_json);
+  } catch (const std::exception& e) {
+    spdlog::critical("internal error: {} (please report it with the input files)", e.what());
+    return internal_error;
+  }
+}

@@ -1,0 +1,75 @@
+#pragma once
+// Running a project end to end: read, build, solve, check, write.
+
+#include "stepframe/analysis/checks.hpp"
+#include "stepframe/analysis/results.hpp"
+#include "stepframe/errors.hpp"
+#include "stepframe/geometry/wireframe.hpp"
+#include "stepframe/model_builder.hpp"
+#include "stepframe/project.hpp"
+
+#include <nlohmann/json.hpp>
+
+#include <filesystem>
+#include <functional>
+#include <optional>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace stepframe {
+
+/// The caution every output carries.
+inline constexpr std::string_view caution =
+    "Screening aid only: a competent engineer must review these results; local codes and licensed practice govern.";
+
+/// Called as work goes on: a stage name and the fraction of that stage done.
+using ProgressCallback = std::function<void(std::string_view stage, double fraction)>;
+
+/// Everything a run computes, before anything is written.
+struct Analysis {
+  Project project;
+  std::string file_length_unit;  ///< as the STEP file declares it
+  geometry::Wireframe wireframe;
+  BuiltModel built;
+  std::vector<analysis::LoadResult> results;  ///< cases, then combinations
+  std::vector<analysis::CheckResult> checks;
+
+  ExitStatus status() const;  ///< pass or check_failed
+};
+
+/// Reads the project and its STEP file, builds the model, solves and checks.
+/// Throws InputError (bad input), geometry::StepReadError (unreadable STEP),
+/// analysis::UnstableFrame (mechanism).
+Analysis analyse_project(const std::filesystem::path& project_file, const ProgressCallback& progress = {});
+
+/// The results.json document (schema stepframe-results/1; README "results.json").
+nlohmann::json results_json(const Analysis& analysis);
+
+/// Writes results.json and one .vtu per case and combination under `out_dir`
+/// (vtk/NAME.vtu). Every file is written under a temporary name first and
+/// renamed only when all are complete. Returns the files written.
+std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir);
+
+/// The default output folder: "<project stem>-results" beside the project file.
+std::filesystem::path default_out_dir(const std::filesystem::path& project_file);
+
+/// What a whole run came to: the status a caller exits with and, when the
+/// analysis ran, its results and the files written.
+struct RunOutcome {
+  ExitStatus status = ExitStatus::bad_input;
+  std::string message;  ///< for bad input or an unstable frame: what is wrong and what to do
+  std::optional<Analysis> analysis;
+  std::vector<std::filesystem::path> files;
+};
+
+/// analyse_project + write_outputs, with every failure mapped to its exit
+/// status and message (nothing is written unless the analysis completes).
+/// `out_dir` empty means default_out_dir(project_file).
+RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir = {},
+                       const ProgressCallback& progress = {});
+
+/// A short human summary: status, governing member and check, per-result extremes.
+std::string summary_text(const Analysis& analysis);
+
+}  // namespace stepframe

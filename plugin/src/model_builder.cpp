@@ -1,0 +1,278 @@
+#include "stepframe/model_builder.hpp"
+
+#include "stepframe/errors.hpp"
+#include "stepframe/suggest.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cctype>
+#include <map>
+#include <optional>
+#include <regex>
+
+namespace stepframe {
+namespace {
+
+/// A member selector with its patterns compiled once.
+class CompiledSelector {
+ public:
+  explicit CompiledSelector(const MemberSelector& sel)
+      : name_(compile(sel.name)), layer_(compile(sel.layer)), product_(compile(sel.product)),
+        colour_(compile(sel.colour)) {}
+
+  bool matches(const geometry::SourceInfo& src) const {
+    if (!matches(name_, src.name) || !matches(product_, src.product) || !matches(colour_, src.colour)) return false;
+    if (!layer_) return true;
+    return std::any_of(src.layers.begin(), src.layers.end(), [&](const auto& l) { return std::regex_match(l, *layer_); });
+  }
+
+ private:
+  static std::optional<std::regex> compile(const std::optional<std::string>& pattern) {
+    if (!pattern) return std::nullopt;
+    return std::regex(*pattern, std::regex::icase);
+  }
+  static bool matches(const std::optional<std::regex>& re, const std::string& value) {
+    return !re || std::regex_match(value, *re);
+  }
+  std::optional<std::regex> name_, layer_, product_, colour_;
+};
+
+std::string describe_member(const geometry::SourceInfo& src) {
+  std::string out = src.entity.empty() ? std::string("(no entity id)") : src.entity;
+  std::vector<std::string> parts;
+  if (!src.name.empty()) parts.push_back("name '" + src.name + "'");
+  if (!src.layers.empty()) parts.push_back("layer '" + src.layers.front() + "'");
+  if (!src.product.empty()) parts.push_back("product '" + src.product + "'");
+  if (!parts.empty()) out += " (" + fmt::format("{}", fmt::join(parts, ", ")) + ")";
+  return out;
+}
+
+// Runs of whitespace-separated words in an attribute value, longest first, so
+// "HE 200 B beam" offers "HE 200 B" before "HE".
+std::vector<std::string> candidate_phrases(const std::string& value) {
+  std::vector<std::string> words;
+  std::string word;
+  for (char c : value + " ") {
+    if (std::isspace(static_cast<unsigned char>(c)) || c == ',' || c == ';' || c == '|' || c == '/') {
+      if (!word.empty()) words.push_back(word);
+      word.clear();
+    } else {
+      word += c;
+    }
+  }
+  std::vector<std::string> phrases;
+  if (!value.empty()) phrases.push_back(value);
+  for (std::size_t len = std::min<std::size_t>(words.size(), 4); len >= 1; --len)
+    for (std::size_t i = 0; i + len <= words.size(); ++i) {
+      std::string phrase = words[i];
+      for (std::size_t k = 1; k < len; ++k) phrase += " " + words[i + k];
+      phrases.push_back(phrase);
+    }
+  return phrases;
+}
+
+/// Resolves section and material names to model indices, adding each once.
+class Library {
+ public:
+  explicit Library(const Project& p) : project_(p) {}
+
+  std::optional<std::size_t> section(const std::string& name, analysis::FrameModel& model) {
+    std::optional<analysis::Section> found;
+    if (auto it = project_.sections.find(name); it != project_.sections.end()) found = it->second;
+    else found = analysis::find_catalogue_section(name);
+    if (!found) return std::nullopt;
+    return intern(model.sections, section_index_, *found, found->designation);
+  }
+
+  std::optional<std::size_t> material(const std::string& name, analysis::FrameModel& model) {
+    std::optional<analysis::Material> found;
+    if (auto it = project_.materials.find(name); it != project_.materials.end()) found = it->second;
+    else found = analysis::find_standard_material(name);
+    if (!found) return std::nullopt;
+    return intern(model.materials, material_index_, *found, found->name);
+  }
+
+  /// The first phrase of the member's name, product, then layers that names a section / material.
+  template <class Lookup>
+  std::optional<std::size_t> from_attributes(const geometry::SourceInfo& src, Lookup lookup) {
+    std::vector<std::string> values{src.name, src.product};
+    values.insert(values.end(), src.layers.begin(), src.layers.end());
+    for (const auto& value : values)
+      for (const auto& phrase : candidate_phrases(value))
+        if (auto index = lookup(phrase)) return index;
+    return std::nullopt;
+  }
+
+  std::vector<std::string> known_sections() const {
+    auto names = analysis::catalogue_designations();
+    for (const auto& [name, s] : project_.sections) names.push_back(name);
+    return names;
+  }
+  std::vector<std::string> known_materials() const {
+    std::vector<std::string> names{"S235", "S275", "S355", "A992", "A36"};
+    for (const auto& [name, m] : project_.materials) names.push_back(name);
+    return names;
+  }
+
+ private:
+  template <class T>
+  static std::size_t intern(std::vector<T>& items, std::map<std::string, std::size_t>& index, const T& item,
+                            const std::string& key) {
+    if (auto it = index.find(key); it != index.end()) return it->second;
+    items.push_back(item);
+    return index[key] = items.size() - 1;
+  }
+
+  const Project& project_;
+  std::map<std::string, std::size_t> section_index_, material_index_;
+};
+
+std::vector<std::size_t> select_nodes(const NodeSelector& sel, const std::vector<Eigen::Vector3d>& nodes,
+                                      double tolerance) {
+  std::vector<std::size_t> out;
+  if (sel.near) {
+    std::size_t best = 0;
+    double best_distance = std::numeric_limits<double>::infinity();
+    for (std::size_t i = 0; i < nodes.size(); ++i) {
+      const double d = (nodes[i] - *sel.near).norm();
+      if (d < best_distance) best_distance = d, best = i;
+    }
+    // A point farther than 50 tolerances from every node is a wrong coordinate, not a near miss.
+    if (best_distance > 50 * tolerance)
+      throw InputError(fmt::format(
+          "{}: no node near ({:.4g}, {:.4g}, {:.4g}) m; the nearest, node {} at ({:.4g}, {:.4g}, {:.4g}) m, is "
+          "{:.4g} m away; check the coordinates and the project's length unit",
+          sel.origin.describe(), (*sel.near)[0], (*sel.near)[1], (*sel.near)[2], best, nodes[best][0], nodes[best][1],
+          nodes[best][2], best_distance));
+    out.push_back(best);
+    return out;
+  }
+  for (std::size_t i = 0; i < nodes.size(); ++i) {
+    const auto& p = nodes[i];
+    if ((!sel.x || std::abs(p[0] - *sel.x) <= tolerance) && (!sel.y || std::abs(p[1] - *sel.y) <= tolerance) &&
+        (!sel.z || std::abs(p[2] - *sel.z) <= tolerance))
+      out.push_back(i);
+  }
+  if (out.empty()) {
+    Eigen::Vector3d low = nodes.front(), high = nodes.front();
+    for (const auto& p : nodes) low = low.cwiseMin(p), high = high.cwiseMax(p);
+    throw InputError(fmt::format(
+        "{}: no node lies on the plane(s) given; the nodes span x {:.4g}..{:.4g}, y {:.4g}..{:.4g}, z {:.4g}..{:.4g} m",
+        sel.origin.describe(), low[0], high[0], low[1], high[1], low[2], high[2]));
+  }
+  return out;
+}
+
+}  // namespace
+
+BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& wireframe) {
+  BuiltModel built;
+  auto& model = built.model;
+  model.nodes = wireframe.nodes;
+  Library library(project);
+
+  // Rules name sections and materials that must exist, whether or not they match.
+  for (const auto& rule : project.rules) {
+    if (rule.section && !library.section(*rule.section, model))
+      throw InputError(rule.where.origin.describe() + ": unknown section '" + *rule.section + "'" +
+                       did_you_mean(*rule.section, library.known_sections()) +
+                       " Define it under 'sections:' or use a catalogue designation such as IPE300 or HEB200.");
+    if (rule.material && !library.material(*rule.material, model))
+      throw InputError(rule.where.origin.describe() + ": unknown material '" + *rule.material + "'" +
+                       did_you_mean(*rule.material, library.known_materials()) +
+                       " Define it under 'materials:' or use S235, S275, S355, A992 or A36.");
+  }
+
+  std::vector<CompiledSelector> rule_selectors;
+  for (const auto& rule : project.rules) rule_selectors.emplace_back(rule.where);
+
+  std::vector<std::string> without_section, without_material;
+  for (const auto& wm : wireframe.members) {
+    analysis::FrameMember member;
+    member.nodes = wm.nodes;
+    std::optional<std::size_t> section, material;
+    for (std::size_t r = 0; r < project.rules.size(); ++r) {
+      const auto& rule = project.rules[r];
+      if (!rule_selectors[r].matches(wm.source)) continue;
+      if (rule.section) section = library.section(*rule.section, model);
+      if (rule.material) material = library.material(*rule.material, model);
+      if (rule.roll) member.roll = *rule.roll;
+    }
+    if (!section)
+      section = library.from_attributes(wm.source, [&](const std::string& s) { return library.section(s, model); });
+    if (!material)
+      material = library.from_attributes(wm.source, [&](const std::string& s) { return library.material(s, model); });
+    if (!section) without_section.push_back(describe_member(wm.source));
+    if (!material) without_material.push_back(describe_member(wm.source));
+    member.section = section.value_or(0);
+    member.material = material.value_or(0);
+    model.members.push_back(member);
+    built.member_sources.push_back(wm.source);
+  }
+
+  auto list = [](const std::vector<std::string>& items) {
+    constexpr std::size_t shown = 20;
+    std::string out;
+    for (std::size_t i = 0; i < items.size() && i < shown; ++i) out += "\n  " + items[i];
+    if (items.size() > shown) out += fmt::format("\n  ... and {} more", items.size() - shown);
+    return out;
+  };
+  if (!without_section.empty() || !without_material.empty()) {
+    std::string message = project.file.string() + ": ";
+    if (!without_section.empty())
+      message += fmt::format("{} member(s) have no section (no rule sets one and no designation was found in "
+                             "their name, product or layers):{}\n",
+                             without_section.size(), list(without_section));
+    if (!without_material.empty())
+      message += fmt::format("{} member(s) have no material:{}\n", without_material.size(), list(without_material));
+    message += "Add a rule, e.g. rules: [{where: {layer: BEAMS}, section: IPE300, material: S355}]";
+    throw InputError(message);
+  }
+
+  const double tol = project.merge_tolerance;
+  for (const auto& spec : project.supports)
+    for (std::size_t node : select_nodes(spec.where, model.nodes, tol)) {
+      auto existing = std::find_if(model.supports.begin(), model.supports.end(),
+                                   [&](const analysis::Support& s) { return s.node == node; });
+      if (existing == model.supports.end()) model.supports.push_back({node, spec.fixed});
+      else
+        for (std::size_t d = 0; d < 6; ++d) existing->fixed[d] = existing->fixed[d] || spec.fixed[d];
+    }
+
+  for (const auto& spec : project.cases) {
+    analysis::LoadCase lc;
+    lc.name = spec.name;
+    lc.self_weight = spec.self_weight;
+    for (const auto& load : spec.member_loads) {
+      const CompiledSelector where(load.where);
+      bool any = false;
+      for (std::size_t m = 0; m < model.members.size(); ++m)
+        if (where.matches(built.member_sources[m])) {
+          lc.member_loads.push_back({m, load.w});
+          any = true;
+        }
+      if (!any)
+        throw InputError(load.where.origin.describe() +
+                         ": matches no member; check the name/layer/product patterns against `stepframe inspect`");
+    }
+    for (const auto& load : spec.node_loads)
+      for (std::size_t node : select_nodes(load.where, model.nodes, tol))
+        lc.node_loads.push_back({node, load.force, load.moment});
+    model.cases.push_back(std::move(lc));
+  }
+
+  for (const auto& spec : project.combinations) {
+    analysis::Combination combination;
+    combination.name = spec.name;
+    for (const auto& [case_name, factor] : spec.factors) {
+      const auto it = std::find_if(project.cases.begin(), project.cases.end(),
+                                   [&](const CaseSpec& c) { return c.name == case_name; });
+      combination.factors.emplace_back(static_cast<std::size_t>(it - project.cases.begin()), factor);
+    }
+    model.combinations.push_back(std::move(combination));
+  }
+  return built;
+}
+
+}  // namespace stepframe

@@ -1,0 +1,454 @@
+#include "stepframe/project_reader.hpp"
+
+#include "stepframe/errors.hpp"
+#include "stepframe/suggest.hpp"
+#include "stepframe/units.hpp"
+
+#include <yaml-cpp/yaml.h>
+
+#include <cmath>
+#include <numbers>
+#include <regex>
+#include <set>
+#include <sstream>
+
+namespace stepframe {
+
+std::string SourceLine::describe() const {
+  std::string out = file.string();
+  if (line > 0) out += ":" + std::to_string(line);
+  if (!key.empty()) out += " (" + key + ")";
+  return out;
+}
+
+namespace {
+
+/// Walks the YAML tree with the key path and line at hand, so that every
+/// error names both.
+class Reader {
+ public:
+  explicit Reader(std::filesystem::path file) : file_(std::move(file)) {}
+
+  [[noreturn]] void fail(const YAML::Node& node, const std::string& key, const std::string& what) const {
+    throw InputError(where(node, key).describe() + ": " + what);
+  }
+
+  SourceLine where(const YAML::Node& node, const std::string& key) const {
+    const int line = node.IsDefined() && node.Mark().line >= 0 ? node.Mark().line + 1 : 0;
+    return {file_, line, key};
+  }
+
+  void expect_map(const YAML::Node& node, const std::string& key) const {
+    if (!node.IsMap()) fail(node, key, "expected a mapping of keys to values");
+  }
+  void expect_list(const YAML::Node& node, const std::string& key) const {
+    if (!node.IsSequence()) fail(node, key, "expected a list");
+  }
+
+  /// Every key of `node` must be one of `allowed`.
+  void check_keys(const YAML::Node& node, const std::string& path, const std::vector<std::string>& allowed) const {
+    expect_map(node, path);
+    for (const auto& item : node) {
+      const auto key = item.first.as<std::string>();
+      if (std::find(allowed.begin(), allowed.end(), key) == allowed.end()) {
+        std::string known;
+        for (const auto& a : allowed) known += (known.empty() ? "" : ", ") + a;
+        fail(item.first, join(path, key),
+             "unknown key '" + key + "'" + did_you_mean(key, allowed) + " (known here: " + known + ")");
+      }
+    }
+  }
+
+  std::string text(const YAML::Node& node, const std::string& key) const {
+    if (!node.IsScalar()) fail(node, key, "expected a single value");
+    return node.as<std::string>();
+  }
+
+  bool boolean(const YAML::Node& node, const std::string& key) const {
+    bool value = false;
+    if (!node.IsScalar() || !YAML::convert<bool>::decode(node, value))
+      fail(node, key, "expected true or false, got '" + (node.IsScalar() ? node.Scalar() : "") + "'");
+    return value;
+  }
+
+  /// A number of the given dimension, SI. Bare numbers are in the file's units.
+  double number(const YAML::Node& node, const std::string& key, Dimension dim) const {
+    if (!node.IsScalar()) fail(node, key, "expected a number, e.g. " + example(dim));
+    const auto q = parse_quantity(node.Scalar());
+    if (!q) fail(node, key, "'" + node.Scalar() + "' is not a number with a known unit, e.g. " + example(dim));
+    if (q->dimension == dimension::none) return q->value * units_.si_per_bare(dim);
+    if (!(q->dimension == dim))
+      fail(node, key,
+           "'" + node.Scalar() + "' is a " + describe(q->dimension) + " but a " + describe(dim) + " is needed, e.g. " +
+               example(dim));
+    return q->value;
+  }
+
+  Eigen::Vector3d vector3(const YAML::Node& node, const std::string& key, Dimension dim) const {
+    if (!node.IsSequence() || node.size() != 3) fail(node, key, "expected three values [x, y, z]");
+    return {number(node[0], key + "[0]", dim), number(node[1], key + "[1]", dim), number(node[2], key + "[2]", dim)};
+  }
+
+  std::string example(Dimension dim) const {
+    const char* with_unit = dim == dimension::length          ? "\"3.5 m\""
+                            : dim == dimension::force         ? "\"20 kN\""
+                            : dim == dimension::moment        ? "\"12 kN*m\""
+                            : dim == dimension::line_load     ? "\"4.5 kN/m\""
+                            : dim == dimension::stress        ? "\"210 GPa\""
+                            : dim == dimension::density       ? "\"7850 kg/m3\""
+                            : dim == dimension::area          ? "\"5380 mm2\""
+                            : dim == dimension::second_moment ? "\"8.356e7 mm4\""
+                                                              : "\"1.0\"";
+    return std::string("a bare number in ") + units_.describe_bare(dim) + " or a string with its unit such as " +
+           with_unit;
+  }
+
+  static std::string join(const std::string& path, const std::string& key) {
+    return path.empty() ? key : path + "." + key;
+  }
+  static std::string index(const std::string& path, std::size_t i) { return path + "[" + std::to_string(i) + "]"; }
+
+  UnitSystem units_;
+  const std::filesystem::path file_;
+};
+
+UnitSystem read_units(const Reader& r, const YAML::Node& node) {
+  UnitSystem units;
+  if (!node) return units;
+  r.check_keys(node, "units", {"length", "force", "stress", "line_load"});
+  auto unit_of = [&](const char* key, Dimension dim, const char* choices) -> std::pair<Unit, std::string> {
+    const auto name = r.text(node[key], std::string("units.") + key);
+    const auto unit = parse_unit(name);
+    if (!unit || !(unit->dimension == dim))
+      r.fail(node[key], std::string("units.") + key,
+             "'" + name + "' is not a " + describe(dim) + " unit; use one of " + choices);
+    return {*unit, name};
+  };
+  if (node["length"]) std::tie(units.length, units.length_name) = unit_of("length", dimension::length, "mm, cm, m, in, ft");
+  if (node["force"]) std::tie(units.force, units.force_name) = unit_of("force", dimension::force, "N, kN, lbf, kip");
+  if (node["stress"]) {
+    auto [unit, name] = unit_of("stress", dimension::stress, "Pa, kPa, MPa, GPa, N/mm2, psi, ksi");
+    units.stress = unit;
+    units.stress_name = name;
+  }
+  if (node["line_load"]) {
+    auto [unit, name] = unit_of("line_load", dimension::line_load, "N/m, kN/m, N/mm, lbf/ft, kip/ft");
+    units.line_load = unit;
+    units.line_load_name = name;
+  }
+  return units;
+}
+
+// Plausibility bounds catch a wrong unit (a factor of 1000) long before it
+// reaches results: common practice for input screening.
+void check_range(const Reader& r, const YAML::Node& node, const std::string& key, double value, double low,
+                 double high, const std::string& unit_hint) {
+  if (value >= low && value <= high) return;
+  std::ostringstream what;
+  what << "value " << value << " (SI) is outside the plausible range " << low << " to " << high
+       << "; check the units: " << unit_hint;
+  r.fail(node, key, what.str());
+}
+
+analysis::Material read_material(const Reader& r, const YAML::Node& node, const std::string& path,
+                                 const std::string& name) {
+  r.check_keys(node, path, {"E", "G", "fy", "density"});
+  for (const char* key : {"E", "G", "fy", "density"})
+    if (!node[key]) r.fail(node, path, std::string("material '") + name + "' needs " + key);
+  analysis::Material m;
+  m.name = name;
+  m.E = r.number(node["E"], path + ".E", dimension::stress);
+  m.G = r.number(node["G"], path + ".G", dimension::stress);
+  m.fy = r.number(node["fy"], path + ".fy", dimension::stress);
+  m.density = r.number(node["density"], path + ".density", dimension::density);
+  const std::string hint = "bare stresses are read in " + r.units_.describe_bare(dimension::stress) +
+                           "; write e.g. \"210 GPa\" or set units.stress";
+  check_range(r, node["E"], path + ".E", m.E, 1e9, 1e12, hint);
+  check_range(r, node["G"], path + ".G", m.G, 1e9, 1e12, hint);
+  check_range(r, node["fy"], path + ".fy", m.fy, 1e7, 5e9, hint);
+  check_range(r, node["density"], path + ".density", m.density, 500, 25000, "bare densities are kg/m3");
+  return m;
+}
+
+analysis::Section read_section(const Reader& r, const YAML::Node& node, const std::string& path,
+                               const std::string& name) {
+  r.check_keys(node, path, {"A", "Iy", "Iz", "J", "depth", "width"});
+  analysis::Section s;
+  s.designation = name;
+  const std::pair<const char*, double*> fields[] = {{"A", &s.A},   {"Iy", &s.Iy},       {"Iz", &s.Iz},
+                                                    {"J", &s.J},   {"depth", &s.depth}, {"width", &s.width}};
+  for (const auto& [key, target] : fields) {
+    if (!node[key])
+      r.fail(node, path,
+             "section '" + name + "' needs " + key + " (A, Iy, Iz, J, depth and width are all required)");
+    const std::string k = std::string(key);
+    const Dimension dim = k == "A" ? dimension::area
+                          : (k == "depth" || k == "width") ? dimension::length
+                                                           : dimension::second_moment;
+    *target = r.number(node[key], path + "." + k, dim);
+    if (!(*target > 0)) r.fail(node[key], path + "." + k, "must be positive");
+  }
+  return s;
+}
+
+MemberSelector read_member_selector(const Reader& r, const YAML::Node& node, const std::string& path) {
+  MemberSelector sel;
+  sel.origin = r.where(node, path);
+  if (!node) return sel;
+  if (node.IsNull()) return sel;
+  r.check_keys(node, path, {"name", "layer", "product", "colour"});
+  const std::pair<const char*, std::optional<std::string>*> fields[] = {
+      {"name", &sel.name}, {"layer", &sel.layer}, {"product", &sel.product}, {"colour", &sel.colour}};
+  for (const auto& [key, target] : fields) {
+    if (!node[key]) continue;
+    const auto pattern = r.text(node[key], path + "." + key);
+    try {
+      std::regex check(pattern, std::regex::icase);
+    } catch (const std::regex_error& e) {
+      r.fail(node[key], path + "." + key, "'" + pattern + "' is not a valid regular expression (" + e.what() + ")");
+    }
+    *target = pattern;
+  }
+  return sel;
+}
+
+NodeSelector read_node_selector(const Reader& r, const YAML::Node& node, const std::string& path) {
+  NodeSelector sel;
+  sel.origin = r.where(node, path);
+  r.check_keys(node, path, {"x", "y", "z", "near"});
+  if (node["near"]) {
+    if (node["x"] || node["y"] || node["z"])
+      r.fail(node, path, "use either 'near' or planes (x, y, z), not both");
+    sel.near = r.vector3(node["near"], path + ".near", dimension::length);
+  }
+  if (node["x"]) sel.x = r.number(node["x"], path + ".x", dimension::length);
+  if (node["y"]) sel.y = r.number(node["y"], path + ".y", dimension::length);
+  if (node["z"]) sel.z = r.number(node["z"], path + ".z", dimension::length);
+  if (!sel.near && !sel.x && !sel.y && !sel.z)
+    r.fail(node, path, "give a plane such as {z: 0} or a point such as {near: [0, 0, 0]}");
+  return sel;
+}
+
+std::array<bool, 6> read_fixity(const Reader& r, const YAML::Node& node, const std::string& path) {
+  static const std::vector<std::string> names{"ux", "uy", "uz", "rx", "ry", "rz"};
+  std::array<bool, 6> fixed{};
+  if (!node) r.fail(node, path, "a support needs 'fix': fixed, pinned or a list such as [ux, uy, uz]");
+  if (node.IsScalar()) {
+    const auto kind = node.Scalar();
+    if (kind == "fixed") fixed.fill(true);
+    else if (kind == "pinned") fixed = {true, true, true, false, false, false};
+    else r.fail(node, path, "'" + kind + "' is not fixed, pinned or a list such as [ux, uy, uz]");
+    return fixed;
+  }
+  r.expect_list(node, path);
+  for (std::size_t i = 0; i < node.size(); ++i) {
+    const auto dof = r.text(node[i], Reader::index(path, i));
+    const auto it = std::find(names.begin(), names.end(), dof);
+    if (it == names.end())
+      r.fail(node[i], Reader::index(path, i), "'" + dof + "' is not one of ux, uy, uz, rx, ry, rz" + did_you_mean(dof, names));
+    fixed[static_cast<std::size_t>(it - names.begin())] = true;
+  }
+  return fixed;
+}
+
+CaseSpec read_case(const Reader& r, const YAML::Node& node, const std::string& path) {
+  r.check_keys(node, path, {"name", "self_weight", "member_loads", "node_loads"});
+  CaseSpec c;
+  c.origin = r.where(node, path);
+  if (!node["name"]) r.fail(node, path, "a load case needs a name");
+  c.name = r.text(node["name"], path + ".name");
+  if (node["self_weight"]) c.self_weight = r.boolean(node["self_weight"], path + ".self_weight");
+  if (const auto loads = node["member_loads"]) {
+    r.expect_list(loads, path + ".member_loads");
+    for (std::size_t i = 0; i < loads.size(); ++i) {
+      const auto p = Reader::index(path + ".member_loads", i);
+      r.check_keys(loads[i], p, {"where", "w"});
+      MemberLoadSpec load;
+      load.where = read_member_selector(r, loads[i]["where"], p + ".where");
+      if (!loads[i]["w"]) r.fail(loads[i], p, "a member load needs w: [wx, wy, wz] (force per length, global axes)");
+      load.w = r.vector3(loads[i]["w"], p + ".w", dimension::line_load);
+      c.member_loads.push_back(std::move(load));
+    }
+  }
+  if (const auto loads = node["node_loads"]) {
+    r.expect_list(loads, path + ".node_loads");
+    for (std::size_t i = 0; i < loads.size(); ++i) {
+      const auto p = Reader::index(path + ".node_loads", i);
+      r.check_keys(loads[i], p, {"where", "near", "force", "moment"});
+      NodeLoadSpec load;
+      if (loads[i]["near"] && loads[i]["where"]) r.fail(loads[i], p, "use either 'near' or 'where', not both");
+      if (loads[i]["near"]) {
+        load.where.origin = r.where(loads[i]["near"], p + ".near");
+        load.where.near = r.vector3(loads[i]["near"], p + ".near", dimension::length);
+      } else if (loads[i]["where"]) {
+        load.where = read_node_selector(r, loads[i]["where"], p + ".where");
+      } else {
+        r.fail(loads[i], p, "a node load needs near: [x, y, z] or where: {plane}");
+      }
+      if (!loads[i]["force"] && !loads[i]["moment"]) r.fail(loads[i], p, "a node load needs force and/or moment");
+      if (loads[i]["force"]) load.force = r.vector3(loads[i]["force"], p + ".force", dimension::force);
+      if (loads[i]["moment"]) load.moment = r.vector3(loads[i]["moment"], p + ".moment", dimension::moment);
+      c.node_loads.push_back(std::move(load));
+    }
+  }
+  return c;
+}
+
+std::vector<std::string> read_name_list(const Reader& r, const YAML::Node& node, const std::string& path,
+                                        const std::vector<std::string>& known) {
+  r.expect_list(node, path);
+  std::vector<std::string> names;
+  for (std::size_t i = 0; i < node.size(); ++i) {
+    const auto name = r.text(node[i], Reader::index(path, i));
+    if (std::find(known.begin(), known.end(), name) == known.end())
+      r.fail(node[i], Reader::index(path, i),
+             "no load case or combination is named '" + name + "'" + did_you_mean(name, known));
+    names.push_back(name);
+  }
+  return names;
+}
+
+}  // namespace
+
+Project read_project(const std::filesystem::path& file) {
+  YAML::Node root;
+  try {
+    root = YAML::LoadFile(file.string());
+  } catch (const YAML::BadFile&) {
+    throw InputError(file.string() + ": cannot open the project file; check the path");
+  } catch (const YAML::ParserException& e) {
+    throw InputError(file.string() + ":" + std::to_string(e.mark.line + 1) + ": not valid YAML: " + e.msg);
+  }
+
+  Reader r(file);
+  if (!root.IsMap()) throw InputError(file.string() + ": a project file is a YAML mapping with at least 'model:'");
+  r.check_keys(root, "", {"model", "units", "merge_tolerance", "materials", "sections", "rules", "supports", "cases",
+                          "combinations", "checks"});
+  r.units_ = read_units(r, root["units"]);
+
+  Project p;
+  p.file = file;
+  p.length_unit = r.units_.length_name;
+  p.force_unit = r.units_.force_name;
+  if (!root["model"]) r.fail(root, "model", "the project needs 'model:' naming the STEP file");
+  p.model = file.parent_path() / r.text(root["model"], "model");
+
+  if (root["merge_tolerance"]) {
+    p.merge_tolerance = r.number(root["merge_tolerance"], "merge_tolerance", dimension::length);
+    if (!(p.merge_tolerance > 0)) r.fail(root["merge_tolerance"], "merge_tolerance", "must be positive");
+  }
+
+  if (const auto node = root["materials"]) {
+    r.expect_map(node, "materials");
+    for (const auto& item : node) {
+      const auto name = item.first.as<std::string>();
+      p.materials[name] = read_material(r, item.second, "materials." + name, name);
+    }
+  }
+  if (const auto node = root["sections"]) {
+    r.expect_map(node, "sections");
+    for (const auto& item : node) {
+      const auto name = item.first.as<std::string>();
+      p.sections[name] = read_section(r, item.second, "sections." + name, name);
+    }
+  }
+
+  if (const auto node = root["rules"]) {
+    r.expect_list(node, "rules");
+    for (std::size_t i = 0; i < node.size(); ++i) {
+      const auto path = Reader::index("rules", i);
+      r.check_keys(node[i], path, {"where", "section", "material", "roll"});
+      Rule rule;
+      rule.where = read_member_selector(r, node[i]["where"], path + ".where");
+      if (node[i]["section"]) rule.section = r.text(node[i]["section"], path + ".section");
+      if (node[i]["material"]) rule.material = r.text(node[i]["material"], path + ".material");
+      if (node[i]["roll"])
+        rule.roll = r.number(node[i]["roll"], path + ".roll", dimension::none) * std::numbers::pi / 180.0;
+      if (!rule.section && !rule.material && !rule.roll)
+        r.fail(node[i], path, "a rule sets at least one of section, material, roll");
+      p.rules.push_back(std::move(rule));
+    }
+  }
+
+  if (const auto node = root["supports"]) {
+    r.expect_list(node, "supports");
+    for (std::size_t i = 0; i < node.size(); ++i) {
+      const auto path = Reader::index("supports", i);
+      r.check_keys(node[i], path, {"where", "fix"});
+      if (!node[i]["where"]) r.fail(node[i], path, "a support needs where: {z: 0} or where: {near: [x, y, z]}");
+      SupportSpec s;
+      s.where = read_node_selector(r, node[i]["where"], path + ".where");
+      s.fixed = read_fixity(r, node[i]["fix"], path + ".fix");
+      p.supports.push_back(std::move(s));
+    }
+  }
+
+  std::vector<std::string> result_names;
+  if (const auto node = root["cases"]) {
+    r.expect_list(node, "cases");
+    for (std::size_t i = 0; i < node.size(); ++i) {
+      auto c = read_case(r, node[i], Reader::index("cases", i));
+      if (std::find(result_names.begin(), result_names.end(), c.name) != result_names.end())
+        r.fail(node[i]["name"], Reader::index("cases", i) + ".name", "a second load case is named '" + c.name + "'");
+      result_names.push_back(c.name);
+      p.cases.push_back(std::move(c));
+    }
+  }
+  if (p.cases.empty()) r.fail(root, "cases", "the project defines no load case; add cases: [{name: G, self_weight: true}]");
+  const std::vector<std::string> case_names = result_names;
+
+  if (const auto node = root["combinations"]) {
+    r.expect_list(node, "combinations");
+    for (std::size_t i = 0; i < node.size(); ++i) {
+      const auto path = Reader::index("combinations", i);
+      r.check_keys(node[i], path, {"name", "factors"});
+      CombinationSpec c;
+      c.origin = r.where(node[i], path);
+      if (!node[i]["name"]) r.fail(node[i], path, "a combination needs a name");
+      c.name = r.text(node[i]["name"], path + ".name");
+      if (std::find(result_names.begin(), result_names.end(), c.name) != result_names.end())
+        r.fail(node[i]["name"], path + ".name", "the name '" + c.name + "' is already used by a case or combination");
+      if (!node[i]["factors"] || !node[i]["factors"].IsMap() || node[i]["factors"].size() == 0)
+        r.fail(node[i], path + ".factors", "a combination needs factors: {CASE: factor, ...}");
+      for (const auto& f : node[i]["factors"]) {
+        const auto name = f.first.as<std::string>();
+        if (std::find(case_names.begin(), case_names.end(), name) == case_names.end())
+          r.fail(f.first, path + ".factors." + name, "no load case is named '" + name + "'" + did_you_mean(name, case_names));
+        c.factors.emplace_back(name, r.number(f.second, path + ".factors." + name, dimension::none));
+      }
+      result_names.push_back(c.name);
+      p.combinations.push_back(std::move(c));
+    }
+  }
+
+  if (const auto node = root["checks"]) {
+    r.check_keys(node, "checks", {"stress", "deflection"});
+    if (const auto s = node["stress"]) {
+      r.check_keys(s, "checks.stress", {"combinations"});
+      StressCheckSpec spec;
+      if (s["combinations"]) spec.combinations = read_name_list(r, s["combinations"], "checks.stress.combinations", result_names);
+      else spec.combinations = result_names;
+      p.checks.stress = spec;
+    }
+    if (const auto d = node["deflection"]) {
+      r.check_keys(d, "checks.deflection", {"span_ratio", "combinations"});
+      DeflectionCheckSpec spec;
+      if (d["span_ratio"]) {
+        spec.span_ratio = r.number(d["span_ratio"], "checks.deflection.span_ratio", dimension::none);
+        if (!(spec.span_ratio > 0)) r.fail(d["span_ratio"], "checks.deflection.span_ratio", "must be positive, e.g. 300 for L/300");
+      }
+      if (d["combinations"]) spec.combinations = read_name_list(r, d["combinations"], "checks.deflection.combinations", result_names);
+      else spec.combinations = result_names;
+      p.checks.deflection = spec;
+    }
+  } else {
+    // Without a checks block, screen stresses under every combination (every case when there are none).
+    StressCheckSpec spec;
+    for (const auto& c : p.combinations) spec.combinations.push_back(c.name);
+    if (spec.combinations.empty()) spec.combinations = case_names;
+    p.checks.stress = spec;
+  }
+  return p;
+}
+
+}  // namespace stepframe
