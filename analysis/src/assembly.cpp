@@ -1,7 +1,7 @@
 #include "stepframe/analysis/assembly.hpp"
 
 #include "stepframe/analysis/frame_element.hpp"
-#include "stepframe/analysis/member_geometry.hpp"
+#include "stepframe/analysis/element_geometry.hpp"
 
 namespace stepframe::analysis {
 
@@ -25,11 +25,11 @@ DofNumbering number_dofs(const FrameModel& model) {
 Eigen::SparseMatrix<double> assemble_stiffness(const FrameModel& model) {
   const auto size = static_cast<Eigen::Index>(6 * model.nodes.size());
   std::vector<Eigen::Triplet<double>> triplets;
-  triplets.reserve(144 * model.members.size());
+  triplets.reserve(144 * model.elements.size());
 
-  for (std::size_t m = 0; m < model.members.size(); ++m) {
-    const FrameMember& member = model.members[m];
-    const MemberGeometry geo = member_geometry(model, m);
+  for (std::size_t m = 0; m < model.elements.size(); ++m) {
+    const FrameElement& member = model.elements[m];
+    const ElementGeometry geo = element_geometry(model, m);
     const ElementProperties props =
         element_properties(model.sections[member.section], model.materials[member.material], geo.length);
     // Global element stiffness K_e = T^T k T (congruent transformation, common practice).

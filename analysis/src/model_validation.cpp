@@ -1,5 +1,6 @@
 #include "stepframe/analysis/model_validation.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <stdexcept>
 #include <string>
@@ -12,7 +13,7 @@ bool positive(double v) { return std::isfinite(v) && v > 0; }
 std::string member_label(std::size_t m) { return "member " + std::to_string(m); }
 
 void check_member(const FrameModel& model, std::size_t m) {
-  const FrameMember& member = model.members[m];
+  const FrameElement& member = model.elements[m];
   for (std::size_t end = 0; end < 2; ++end) {
     if (member.nodes[end] >= model.nodes.size())
       throw std::invalid_argument(member_label(m) + " refers to node " + std::to_string(member.nodes[end]) +
@@ -61,12 +62,31 @@ void check_member(const FrameModel& model, std::size_t m) {
 }  // namespace
 
 void validate_model(const FrameModel& model) {
-  if (model.members.empty()) throw std::invalid_argument("the model has no members; there is nothing to analyse");
+  if (model.elements.empty()) throw std::invalid_argument("the model has no members; there is nothing to analyse");
   for (std::size_t n = 0; n < model.nodes.size(); ++n) {
     if (!model.nodes[n].allFinite())
       throw std::invalid_argument("node " + std::to_string(n) + " has a coordinate that is not a finite number");
   }
-  for (std::size_t m = 0; m < model.members.size(); ++m) check_member(model, m);
+  for (std::size_t m = 0; m < model.elements.size(); ++m) check_member(model, m);
+
+  // Members are chains: every element used once, each starting where the previous one ends.
+  std::vector<bool> used(model.elements.size(), false);
+  for (std::size_t m = 0; m < model.members.size(); ++m) {
+    const auto& chain = model.members[m].elements;
+    if (chain.empty()) throw std::invalid_argument("member " + std::to_string(m) + " has no elements");
+    for (std::size_t k = 0; k < chain.size(); ++k) {
+      if (chain[k] >= model.elements.size() || used[chain[k]])
+        throw std::invalid_argument("member " + std::to_string(m) + " refers to element " + std::to_string(chain[k]) +
+                                    " which does not exist or belongs to another member");
+      used[chain[k]] = true;
+      if (k > 0 && model.elements[chain[k - 1]].nodes[1] != model.elements[chain[k]].nodes[0])
+        throw std::invalid_argument("member " + std::to_string(m) + ": element " + std::to_string(chain[k]) +
+                                    " does not start where element " + std::to_string(chain[k - 1]) + " ends");
+    }
+  }
+  if (!model.members.empty() && std::find(used.begin(), used.end(), false) != used.end())
+    throw std::invalid_argument("element " + std::to_string(std::find(used.begin(), used.end(), false) - used.begin()) +
+                                " belongs to no member");
 
   for (std::size_t s = 0; s < model.supports.size(); ++s) {
     if (model.supports[s].node >= model.nodes.size())
@@ -82,11 +102,11 @@ void validate_model(const FrameModel& model) {
       if (!load.force.allFinite() || !load.moment.allFinite())
         throw std::invalid_argument(label + " has a non-finite load on node " + std::to_string(load.node));
     }
-    for (const MemberUniformLoad& load : lc.member_loads) {
-      if (load.member >= model.members.size())
-        throw std::invalid_argument(label + " loads member " + std::to_string(load.member) + " which does not exist");
+    for (const ElementUniformLoad& load : lc.element_loads) {
+      if (load.element >= model.elements.size())
+        throw std::invalid_argument(label + " loads member " + std::to_string(load.element) + " which does not exist");
       if (!load.w.allFinite())
-        throw std::invalid_argument(label + " has a non-finite load on " + member_label(load.member));
+        throw std::invalid_argument(label + " has a non-finite load on " + member_label(load.element));
     }
   }
   for (std::size_t c = 0; c < model.combinations.size(); ++c) {

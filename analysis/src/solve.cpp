@@ -3,8 +3,9 @@
 #include "stepframe/analysis/assembly.hpp"
 #include "stepframe/analysis/frame_element.hpp"
 #include "stepframe/analysis/load_vector.hpp"
-#include "stepframe/analysis/member_geometry.hpp"
-#include "stepframe/analysis/member_recovery.hpp"
+#include "stepframe/analysis/element_geometry.hpp"
+#include "stepframe/analysis/member_line.hpp"
+#include "stepframe/analysis/element_recovery.hpp"
 #include "stepframe/analysis/model_validation.hpp"
 #include "stepframe/analysis/stiffness_factor.hpp"
 
@@ -48,19 +49,21 @@ LoadResult recover(const FrameModel& model, const Eigen::SparseMatrix<double>& k
   for (Eigen::Index g = 0; g < residual.size(); ++g)
     if (!dofs.is_free(g)) result.reactions(g) = residual(g);
 
-  result.members.reserve(model.members.size());
-  for (std::size_t m = 0; m < model.members.size(); ++m) {
-    const FrameMember& member = model.members[m];
-    const MemberGeometry geo = member_geometry(model, m);
-    MemberState ms;
+  result.elements.reserve(model.elements.size());
+  for (std::size_t m = 0; m < model.elements.size(); ++m) {
+    const FrameElement& member = model.elements[m];
+    const ElementGeometry geo = element_geometry(model, m);
+    ElementState ms;
     ms.section = model.sections[member.section];
     ms.properties = element_properties(ms.section, model.materials[member.material], geo.length);
     ms.axes = geo.axes;
+    ms.origin = model.nodes[member.nodes[0]];
     ms.end_displacements << state.u.segment<6>(global_dof(member.nodes[0], ux)),
         state.u.segment<6>(global_dof(member.nodes[1], ux));
     ms.q_local = state.q_local[m];
-    result.members.push_back(recover_member(ms, stations));
+    result.elements.push_back(recover_element(ms, stations));
   }
+  for (const Member& member : member_chains(model)) result.members.push_back(join_elements(member, result.elements));
   return result;
 }
 
@@ -74,7 +77,7 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
                         "and rotation",
                         {});
   spdlog::debug("analysing frame: {} nodes, {} members, {} load cases, {} combinations", model.nodes.size(),
-               model.members.size(), model.cases.size(), model.combinations.size());
+               model.elements.size(), model.cases.size(), model.combinations.size());
   report(options, 0.0);
 
   // Assembly.
@@ -86,7 +89,7 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
   for (const LoadCase& lc : model.cases) {
     LoadState s;
     s.name = lc.name;
-    s.q_local = member_local_loads(model, lc);
+    s.q_local = element_local_loads(model, lc);
     s.f = load_vector(model, lc, s.q_local);
     states.push_back(std::move(s));
   }
@@ -108,12 +111,12 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
     c.is_combination = true;
     c.f = Eigen::VectorXd::Zero(k_full.rows());
     c.u = Eigen::VectorXd::Zero(k_full.rows());
-    c.q_local.assign(model.members.size(), Eigen::Vector3d::Zero());
+    c.q_local.assign(model.elements.size(), Eigen::Vector3d::Zero());
     for (const auto& [index, factor_value] : combo.factors) {
       const LoadState& s = states[index];
       c.f += factor_value * s.f;
       c.u += factor_value * s.u;
-      for (std::size_t m = 0; m < model.members.size(); ++m) c.q_local[m] += factor_value * s.q_local[m];
+      for (std::size_t m = 0; m < model.elements.size(); ++m) c.q_local[m] += factor_value * s.q_local[m];
     }
     states.push_back(std::move(c));
   }
@@ -127,7 +130,7 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
   }
   report(options, 1.0);
   spdlog::info("frame analysed: {} nodes, {} members, {} free DOFs, {} load cases, {} combinations",
-               model.nodes.size(), model.members.size(), dofs.free_count(), model.cases.size(),
+               model.nodes.size(), model.elements.size(), dofs.free_count(), model.cases.size(),
                model.combinations.size());
   return results;
 }

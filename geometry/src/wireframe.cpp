@@ -103,6 +103,13 @@ void check_inputs(const StepModel& model, double tolerance) {
 
 }  // namespace
 
+double path_length(const Wireframe& frame, const WireMember& member) {
+  double length = 0;
+  for (std::size_t k = 1; k < member.nodes.size(); ++k)
+    length += (frame.nodes[member.nodes[k]] - frame.nodes[member.nodes[k - 1]]).norm();
+  return length;
+}
+
 Wireframe build_wireframe(const StepModel& model, double tolerance) {
   check_inputs(model, tolerance);
   Wireframe frame;

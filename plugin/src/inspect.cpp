@@ -50,8 +50,9 @@ nlohmann::json inspection_json(const Inspection& in) {
   for (std::size_t i = 0; i < wf.members.size(); ++i) {
     const auto& m = wf.members[i];
     members.push_back({{"id", i},
-                       {"nodes", {m.nodes[0], m.nodes[1]}},
-                       {"length", (wf.nodes[m.nodes[1]] - wf.nodes[m.nodes[0]]).norm()},
+                       {"nodes", {m.nodes.front(), m.nodes.back()}},
+                       {"path", m.nodes},
+                       {"length", geometry::path_length(wf, m)},
                        {"source", json_shapes::source(m.source)}});
   }
   auto& diagnostics = j["diagnostics"] = nlohmann::json::array();

@@ -189,15 +189,14 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
 
   std::vector<std::string> without_section, without_material;
   for (const auto& wm : wireframe.members) {
-    analysis::FrameMember member;
-    member.nodes = wm.nodes;
     std::optional<std::size_t> section, material;
+    double roll = 0;
     for (std::size_t r = 0; r < project.rules.size(); ++r) {
       const auto& rule = project.rules[r];
       if (!rule_selectors[r].matches(wm.source)) continue;
       if (rule.section) section = library.section(*rule.section, model);
       if (rule.material) material = library.material(*rule.material, model);
-      if (rule.roll) member.roll = *rule.roll;
+      if (rule.roll) roll = *rule.roll;
     }
     if (!section)
       section = library.from_attributes(wm.source, [&](const std::string& s) { return library.section(s, model); });
@@ -205,9 +204,14 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
       material = library.from_attributes(wm.source, [&](const std::string& s) { return library.material(s, model); });
     if (!section) without_section.push_back(describe_member(wm.source));
     if (!material) without_material.push_back(describe_member(wm.source));
-    member.section = section.value_or(0);
-    member.material = material.value_or(0);
-    model.members.push_back(member);
+
+    // One element per step along the member's path; all share its section, material and roll.
+    analysis::Member member;
+    for (std::size_t k = 1; k < wm.nodes.size(); ++k) {
+      member.elements.push_back(model.elements.size());
+      model.elements.push_back({{wm.nodes[k - 1], wm.nodes[k]}, section.value_or(0), material.value_or(0), roll});
+    }
+    model.members.push_back(std::move(member));
     built.member_sources.push_back(wm.source);
   }
 
@@ -249,7 +253,7 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
       bool any = false;
       for (std::size_t m = 0; m < model.members.size(); ++m)
         if (where.matches(built.member_sources[m])) {
-          lc.member_loads.push_back({m, load.w});
+          for (std::size_t e : model.members[m].elements) lc.element_loads.push_back({e, load.w});
           any = true;
         }
       if (!any)

@@ -24,14 +24,22 @@ nlohmann::json results_json(const Analysis& a) {
 
   auto& members = j["members"] = nlohmann::json::array();
   for (std::size_t i = 0; i < model.members.size(); ++i) {
-    const auto& m = model.members[i];
-    const auto& src = a.built.member_sources[i];
+    const auto& chain = model.members[i].elements;
+    const auto& first = model.elements[chain.front()];
+    std::vector<std::size_t> path{first.nodes[0]};
+    double length = 0;
+    for (std::size_t e : chain) {
+      const auto& element = model.elements[e];
+      path.push_back(element.nodes[1]);
+      length += (model.nodes[element.nodes[1]] - model.nodes[element.nodes[0]]).norm();
+    }
     members.push_back({{"id", i},
-                       {"nodes", {m.nodes[0], m.nodes[1]}},
-                       {"section", model.sections[m.section].designation},
-                       {"material", model.materials[m.material].name},
-                       {"length", (model.nodes[m.nodes[1]] - model.nodes[m.nodes[0]]).norm()},
-                       {"source", json_shapes::source(src)}});
+                       {"nodes", {path.front(), path.back()}},
+                       {"path", path},
+                       {"section", model.sections[first.section].designation},
+                       {"material", model.materials[first.material].name},
+                       {"length", length},
+                       {"source", json_shapes::source(a.built.member_sources[i])}});
   }
 
   auto& results = j["results"] = nlohmann::json::array();

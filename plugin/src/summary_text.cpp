@@ -34,7 +34,7 @@ std::string summary_text(const Analysis& a) {
     out += fmt::format("\nchecks: {} of {} pass\n", a.checks.size() - static_cast<std::size_t>(failed), a.checks.size());
     out += fmt::format("governing: member {} ({}{}, {}) {} utilisation {:.2f} under {} at x = {:.3f} m\n",
                        governing->member, src.entity, src.name.empty() ? "" : " '" + src.name + "'",
-                       model.sections[model.members[governing->member].section].designation, governing->check,
+                       model.sections[model.elements[model.members[governing->member].elements.front()].section].designation, governing->check,
                        governing->utilisation, governing->combination, governing->station);
   } else {
     out += "\nchecks: none requested\n";

@@ -43,7 +43,7 @@ inline constexpr std::array<bool, 6> fixed_all{true, true, true, true, true, tru
 inline FrameModel single_member(const Eigen::Vector3d& a, const Eigen::Vector3d& b, double roll = 0) {
   FrameModel model;
   model.nodes = {a, b};
-  model.members = {FrameMember{{0, 1}, 0, 0, roll}};
+  model.elements = {FrameElement{{0, 1}, 0, 0, roll}};
   model.sections = {test_section()};
   model.materials = {test_steel()};
   return model;

@@ -4,7 +4,7 @@
 // combined internal forces, not summed.
 
 #include "frame_fixtures.hpp"
-#include "stepframe/analysis/member_recovery.hpp"
+#include "stepframe/analysis/element_recovery.hpp"
 #include "stepframe/analysis/solve.hpp"
 
 #include <catch2/catch.hpp>
@@ -18,16 +18,16 @@ TEST_CASE("combination equals the factored sum of its cases", "[analysis][combin
   model.nodes = {V(0, 0, 0), V(0, 0, 3), V(5, 0, 3), V(5, 0, 0)};
   model.sections = {test::test_section()};
   model.materials = {test::test_steel()};
-  model.members = {FrameMember{{0, 1}, 0, 0, 0}, FrameMember{{1, 2}, 0, 0, 0}, FrameMember{{3, 2}, 0, 0, 0}};
+  model.elements = {FrameElement{{0, 1}, 0, 0, 0}, FrameElement{{1, 2}, 0, 0, 0}, FrameElement{{3, 2}, 0, 0, 0}};
   model.supports = {test::support(0, test::fixed_all), test::support(3, test::fixed_all)};
 
   LoadCase dead;  // gravity on the beam and self weight
   dead.name = "dead";
   dead.self_weight = true;
-  dead.member_loads = {MemberUniformLoad{1, V(0, 0, -10e3)}};
+  dead.element_loads = {ElementUniformLoad{1, V(0, 0, -10e3)}};
   LoadCase uplift;  // upward load on the beam and a sway force
   uplift.name = "uplift";
-  uplift.member_loads = {MemberUniformLoad{1, V(0, 0, 9e3)}};
+  uplift.element_loads = {ElementUniformLoad{1, V(0, 0, 9e3)}};
   uplift.node_loads = {NodeLoad{1, V(4e3, 1e3, 0), V(0, 0, 500)}};
   model.cases = {dead, uplift};
   const double fd = 1.0, fu = 1.5;
@@ -49,23 +49,23 @@ TEST_CASE("combination equals the factored sum of its cases", "[analysis][combin
 
   const Section s = test::test_section();
   bool stress_differs_from_sum = false;
-  for (std::size_t m = 0; m < model.members.size(); ++m) {
+  for (std::size_t m = 0; m < model.elements.size(); ++m) {
     double recomputed_max = 0;
-    for (std::size_t k = 0; k < c.members[m].stations.size(); ++k) {
-      const Station& sc = c.members[m].stations[k];
-      const Vector6d summed = fd * d.members[m].stations[k].forces + fu * u.members[m].stations[k].forces;
+    for (std::size_t k = 0; k < c.elements[m].stations.size(); ++k) {
+      const Station& sc = c.elements[m].stations[k];
+      const Vector6d summed = fd * d.elements[m].stations[k].forces + fu * u.elements[m].stations[k].forces;
       CHECK((sc.forces - summed).norm() <= 1e-9 * (summed.norm() + 1.0));
-      const V summed_disp = fd * d.members[m].stations[k].displacement + fu * u.members[m].stations[k].displacement;
+      const V summed_disp = fd * d.elements[m].stations[k].displacement + fu * u.elements[m].stations[k].displacement;
       CHECK((sc.displacement - summed_disp).norm() <= 1e-12 * u_scale);
       // Stress from the combined forces: |N|/A + |My|/Wy + |Mz|/Wz (see results.hpp).
       const double expected =
           std::abs(summed(0)) / s.A + std::abs(summed(4)) / s.Wy() + std::abs(summed(5)) / s.Wz();
       CHECK(sc.max_abs_stress == Approx(expected).epsilon(1e-9));
       recomputed_max = std::max(recomputed_max, expected);
-      const double naive = fd * d.members[m].stations[k].max_abs_stress + fu * u.members[m].stations[k].max_abs_stress;
+      const double naive = fd * d.elements[m].stations[k].max_abs_stress + fu * u.elements[m].stations[k].max_abs_stress;
       if (std::abs(naive - sc.max_abs_stress) > 1e-3 * naive) stress_differs_from_sum = true;
     }
-    CHECK(c.members[m].max_abs_stress == Approx(recomputed_max).epsilon(1e-12));
+    CHECK(c.elements[m].max_abs_stress == Approx(recomputed_max).epsilon(1e-12));
   }
   // The cases bend the beam in opposite senses, so summing stresses would be wrong.
   CHECK(stress_differs_from_sum);

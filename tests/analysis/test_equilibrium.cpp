@@ -31,7 +31,7 @@ FrameModel space_frame() {
   model.sections = {test::test_section(), heavy};
   model.materials = {test::test_steel()};
   auto add = [&](std::size_t a, std::size_t b, std::size_t section, double roll) {
-    model.members.push_back(FrameMember{{a, b}, section, 0, roll});
+    model.elements.push_back(FrameElement{{a, b}, section, 0, roll});
   };
   add(0, 4, 1, 0.0);   // vertical columns, one rolled
   add(1, 5, 1, 0.6);
@@ -56,8 +56,8 @@ LoadCase mixed_loads() {
   lc.node_loads = {NodeLoad{8, V(3e3, -2e3, -15e3), V(1.5e3, -0.8e3, 2.2e3)},
                    NodeLoad{5, V(-4e3, 6e3, 1e3), V(0, 2e3, -1e3)},
                    NodeLoad{7, V(0, 0, -5e3), V(-3e3, 0, 0)}};
-  lc.member_loads = {MemberUniformLoad{4, V(0, 0, -6e3)}, MemberUniformLoad{9, V(1e3, 0.5e3, -2e3)},
-                     MemberUniformLoad{1, V(2.5e3, 0, 0)}, MemberUniformLoad{7, V(0.3e3, -0.7e3, -1.1e3)}};
+  lc.element_loads = {ElementUniformLoad{4, V(0, 0, -6e3)}, ElementUniformLoad{9, V(1e3, 0.5e3, -2e3)},
+                     ElementUniformLoad{1, V(2.5e3, 0, 0)}, ElementUniformLoad{7, V(0.3e3, -0.7e3, -1.1e3)}};
   lc.self_weight = true;
   return lc;
 }
@@ -71,15 +71,15 @@ test::Resultant applied_resultant(const FrameModel& model, const LoadCase& lc) {
     r.moment += model.nodes[load.node].cross(load.force) + load.moment;
   }
   auto add_member_load = [&](std::size_t m, const V& w) {
-    const V a = model.nodes[model.members[m].nodes[0]], b = model.nodes[model.members[m].nodes[1]];
+    const V a = model.nodes[model.elements[m].nodes[0]], b = model.nodes[model.elements[m].nodes[1]];
     const V total = w * (b - a).norm();  // resultant at the midpoint
     r.force += total;
     r.moment += (0.5 * (a + b)).cross(total);
   };
-  for (const MemberUniformLoad& load : lc.member_loads) add_member_load(load.member, load.w);
+  for (const ElementUniformLoad& load : lc.element_loads) add_member_load(load.element, load.w);
   if (lc.self_weight) {
-    for (std::size_t m = 0; m < model.members.size(); ++m) {
-      const FrameMember& member = model.members[m];
+    for (std::size_t m = 0; m < model.elements.size(); ++m) {
+      const FrameElement& member = model.elements[m];
       const double g = model.sections[member.section].A * model.materials[member.material].density * standard_gravity;
       add_member_load(m, V(0, 0, -g));
     }
@@ -115,16 +115,16 @@ TEST_CASE("3D frame: reactions balance loads in force and moment", "[analysis][e
       sum.head<3>() += load.force;
       sum.tail<3>() += load.moment;
     }
-    for (std::size_t m = 0; m < model.members.size(); ++m) {
-      const FrameMember& member = model.members[m];
+    for (std::size_t m = 0; m < model.elements.size(); ++m) {
+      const FrameElement& member = model.elements[m];
       const Eigen::Matrix3d axes = local_axes(model.nodes[member.nodes[0]], model.nodes[member.nodes[1]], member.roll);
       if (member.nodes[0] == n) {
-        sum.head<3>() += axes.transpose() * r.members[m].start_forces.head<3>();
-        sum.tail<3>() += axes.transpose() * r.members[m].start_forces.tail<3>();
+        sum.head<3>() += axes.transpose() * r.elements[m].start_forces.head<3>();
+        sum.tail<3>() += axes.transpose() * r.elements[m].start_forces.tail<3>();
       }
       if (member.nodes[1] == n) {
-        sum.head<3>() -= axes.transpose() * r.members[m].end_forces.head<3>();
-        sum.tail<3>() -= axes.transpose() * r.members[m].end_forces.tail<3>();
+        sum.head<3>() -= axes.transpose() * r.elements[m].end_forces.head<3>();
+        sum.tail<3>() -= axes.transpose() * r.elements[m].end_forces.tail<3>();
       }
     }
     INFO("node " << n << " residual " << sum.transpose());
@@ -141,7 +141,7 @@ TEST_CASE("self weight: vertical reaction equals sum of A rho g L", "[analysis][
   const LoadResult r = solve(model).at(0);
 
   double weight = 0;
-  for (const FrameMember& member : model.members) {
+  for (const FrameElement& member : model.elements) {
     const double L = (model.nodes[member.nodes[1]] - model.nodes[member.nodes[0]]).norm();
     weight += model.sections[member.section].A * model.materials[member.material].density * standard_gravity * L;
   }
@@ -153,7 +153,7 @@ TEST_CASE("self weight: vertical reaction equals sum of A rho g L", "[analysis][
   FrameModel column = test::single_member(V(0, 0, 0), V(0, 0, 4));
   column.supports = {test::support(0, test::fixed_all)};
   column.cases = {lc};
-  const MemberResult mr = solve(column).at(0).members.at(0);
+  const LineResult mr = solve(column).at(0).elements.at(0);
   const Section s = test::test_section();
   const double g = s.A * test::test_steel().density * standard_gravity;
   for (const Station& st : mr.stations) CHECK(st.forces(0) == Approx(-g * (4 - st.x)).margin(1e-9 * g));

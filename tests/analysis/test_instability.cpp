@@ -19,7 +19,7 @@ FrameModel simply_supported(bool restrain_torsion) {
                     test::support(1, {false, true, true, false, false, false})};
   LoadCase lc;
   lc.name = "uniform";
-  lc.member_loads = {MemberUniformLoad{0, V(0, 0, -2e3)}};
+  lc.element_loads = {ElementUniformLoad{0, V(0, 0, -2e3)}};
   model.cases = {lc};
   return model;
 }
@@ -69,7 +69,7 @@ TEST_CASE("portal frame on two pins can topple about the line through them", "[a
   model.nodes = {V(0, 0, 0), V(0, 0, 3), V(4, 0, 3), V(4, 0, 0)};
   model.sections = {test::test_section()};
   model.materials = {test::test_steel()};
-  model.members = {FrameMember{{0, 1}, 0, 0, 0}, FrameMember{{1, 2}, 0, 0, 0}, FrameMember{{3, 2}, 0, 0, 0}};
+  model.elements = {FrameElement{{0, 1}, 0, 0, 0}, FrameElement{{1, 2}, 0, 0, 0}, FrameElement{{3, 2}, 0, 0, 0}};
   model.supports = {test::support(0, {true, true, true, false, false, false}),
                     test::support(3, {true, true, true, false, false, false})};
   LoadCase lc;

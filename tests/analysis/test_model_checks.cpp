@@ -16,7 +16,7 @@ namespace {
 FrameModel two_member_cantilever() {
   FrameModel model = test::single_member(V(0, 0, 0), V(2, 0, 0));
   model.nodes.push_back(V(4, 0, 0));
-  model.members.push_back(FrameMember{{1, 2}, 0, 0, 0});
+  model.elements.push_back(FrameElement{{1, 2}, 0, 0, 0});
   model.supports = {test::support(0, test::fixed_all)};
   LoadCase lc;
   lc.name = "tip";
@@ -31,15 +31,15 @@ TEST_CASE("invalid models are rejected with the member named", "[analysis][valid
   REQUIRE_NOTHROW(solve(two_member_cantilever()));
 
   FrameModel m = two_member_cantilever();
-  m.members[1].nodes[1] = 7;
+  m.elements[1].nodes[1] = 7;
   CHECK_THROWS_WITH(solve(m), Contains("member 1") && Contains("node 7"));
 
   m = two_member_cantilever();
-  m.members[1].section = 3;
+  m.elements[1].section = 3;
   CHECK_THROWS_WITH(solve(m), Contains("member 1") && Contains("section 3"));
 
   m = two_member_cantilever();
-  m.members[0].material = 2;
+  m.elements[0].material = 2;
   CHECK_THROWS_WITH(solve(m), Contains("member 0") && Contains("material 2"));
 
   m = two_member_cantilever();
@@ -57,7 +57,7 @@ TEST_CASE("invalid models are rejected with the member named", "[analysis][valid
   CHECK_THROWS_WITH(solve(m), Contains("member 0") && Contains("shear modulus"));
 
   m = two_member_cantilever();
-  m.cases[0].member_loads = {MemberUniformLoad{5, V(0, 0, -1)}};
+  m.cases[0].element_loads = {ElementUniformLoad{5, V(0, 0, -1)}};
   CHECK_THROWS_WITH(solve(m), Contains("member 5") && Contains("tip"));
 
   m = two_member_cantilever();
@@ -101,10 +101,10 @@ TEST_CASE("results come in model order: cases, then combinations", "[analysis][s
   for (const LoadResult& r : results) {
     CHECK(r.displacements.size() == 18);
     CHECK(r.reactions.size() == 18);
-    REQUIRE(r.members.size() == 2);
-    CHECK(r.members[0].stations.size() == 5);
-    CHECK(r.members[0].stations.front().x == 0.0);
-    CHECK(r.members[0].stations.back().x == 2.0);
+    REQUIRE(r.elements.size() == 2);
+    CHECK(r.elements[0].stations.size() == 5);
+    CHECK(r.elements[0].stations.front().x == 0.0);
+    CHECK(r.elements[0].stations.back().x == 2.0);
   }
   CHECK(results[1].displacements(14) == Approx(2 * results[0].displacements(14)).epsilon(1e-12));
 }

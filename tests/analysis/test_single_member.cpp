@@ -76,7 +76,7 @@ TEST_CASE("cantilever with end load along local z", "[analysis][cantilever]") {
     // End slope dw/dx = -P L^2 / (2 E I) (same reference), so ry = -dw/dx > 0.
     CHECK(theta.y() == Approx(P * L * L / (2 * m.E * s.Iy)).epsilon(tol));
 
-    const MemberResult& mr = r.members[0];
+    const LineResult& mr = r.elements[0];
     // Root: hogging moment +P L about y (top fibre, local +z, in tension) and
     // shear Vz = -P (the outer part pushes down on the root).
     CHECK(mr.start_forces(4) == Approx(P * L).epsilon(tol));
@@ -112,7 +112,7 @@ TEST_CASE("cantilever with end load along local y", "[analysis][cantilever]") {
     CHECK(u.y() == Approx(P * L * L * L / (3 * m.E * s.Iz)).epsilon(tol));
     CHECK(u.z() == Approx(0).margin(1e-12));
     CHECK(theta.z() == Approx(P * L * L / (2 * m.E * s.Iz)).epsilon(tol));  // rz = dv/dx
-    const MemberResult& mr = r.members[0];
+    const LineResult& mr = r.elements[0];
     CHECK(std::abs(mr.start_forces(5)) == Approx(P * L).epsilon(tol));
     CHECK(mr.max_abs_stress == Approx(P * L / s.Wz()).epsilon(tol));
     // Largest offset of the deflected shape v(x) = P x^2 (3L - x) / (6 E I) from
@@ -138,7 +138,7 @@ TEST_CASE("cantilever with end torque twists by T L / (G J)", "[analysis][cantil
   CHECK(theta.x() == Approx(T * c.length / (m.G * s.J)).epsilon(tol));
   CHECK(theta.y() == Approx(0).margin(1e-12));
   CHECK(u.norm() == Approx(0).margin(1e-12));
-  for (const Station& st : r.members[0].stations) CHECK(st.forces(3) == Approx(T).epsilon(tol));
+  for (const Station& st : r.elements[0].stations) CHECK(st.forces(3) == Approx(T).epsilon(tol));
 }
 
 TEST_CASE("axial bar extends by P L / (E A) and carries tension N = P", "[analysis][axial]") {
@@ -148,7 +148,7 @@ TEST_CASE("axial bar extends by P L / (E A) and carries tension N = P", "[analys
   const Cantilever c = cantilever(V(0, 0, 0), V(0, 0, 3.5), 0, V(P, 0, 0), V::Zero());  // vertical bar pulled up
   const LoadResult r = solve(c.model).at(0);
   CHECK(r.displacements(6 + 2) == Approx(P * c.length / (m.E * s.A)).epsilon(tol));
-  for (const Station& st : r.members[0].stations) {
+  for (const Station& st : r.elements[0].stations) {
     CHECK(st.forces(0) == Approx(P).epsilon(tol));
     CHECK(st.max_abs_stress == Approx(P / s.A).epsilon(tol));
     // Linear axial displacement along the bar.

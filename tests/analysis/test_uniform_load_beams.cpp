@@ -16,7 +16,7 @@ namespace {
 
 constexpr double tol = 1e-9;  // relative; exact element and exact recovery
 
-const Station& station_at(const MemberResult& r, double x) {
+const Station& station_at(const LineResult& r, double x) {
   for (const Station& st : r.stations)
     if (std::abs(st.x - x) < 1e-12) return st;
   FAIL("no station at x = " << x);
@@ -35,13 +35,13 @@ TEST_CASE("simply supported beam under uniform load, one member", "[analysis][ud
                     test::support(1, {false, true, true, false, false, false})};
   LoadCase lc;
   lc.name = "uniform";
-  lc.member_loads = {MemberUniformLoad{0, V(0, 0, -w)}};
+  lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}};
   model.cases = {lc};
 
   SolveOptions options;
   options.stations = 21;  // station 10 sits at midspan
   const LoadResult r = solve(model, options).at(0);
-  const MemberResult& mr = r.members.at(0);
+  const LineResult& mr = r.elements.at(0);
   REQUIRE(mr.stations.size() == 21);
   const Station& mid = station_at(mr, L / 2);
 
@@ -76,28 +76,28 @@ TEST_CASE("fixed-ended beam under uniform load", "[analysis][udl]") {
   SECTION("modelled as two members with a free node at midspan") {
     FrameModel model = test::single_member(V(0, 0, 0), V(L / 2, 0, 0));
     model.nodes.push_back(V(L, 0, 0));
-    model.members.push_back(FrameMember{{1, 2}, 0, 0, 0});
+    model.elements.push_back(FrameElement{{1, 2}, 0, 0, 0});
     model.supports = {test::support(0, test::fixed_all), test::support(2, test::fixed_all)};
     LoadCase lc;
     lc.name = "uniform";
-    lc.member_loads = {MemberUniformLoad{0, V(0, 0, -w)}, MemberUniformLoad{1, V(0, 0, -w)}};
+    lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}, ElementUniformLoad{1, V(0, 0, -w)}};
     model.cases = {lc};
     const LoadResult r = solve(model).at(0);
 
     // Midspan node deflection and moment.
     CHECK(r.displacements(6 + 2) == Approx(-w * L * L * L * L / (384 * m.E * s.Iy)).epsilon(tol));
-    CHECK(r.members[0].end_forces(4) == Approx(-w * L * L / 24).epsilon(tol));
-    CHECK(r.members[1].start_forces(4) == Approx(-w * L * L / 24).epsilon(tol));
+    CHECK(r.elements[0].end_forces(4) == Approx(-w * L * L / 24).epsilon(tol));
+    CHECK(r.elements[1].start_forces(4) == Approx(-w * L * L / 24).epsilon(tol));
     // Hogging end moments w L^2 / 12 (top fibre in tension: My > 0).
-    CHECK(r.members[0].start_forces(4) == Approx(w * L * L / 12).epsilon(tol));
-    CHECK(r.members[1].end_forces(4) == Approx(w * L * L / 12).epsilon(tol));
-    CHECK(r.members[0].max_abs_stress == Approx(w * L * L / 12 / s.Wy()).epsilon(tol));
+    CHECK(r.elements[0].start_forces(4) == Approx(w * L * L / 12).epsilon(tol));
+    CHECK(r.elements[1].end_forces(4) == Approx(w * L * L / 12).epsilon(tol));
+    CHECK(r.elements[0].max_abs_stress == Approx(w * L * L / 12 / s.Wy()).epsilon(tol));
     // Support reactions: w L / 2 up and the fixing moments.
     CHECK(r.reactions(2) == Approx(w * L / 2).epsilon(tol));
     CHECK(r.reactions(4) == Approx(-w * L * L / 12).epsilon(tol));  // global ry at the left end
     CHECK(r.reactions(12 + 4) == Approx(w * L * L / 12).epsilon(tol));
     // Deflected shape between the nodes, member 0 covers 0 <= x <= L/2.
-    for (const Station& st : r.members[0].stations) {
+    for (const Station& st : r.elements[0].stations) {
       const double x = st.x;
       CHECK(st.displacement.z() ==
             Approx(-w * x * x * (L - x) * (L - x) / (24 * m.E * s.Iy)).margin(1e-9 * w * L * L * L * L / (m.E * s.Iy)));
@@ -109,11 +109,11 @@ TEST_CASE("fixed-ended beam under uniform load", "[analysis][udl]") {
     model.supports = {test::support(0, test::fixed_all), test::support(1, test::fixed_all)};
     LoadCase lc;
     lc.name = "uniform";
-    lc.member_loads = {MemberUniformLoad{0, V(0, 0, -w)}};
+    lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}};
     model.cases = {lc};
     SolveOptions options;
     options.stations = 11;
-    const MemberResult mr = solve(model, options).at(0).members.at(0);
+    const LineResult mr = solve(model, options).at(0).elements.at(0);
     const Station& mid = station_at(mr, L / 2);
     CHECK(mid.displacement.z() == Approx(-w * L * L * L * L / (384 * m.E * s.Iy)).epsilon(tol));
     CHECK(mid.forces(4) == Approx(-w * L * L / 24).epsilon(tol));
@@ -132,9 +132,9 @@ TEST_CASE("uniform load along local y bends the beam about z", "[analysis][udl]"
                     test::support(1, {false, true, true, false, false, false})};
   LoadCase lc;
   lc.name = "lateral";
-  lc.member_loads = {MemberUniformLoad{0, V(0, w, 0)}};  // global +Y = local +y
+  lc.element_loads = {ElementUniformLoad{0, V(0, w, 0)}};  // global +Y = local +y
   model.cases = {lc};
-  const MemberResult mr = solve(model).at(0).members.at(0);
+  const LineResult mr = solve(model).at(0).elements.at(0);
   const Station& mid = station_at(mr, L / 2);
   CHECK(mid.displacement.y() == Approx(5 * w * L * L * L * L / (384 * m.E * s.Iz)).epsilon(tol));
   CHECK(std::abs(mid.forces(5)) == Approx(w * L * L / 8).epsilon(tol));

@@ -16,22 +16,25 @@
 using namespace stepframe;
 
 TEST_CASE("the line model round-trips through VTK's XML reader") {
-  // Two members (an L of two 2 m members) with hand-made results: the writer
-  // must carry every number into the file unchanged.
+  // Two members (an L of two 2 m members, one element each) with hand-made
+  // results: the writer must carry every number into the file unchanged.
   analysis::FrameModel model;
   model.nodes = {{0, 0, 0}, {2, 0, 0}, {2, 0, 2}};
-  model.sections = {analysis::Section{"IPE300", 5.381e-3, 8.356e-5, 6.038e-6, 2.012e-7, 0.3, 0.15}};
-  model.materials = {analysis::Material{"S355", 210e9, 81e9, 355e6, 7850}};
-  model.members = {{{0, 1}, 0, 0, 0.0}, {{1, 2}, 0, 0, 0.0}};
+  analysis::Section ipe;
+  ipe.designation = "IPE300";
+  model.sections = {ipe};
+  model.materials = {analysis::Material{}};
+  model.elements = {{{0, 1}, 0, 0, 0.0}, {{1, 2}, 0, 0, 0.0}};
 
   analysis::LoadResult result;
   result.name = "ULS";
   result.is_combination = true;
   for (int m = 0; m < 2; ++m) {
-    analysis::MemberResult mr;
+    analysis::LineResult mr;
     for (int k = 0; k < 3; ++k) {
       analysis::Station s;
       s.x = k * 1.0;
+      s.position = m == 0 ? Eigen::Vector3d(k, 0, 0) : Eigen::Vector3d(2, 0, k);
       s.forces.setZero();
       s.displacement = Eigen::Vector3d(0.001 * m, 0.0, -0.002 * k);
       s.max_abs_stress = 1e6 * (10 * m + k);

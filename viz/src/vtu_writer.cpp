@@ -1,5 +1,7 @@
 #include "stepframe/viz/vtu_writer.hpp"
 
+#include "stepframe/analysis/member_line.hpp"
+
 #include <vtkCellData.h>
 #include <vtkDoubleArray.h>
 #include <vtkIdList.h>
@@ -17,7 +19,8 @@ namespace stepframe::viz {
 
 void write_line_model_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
                           const analysis::LoadResult& result) {
-  if (result.members.size() != model.members.size())
+  const auto chains = analysis::member_chains(model);
+  if (result.members.size() != chains.size())
     throw std::invalid_argument("write_line_model_vtu: result does not belong to this model");
 
   vtkNew<vtkPoints> points;
@@ -38,24 +41,20 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   section->SetName("section");
 
   vtkNew<vtkUnstructuredGrid> grid;
-  for (std::size_t m = 0; m < model.members.size(); ++m) {
-    const auto& member = model.members[m];
-    const auto& res = result.members[m];
-    const Eigen::Vector3d start = model.nodes[member.nodes[0]];
-    const Eigen::Vector3d axis = (model.nodes[member.nodes[1]] - start).normalized();
-
+  for (std::size_t m = 0; m < chains.size(); ++m) {
+    const auto& line = result.members[m];
+    const std::size_t section_index = model.elements[chains[m].elements.front()].section;
     vtkNew<vtkIdList> ids;
-    for (const auto& station : res.stations) {
-      const Eigen::Vector3d p = start + station.x * axis;
-      ids->InsertNextId(points->InsertNextPoint(p.data()));
+    for (const auto& station : line.stations) {
+      ids->InsertNextId(points->InsertNextPoint(station.position.data()));
       displacement->InsertNextTuple(station.displacement.data());
       station_stress->InsertNextValue(station.max_abs_stress);
     }
     grid->InsertNextCell(VTK_POLY_LINE, ids);
-    stress->InsertNextValue(res.max_abs_stress);
+    stress->InsertNextValue(line.max_abs_stress);
     member_id->InsertNextValue(static_cast<int>(m));
-    section_id->InsertNextValue(static_cast<int>(member.section));
-    section->InsertNextValue(model.sections[member.section].designation);
+    section_id->InsertNextValue(static_cast<int>(section_index));
+    section->InsertNextValue(model.sections[section_index].designation);
   }
   grid->SetPoints(points);
   grid->GetPointData()->AddArray(displacement);

@@ -18,7 +18,7 @@ namespace stepframe::analysis {
 inline constexpr double standard_gravity = 9.80665;
 
 /// A straight 12-DOF frame element between two nodes.
-struct FrameMember {
+struct FrameElement {
   std::array<std::size_t, 2> nodes{};  ///< start, end: local x runs start -> end
   std::size_t section = 0;             ///< index into FrameModel::sections
   std::size_t material = 0;            ///< index into FrameModel::materials
@@ -40,9 +40,9 @@ struct NodeLoad {
   Eigen::Vector3d moment = Eigen::Vector3d::Zero();  ///< [N m], global axes
 };
 
-/// Uniform load over the whole member, force per length along the member [N/m], global axes.
-struct MemberUniformLoad {
-  std::size_t member = 0;
+/// Uniform load over a whole element, force per length along it [N/m], global axes.
+struct ElementUniformLoad {
+  std::size_t element = 0;
   Eigen::Vector3d w = Eigen::Vector3d::Zero();
 };
 
@@ -50,7 +50,15 @@ struct LoadCase {
   std::string name;
   bool self_weight = false;  ///< A * density * g per length along -Z on every member
   std::vector<NodeLoad> node_loads;
-  std::vector<MemberUniformLoad> member_loads;
+  std::vector<ElementUniformLoad> element_loads;
+};
+
+/// A member as the CAD model draws it (one edge, or one polyline or curve):
+/// a chain of elements, in order from the member's start to its end, each
+/// element starting where the previous one ends. Checks, take-off and reports
+/// speak of members; the solver sees elements.
+struct Member {
+  std::vector<std::size_t> elements;
 };
 
 /// A linear combination of load cases.
@@ -61,12 +69,17 @@ struct Combination {
 
 struct FrameModel {
   std::vector<Eigen::Vector3d> nodes;  ///< [m]
-  std::vector<FrameMember> members;
+  std::vector<FrameElement> elements;
+  /// CAD members; when empty, every element is a member of its own (see member_chains).
+  std::vector<Member> members;
   std::vector<Section> sections;
   std::vector<Material> materials;
   std::vector<Support> supports;
   std::vector<LoadCase> cases;
   std::vector<Combination> combinations;
 };
+
+/// The model's members, or one member per element when the model gives none.
+std::vector<Member> member_chains(const FrameModel& model);
 
 }  // namespace stepframe::analysis

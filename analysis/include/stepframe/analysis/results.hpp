@@ -17,13 +17,15 @@ using Vector6d = Eigen::Matrix<double, 6, 1>;
 
 /// Internal forces and displacement at one station along a member.
 struct Station {
-  double x = 0;                 ///< distance from the start node [m]
+  double x = 0;                 ///< distance from the start of the element or member [m]
+  Eigen::Vector3d position = Eigen::Vector3d::Zero();  ///< undeformed position of the axis point, global [m]
   Vector6d forces = Vector6d::Zero();  ///< N, Vy, Vz, T, My, Mz [N, N m]
   Eigen::Vector3d displacement = Eigen::Vector3d::Zero();  ///< translation of the member axis at x, global axes [m]
   double max_abs_stress = 0;    ///< largest |sigma| over the section's extreme fibres [Pa]
 };
 
-struct MemberResult {
+/// Results along a line: one element, or one member (its elements' stations joined).
+struct LineResult {
   Vector6d start_forces = Vector6d::Zero();  ///< internal forces at x = 0 (same convention as Station::forces)
   Vector6d end_forces = Vector6d::Zero();    ///< internal forces at x = L
   std::vector<Station> stations;  ///< evenly spaced, first at 0 and last at L
@@ -38,7 +40,9 @@ struct LoadResult {
   bool is_combination = false;
   Eigen::VectorXd displacements;  ///< 6 per node (ux uy uz rx ry rz), global [m, rad]
   Eigen::VectorXd reactions;      ///< 6 per node, zero where the DOF is free [N, N m]
-  std::vector<MemberResult> members;
+  std::vector<LineResult> elements;  ///< one per FrameModel::elements
+  std::vector<LineResult> members;   ///< one per member_chains(model): stations of its elements joined,
+                                     ///< x measured along the member from its start
 };
 
 }  // namespace stepframe::analysis

@@ -13,9 +13,11 @@
 
 namespace stepframe::geometry {
 
-/// A straight member between two merged nodes.
+/// A member: the path of merged nodes along one CAD edge, from its start to its
+/// end. A straight edge gives two nodes; inner nodes appear where the member is
+/// split into elements (another member's end lands on it, or a curve is divided).
 struct WireMember {
-  std::array<std::size_t, 2> nodes;  ///< start, end (the edge's own direction)
+  std::vector<std::size_t> nodes;  ///< start, inner nodes, end (the edge's own direction)
   SourceInfo source;
 };
 
@@ -24,6 +26,9 @@ struct Wireframe {
   std::vector<WireMember> members;
   std::vector<Diagnostic> diagnostics;  ///< the reader's, then the merge's own
 };
+
+/// Length of a member along its path of nodes [m] (its cut length when straight).
+double path_length(const Wireframe& frame, const WireMember& member);
 
 /// Merges edge end points closer than `tolerance` (metres) into nodes using a
 /// spatial hash (expected O(n)); drops edges whose ends merge into one node,

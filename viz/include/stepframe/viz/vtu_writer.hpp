@@ -1,6 +1,6 @@
 #pragma once
 // The line model of one load case or combination as a VTK XML unstructured
-// grid (.vtu): each member a polyline through its stations.
+// grid (.vtu): each member (as the CAD draws it) a polyline through its stations.
 
 #include "stepframe/analysis/frame_model.hpp"
 #include "stepframe/analysis/results.hpp"

@@ -1,4 +1,4 @@
-#include "stepframe/analysis/member_recovery.hpp"
+#include "stepframe/analysis/element_recovery.hpp"
 
 #include <Eigen/Geometry>
 
@@ -53,14 +53,14 @@ double max_fibre_stress(const Section& section, const Vector6d& f) {
   return std::abs(f(0)) / section.A + std::abs(f(4)) / section.Wy() + std::abs(f(5)) / section.Wz();
 }
 
-MemberResult recover_member(const MemberState& s, std::size_t stations) {
-  if (stations < 2) throw std::invalid_argument("recover_member: at least 2 stations are needed (both ends)");
+LineResult recover_element(const ElementState& s, std::size_t stations) {
+  if (stations < 2) throw std::invalid_argument("recover_element: at least 2 stations are needed (both ends)");
   const double L = s.properties.length;
   const Matrix12d t = transformation(s.axes);
   const Vector12d u_local = t * s.end_displacements;
   const Vector12d end_forces = member_end_forces(s.properties, u_local, s.q_local);
 
-  MemberResult result;
+  LineResult result;
   result.stations.reserve(stations);
   std::vector<Eigen::Vector3d> deformed(stations);  // deformed axis points, local axes
   for (std::size_t k = 0; k < stations; ++k) {
@@ -68,6 +68,7 @@ MemberResult recover_member(const MemberState& s, std::size_t stations) {
     const double x = k + 1 == stations ? L : L * static_cast<double>(k) / static_cast<double>(stations - 1);
     Station st;
     st.x = x;
+    st.position = s.origin + x * s.axes.row(0).transpose();
     st.forces = internal_forces_at(end_forces, s.q_local, x);
     const Eigen::Vector3d d_local = axis_displacement_at(s.properties, u_local, s.q_local, x);
     st.displacement = s.axes.transpose() * d_local;

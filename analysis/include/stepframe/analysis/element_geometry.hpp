@@ -9,12 +9,12 @@
 
 namespace stepframe::analysis {
 
-struct MemberGeometry {
+struct ElementGeometry {
   double length = 0;                                  ///< [m]
   Eigen::Matrix3d axes = Eigen::Matrix3d::Identity(); ///< rows: local x, y, z in global components
 };
 
-/// Geometry of model.members[member]; the model must be valid (see validate_model).
-MemberGeometry member_geometry(const FrameModel& model, std::size_t member);
+/// Geometry of model.elements[member]; the model must be valid (see validate_model).
+ElementGeometry element_geometry(const FrameModel& model, std::size_t member);
 
 }  // namespace stepframe::analysis

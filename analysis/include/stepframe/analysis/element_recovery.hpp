@@ -30,16 +30,17 @@ Eigen::Vector3d axis_displacement_at(const ElementProperties& p, const Vector12d
 double max_fibre_stress(const Section& section, const Vector6d& forces);
 
 /// Everything the recovery needs about one member.
-struct MemberState {
+struct ElementState {
   ElementProperties properties;
   Section section;
   Eigen::Matrix3d axes = Eigen::Matrix3d::Identity();  ///< rows: local x, y, z (global components)
+  Eigen::Vector3d origin = Eigen::Vector3d::Zero();    ///< start node position, global [m]
   Vector12d end_displacements = Vector12d::Zero();     ///< global axes, start node then end node
   Eigen::Vector3d q_local = Eigen::Vector3d::Zero();   ///< uniform load, local axes [N/m]
 };
 
 /// End forces, `stations` evenly spaced stations (both ends included, at least
 /// 2), stresses and the largest deflection from the deformed chord.
-MemberResult recover_member(const MemberState& state, std::size_t stations);
+LineResult recover_element(const ElementState& state, std::size_t stations);
 
 }  // namespace stepframe::analysis
