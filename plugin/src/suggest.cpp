@@ -1,8 +1,9 @@
 #include "stepframe/suggest.hpp"
 
+#include "stepframe/analysis/edit_distance.hpp"
+
 #include <algorithm>
 #include <cctype>
-#include <numeric>
 
 namespace stepframe {
 namespace {
@@ -13,22 +14,6 @@ std::string lower(std::string_view s) {
   return out;
 }
 
-// Levenshtein distance with a single rolling row (Wagner-Fischer, 1974).
-std::size_t edit_distance(const std::string& a, const std::string& b) {
-  std::vector<std::size_t> row(b.size() + 1);
-  std::iota(row.begin(), row.end(), std::size_t{0});
-  for (std::size_t i = 1; i <= a.size(); ++i) {
-    std::size_t diagonal = row[0];
-    row[0] = i;
-    for (std::size_t j = 1; j <= b.size(); ++j) {
-      const std::size_t above = row[j];
-      row[j] = std::min({row[j] + 1, row[j - 1] + 1, diagonal + (a[i - 1] == b[j - 1] ? 0 : 1)});
-      diagonal = above;
-    }
-  }
-  return row[b.size()];
-}
-
 }  // namespace
 
 std::vector<std::string> nearest_names(std::string_view word, const std::vector<std::string>& candidates,
@@ -37,7 +22,7 @@ std::vector<std::string> nearest_names(std::string_view word, const std::vector<
   const std::size_t limit = std::max<std::size_t>(2, w.size() / 2);
   std::vector<std::pair<std::size_t, std::string>> scored;
   for (const auto& c : candidates) {
-    const std::size_t d = edit_distance(w, lower(c));
+    const std::size_t d = analysis::edit_distance(w, lower(c));
     if (d <= limit) scored.emplace_back(d, c);
   }
   std::stable_sort(scored.begin(), scored.end(),
