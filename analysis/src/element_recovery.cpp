@@ -1,5 +1,7 @@
 #include "stepframe/analysis/element_recovery.hpp"
 
+#include "stepframe/analysis/geometric_stiffness.hpp"
+
 #include <Eigen/Geometry>
 
 #include <algorithm>
@@ -7,89 +9,225 @@
 #include <stdexcept>
 
 namespace stepframe::analysis {
+namespace {
 
-Vector6d internal_forces_at(const Vector12d& end_forces_local, const Eigen::Vector3d& q_local, double x) {
-  // Equilibrium of the free body [0, x] (statics, common practice). It carries
-  // the start-node action (F0, M0), the load q over [0, x] with resultant q x at
-  // x/2, and at the cut the action (R, M) of the part beyond. Forces:
-  //   F0 + q x + R = 0                                    ->  R = -F0 - q x
-  // moments about the cut point x e_x (lever arms s e_x - x e_x):
-  //   M0 - x e_x x F0 - (x^2/2) e_x x q + M = 0            ->  M = -M0 + x e_x x F0 + (x^2/2) e_x x q
-  // With this sign convention N = R_x > 0 is tension and sigma = N/A + My z/Iy - Mz y/Iz.
-  const Eigen::Vector3d f0 = end_forces_local.segment<3>(0);
-  const Eigen::Vector3d m0 = end_forces_local.segment<3>(3);
-  const Eigen::Vector3d ex = Eigen::Vector3d::UnitX();
-  const Eigen::Vector3d r = -f0 - q_local * x;
-  const Eigen::Vector3d m = -m0 + x * ex.cross(f0) + 0.5 * x * x * ex.cross(q_local);
-  Vector6d forces;
-  forces << r, m;
-  return forces;
+// Torsional shear stress per unit torque [1/m^3] (see section_stress).
+double torsion_factor(const Section& s) {
+  const double t = s.t_max > 0 ? s.t_max : std::min(s.depth, s.width);
+  switch (s.shape) {
+    case SectionShape::rolled_i:
+    case SectionShape::welded_i:
+    case SectionShape::channel:
+    case SectionShape::angle:
+    case SectionShape::tee:
+    case SectionShape::flat:
+      return t / s.J;  // thin open section: tau = T t / J
+    case SectionShape::rhs: {
+      const double am = (s.depth - t) * (s.width - t);  // area enclosed by the wall's mid-line
+      return 1.0 / (2.0 * am * t);                      // Bredt: tau = T / (2 A_m t)
+    }
+    case SectionShape::chs:
+    case SectionShape::round_bar:
+      return 0.5 * s.depth / s.J;  // circular shaft, exact: tau = T r / J at the outer surface
+    case SectionShape::custom:
+      break;
+  }
+  return std::min(s.depth, s.width) / s.J;
 }
 
-Eigen::Vector3d axis_displacement_at(const ElementProperties& p, const Vector12d& u, const Eigen::Vector3d& q,
-                                     double x) {
-  const double L = p.length, xi = x / L, xi2 = xi * xi, xi3 = xi2 * xi;
-  // Cubic Hermite shape functions of the Euler-Bernoulli beam (common practice).
-  const double n1 = 1 - 3 * xi2 + 2 * xi3;
-  const double n2 = L * (xi - 2 * xi2 + xi3);
-  const double n3 = 3 * xi2 - 2 * xi3;
-  const double n4 = L * (xi3 - xi2);
-  // Particular solutions with zero end values and slopes, solving E I v'''' = q
-  // and E A u'' = -q_x: v_p = q x^2 (L - x)^2 / (24 E I), u_p = q_x x (L - x) / (2 E A)
-  // (the fixed-fixed beam under uniform load; standard beam theory, common practice).
-  const double bubble = x * x * (L - x) * (L - x) / 24.0;
-  Eigen::Vector3d d;
-  d.x() = (1 - xi) * u(0) + xi * u(6) + q.x() * x * (L - x) / (2 * p.E * p.A);
-  // x-y plane: rz = dv/dx.
-  d.y() = n1 * u(1) + n2 * u(5) + n3 * u(7) + n4 * u(11) + q.y() * bubble / (p.E * p.Iz);
-  // x-z plane: ry = -dw/dx, so the rotation terms change sign.
-  d.z() = n1 * u(2) - n2 * u(4) + n3 * u(8) - n4 * u(10) + q.z() * bubble / (p.E * p.Iy);
-  return d;
+// Root of the quadratic through (x_k, v_k), k = 0..2, inside [lo, hi].
+void quadratic_roots(double x0, double x1, double x2, double v0, double v1, double v2, double lo, double hi,
+                     std::vector<double>& out) {
+  // Newton form: v(x) = v0 + d1 (x - x0) + d2 (x - x0)(x - x1).
+  const double d01 = (v1 - v0) / (x1 - x0), d12 = (v2 - v1) / (x2 - x1);
+  const double d2 = (d12 - d01) / (x2 - x0);
+  // In powers of s = x - x0: d2 s^2 + (d01 - d2 (x1 - x0)) s + v0 = 0.
+  const double a = d2, b = d01 - d2 * (x1 - x0), c = v0;
+  const double scale = std::abs(v0) + std::abs(v1) + std::abs(v2);
+  if (scale == 0) return;
+  auto keep = [&](double s) {
+    const double x = x0 + s;
+    if (x > lo && x < hi) out.push_back(x);
+  };
+  if (std::abs(a) * (hi - lo) * (hi - lo) <= 1e-12 * scale) {
+    if (std::abs(b) * (hi - lo) > 1e-12 * scale) keep(-c / b);
+    return;
+  }
+  const double disc = b * b - 4 * a * c;
+  if (disc < 0) return;
+  const double q = -0.5 * (b + std::copysign(std::sqrt(disc), b));
+  keep(q / a);
+  if (q != 0) keep(c / q);
 }
 
-double max_fibre_stress(const Section& section, const Vector6d& f) {
-  // sigma = N/A + My z/Iy - Mz y/Iz is largest in magnitude at a corner where
-  // all three terms share a sign (doubly symmetric bounding box; common practice).
-  return std::abs(f(0)) / section.A + std::abs(f(4)) / section.Wy() + std::abs(f(5)) / section.Wz();
+}  // namespace
+
+SectionStress section_stress(const Section& s, const Vector6d& f) {
+  SectionStress out;
+  // Normal stress sigma = N/A + My z/Iy - Mz y/Iz (results.hpp sign convention).
+  auto sigma = [&](double y, double z) { return f(0) / s.A + f(4) * z / s.Iy - f(5) * y / s.Iz; };
+  if (!s.stress_points.empty()) {
+    for (const SectionPoint& p : s.stress_points) out.max_abs_normal = std::max(out.max_abs_normal, std::abs(sigma(p.y, p.z)));
+  } else {
+    // Bounding-box corners with the elastic moduli: |N|/A + |My|/Wy + |Mz|/Wz
+    // (doubly symmetric box; common practice).
+    out.max_abs_normal = std::abs(f(0)) / s.A + std::abs(f(4)) / s.Wy() + std::abs(f(5)) / s.Wz();
+  }
+  const double avy = s.Avy > 0 ? s.Avy : s.A, avz = s.Avz > 0 ? s.Avz : s.A;
+  out.shear = std::abs(f(1)) / avy + std::abs(f(2)) / avz + std::abs(f(3)) * torsion_factor(s);
+  // EN 1993-1-1 6.2.1(5): (sigma/fy)^2 + 3 (tau/fy)^2 <= 1, i.e. sqrt(sigma^2 + 3 tau^2) <= fy.
+  out.von_mises = std::sqrt(out.max_abs_normal * out.max_abs_normal + 3 * out.shear * out.shear);
+  return out;
 }
+
+double max_fibre_stress(const Section& section, const Vector6d& forces) {
+  return section_stress(section, forces).max_abs_normal;
+}
+
+namespace {
+
+struct Recovery {
+  Vector12d u;      // the element's own end displacements, local axes
+  Vector12d end;    // end actions, local axes
+};
+
+Recovery solve_ends(const ElementState& s) {
+  Matrix12d k = local_stiffness(s.properties);
+  if (s.second_order) k += local_geometric_stiffness(s.properties, s.axial_force);
+  const Vector12d fe = fixed_end_actions(s.properties, s.loads);
+  const Vector12d u_nodes = transformation(s.axes) * s.end_displacements;
+  Recovery r;
+  r.u = element_end_displacements(k, fe, s.releases, u_nodes);
+  r.end = k * r.u + fe;  // superposition of deformation and fixed-end actions (common practice)
+  return r;
+}
+
+}  // namespace
+
+Vector12d element_end_actions(const ElementState& state) { return solve_ends(state).end; }
 
 LineResult recover_element(const ElementState& s, std::size_t stations) {
   if (stations < 2) throw std::invalid_argument("recover_element: at least 2 stations are needed (both ends)");
   const double L = s.properties.length;
-  const Matrix12d t = transformation(s.axes);
-  const Vector12d u_local = t * s.end_displacements;
-  const Vector12d end_forces = member_end_forces(s.properties, u_local, s.q_local);
+  const Recovery ends = solve_ends(s);
+  const Vector6d f0 = ends.end.head<6>();
+  const Vector6d d0 = ends.u.head<6>();
+  // The beam equations carried from the start end at the far end agree with the
+  // end displacements up to rounding in first order; in second order the
+  // element's P-delta makes them differ slightly, and the difference is spread
+  // linearly so the deformed axis meets both nodes.
+  const Eigen::Vector3d closure = ends.u.segment<3>(6) - element_state_at(s.properties, d0, f0, s.loads, L).head<3>();
+
+  auto displacement_local = [&](double x) -> Eigen::Vector3d {
+    return element_state_at(s.properties, d0, f0, s.loads, x).head<3>() + (x / L) * closure;
+  };
+  auto forces_at = [&](double x) -> Vector6d {
+    Vector6d f = internal_forces_at(f0, s.loads, x);
+    if (s.second_order) {
+      // Moments about the displaced cut point: (x e_x + dd) x F0 adds dd x F0,
+      // dd = lateral displacement of the axis from the start (P-delta).
+      const Eigen::Vector3d dd = displacement_local(x) - displacement_local(0);
+      f(4) += dd.z() * f0(0);
+      f(5) -= dd.y() * f0(0);
+    }
+    return f;
+  };
 
   LineResult result;
   result.stations.reserve(stations);
-  std::vector<Eigen::Vector3d> deformed(stations);  // deformed axis points, local axes
   for (std::size_t k = 0; k < stations; ++k) {
     // Last station exactly at L (no rounding drift).
     const double x = k + 1 == stations ? L : L * static_cast<double>(k) / static_cast<double>(stations - 1);
     Station st;
     st.x = x;
     st.position = s.origin + x * s.axes.row(0).transpose();
-    st.forces = internal_forces_at(end_forces, s.q_local, x);
-    const Eigen::Vector3d d_local = axis_displacement_at(s.properties, u_local, s.q_local, x);
-    st.displacement = s.axes.transpose() * d_local;
-    st.max_abs_stress = max_fibre_stress(s.section, st.forces);
+    st.forces = forces_at(x);
+    st.displacement = s.axes.transpose() * displacement_local(x);
+    const SectionStress stress = section_stress(s.section, st.forces);
+    st.max_abs_stress = stress.max_abs_normal;
+    st.max_shear_stress = stress.shear;
+    st.von_mises = stress.von_mises;
     result.max_abs_stress = std::max(result.max_abs_stress, st.max_abs_stress);
-    deformed[k] = Eigen::Vector3d(x, 0, 0) + d_local;
+    result.max_von_mises = std::max(result.max_von_mises, st.von_mises);
     result.stations.push_back(st);
   }
   result.start_forces = result.stations.front().forces;
   result.end_forces = result.stations.back().forces;
 
-  // Distance of each deformed axis point from the line through the deformed ends.
-  const Eigen::Vector3d a = deformed.front();
-  const Eigen::Vector3d chord = deformed.back() - a;
+  // Candidate points of the extremes: ends, load breakpoints, and the zero
+  // crossings of the shears (for moments) and of the load intensity (for
+  // shears), found from the exact quadratic / linear pieces between breakpoints.
+  const std::vector<double> breaks = load_breakpoints(s.loads, L);
+  std::vector<double> candidates = breaks;
+  for (std::size_t i = 0; i + 1 < breaks.size(); ++i) {
+    const double lo = breaks[i], hi = breaks[i + 1], h = hi - lo;
+    if (!(h > 0)) continue;
+    const double xa = lo + 0.25 * h, xb = lo + 0.5 * h, xc = lo + 0.75 * h;
+    const Vector6d fa = internal_forces_at(f0, s.loads, xa), fb = internal_forces_at(f0, s.loads, xb),
+                   fc = internal_forces_at(f0, s.loads, xc);
+    for (int comp : {1, 2}) quadratic_roots(xa, xb, xc, fa(comp), fb(comp), fc(comp), lo, hi, candidates);
+    const Eigen::Vector3d qa = load_intensity(s.loads, xa), qc = load_intensity(s.loads, xc);
+    for (int comp : {1, 2}) {
+      const double slope = (qc(comp) - qa(comp)) / (xc - xa);
+      if (slope != 0) {
+        const double x = xa - qa(comp) / slope;
+        if (x > lo && x < hi) candidates.push_back(x);
+      }
+    }
+    // Just inside each piece as well, to catch both sides of a point load.
+    candidates.push_back(lo + 1e-9 * h);
+    candidates.push_back(hi - 1e-9 * h);
+  }
+  for (int c = 0; c < 6; ++c) {
+    DiagramExtreme& e = result.extremes[static_cast<std::size_t>(c)];
+    e.max = e.min = result.start_forces(c);
+    e.x_max = e.x_min = 0;
+  }
+  for (double x : candidates) {
+    const Vector6d f = forces_at(x);
+    for (int c = 0; c < 6; ++c) {
+      DiagramExtreme& e = result.extremes[static_cast<std::size_t>(c)];
+      if (f(c) > e.max) e.max = f(c), e.x_max = x;
+      if (f(c) < e.min) e.min = f(c), e.x_min = x;
+    }
+    const SectionStress stress = section_stress(s.section, f);
+    result.max_abs_stress = std::max(result.max_abs_stress, stress.max_abs_normal);
+    result.max_von_mises = std::max(result.max_von_mises, stress.von_mises);
+  }
+
+  // Distance of the deformed axis from the line through the deformed ends, on
+  // a grid four times finer than the stations.
+  const Eigen::Vector3d a = displacement_local(0);
+  const Eigen::Vector3d chord = Eigen::Vector3d(L, 0, 0) + displacement_local(L) - a;
   const double chord_length = chord.norm();
-  for (std::size_t k = 0; k < stations; ++k) {
-    const Eigen::Vector3d& p = deformed[k];
-    const double distance = chord_length > 0 ? chord.cross(p - a).norm() / chord_length : (p - a).norm();
+  auto offset = [&](double x) {
+    const Eigen::Vector3d p = Eigen::Vector3d(x, 0, 0) + displacement_local(x) - a;
+    return chord_length > 0 ? chord.cross(p).norm() / chord_length : p.norm();
+  };
+  const std::size_t fine = 4 * (stations - 1);
+  const double step = L / static_cast<double>(fine);
+  for (std::size_t k = 0; k <= fine; ++k) {
+    const double x = step * static_cast<double>(k);
+    const double distance = offset(x);
     if (distance > result.max_local_deflection) {
       result.max_local_deflection = distance;
-      result.max_local_deflection_at = result.stations[k].x;
+      result.max_local_deflection_at = x;
+    }
+  }
+  // Refine the peak by golden-section search within one grid step either side
+  // (the offset is smooth and unimodal there).
+  if (result.max_local_deflection > 0) {
+    double lo = std::max(0.0, result.max_local_deflection_at - step), hi = std::min(L, result.max_local_deflection_at + step);
+    const double g = 0.5 * (std::sqrt(5.0) - 1.0);
+    for (int it = 0; it < 60; ++it) {
+      const double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
+      if (offset(x1) < offset(x2)) lo = x1;
+      else hi = x2;
+    }
+    const double x = 0.5 * (lo + hi), distance = offset(x);
+    if (distance > result.max_local_deflection) {
+      result.max_local_deflection = distance;
+      result.max_local_deflection_at = x;
     }
   }
   return result;

@@ -2,7 +2,11 @@
 
 namespace stepframe::analysis {
 
-ElementProperties element_properties(const Section& section, const Material& material, double length) {
+double shear_area_y(const Section& section) { return section.Avy > 0 ? section.Avy : 5.0 / 6.0 * section.A; }
+double shear_area_z(const Section& section) { return section.Avz > 0 ? section.Avz : 5.0 / 6.0 * section.A; }
+
+ElementProperties element_properties(const Section& section, const Material& material, double length,
+                                     bool shear_deformation) {
   ElementProperties p;
   p.length = length;
   p.E = material.E;
@@ -11,12 +15,17 @@ ElementProperties element_properties(const Section& section, const Material& mat
   p.Iy = section.Iy;
   p.Iz = section.Iz;
   p.J = section.J;
+  if (shear_deformation) {
+    p.Asy = shear_area_y(section);
+    p.Asz = shear_area_z(section);
+  }
   return p;
 }
 
 Matrix12d local_stiffness(const ElementProperties& p) {
-  // Standard 3D Euler-Bernoulli frame stiffness, e.g. Przemieniecki, Theory of
-  // Matrix Structural Analysis (1968), ch. 5, with the shear-deformation terms set to zero.
+  // Standard 3D frame stiffness, Przemieniecki, Theory of Matrix Structural
+  // Analysis (1968), eq. 5.115, with shear-deformation parameters
+  // phi = 12 E I / (G As L^2) (zero for Euler-Bernoulli).
   const double L = p.length, L2 = L * L, L3 = L2 * L;
   Matrix12d k = Matrix12d::Zero();
 
@@ -31,23 +40,25 @@ Matrix12d local_stiffness(const ElementProperties& p) {
   k(3, 9) = -gj;
 
   // Bending in x-y (DOFs v1=1, rz1=5, v2=7, rz2=11), Iz, rz = dv/dx.
-  const double ez = p.E * p.Iz;
+  const double phi_y = p.Asy > 0 ? 12 * p.E * p.Iz / (p.G * p.Asy * L2) : 0.0;
+  const double ez = p.E * p.Iz / (1 + phi_y);
   k(1, 1) = k(7, 7) = 12 * ez / L3;
   k(1, 7) = -12 * ez / L3;
   k(1, 5) = k(1, 11) = 6 * ez / L2;
   k(5, 7) = k(7, 11) = -6 * ez / L2;
-  k(5, 5) = k(11, 11) = 4 * ez / L;
-  k(5, 11) = 2 * ez / L;
+  k(5, 5) = k(11, 11) = (4 + phi_y) * ez / L;
+  k(5, 11) = (2 - phi_y) * ez / L;
 
   // Bending in x-z (DOFs w1=2, ry1=4, w2=8, ry2=10), Iy, ry = -dw/dx: the
   // translation-rotation couplings change sign with respect to the x-y plane.
-  const double ey = p.E * p.Iy;
+  const double phi_z = p.Asz > 0 ? 12 * p.E * p.Iy / (p.G * p.Asz * L2) : 0.0;
+  const double ey = p.E * p.Iy / (1 + phi_z);
   k(2, 2) = k(8, 8) = 12 * ey / L3;
   k(2, 8) = -12 * ey / L3;
   k(2, 4) = k(2, 10) = -6 * ey / L2;
   k(4, 8) = k(8, 10) = 6 * ey / L2;
-  k(4, 4) = k(10, 10) = 4 * ey / L;
-  k(4, 10) = 2 * ey / L;
+  k(4, 4) = k(10, 10) = (4 + phi_z) * ey / L;
+  k(4, 10) = (2 - phi_z) * ey / L;
 
   // Mirror the upper triangle.
   for (int i = 0; i < 12; ++i)

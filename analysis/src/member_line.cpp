@@ -18,14 +18,24 @@ LineResult join_elements(const Member& member, const std::vector<LineResult>& el
   if (member.elements.empty()) throw std::invalid_argument("join_elements: a member needs at least one element");
   LineResult joined;
   double offset = 0;
+  std::size_t e_index = 0;
   for (std::size_t e : member.elements) {
     const LineResult& part = element_results.at(e);
     for (Station s : part.stations) {
       s.x += offset;
       joined.stations.push_back(s);
     }
+    for (std::size_t c = 0; c < 6; ++c) {
+      const DiagramExtreme& part_extreme = part.extremes[c];
+      DiagramExtreme& j = joined.extremes[c];
+      const bool first = e_index == 0;
+      if (first || part_extreme.max > j.max) j.max = part_extreme.max, j.x_max = part_extreme.x_max + offset;
+      if (first || part_extreme.min < j.min) j.min = part_extreme.min, j.x_min = part_extreme.x_min + offset;
+    }
+    ++e_index;
     offset += part.stations.back().x;
     joined.max_abs_stress = std::max(joined.max_abs_stress, part.max_abs_stress);
+    joined.max_von_mises = std::max(joined.max_von_mises, part.max_von_mises);
   }
   joined.start_forces = element_results[member.elements.front()].start_forces;
   joined.end_forces = element_results[member.elements.back()].end_forces;

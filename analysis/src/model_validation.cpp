@@ -1,5 +1,7 @@
 #include "stepframe/analysis/model_validation.hpp"
 
+#include "stepframe/analysis/element_releases.hpp"
+
 #include <algorithm>
 #include <cmath>
 #include <stdexcept>
@@ -11,6 +13,16 @@ namespace {
 bool positive(double v) { return std::isfinite(v) && v > 0; }
 
 std::string member_label(std::size_t m) { return "member " + std::to_string(m); }
+
+// ", part of CAD member k" when the model groups elements into members.
+std::string owning_member(const FrameModel& model, std::size_t element) {
+  for (std::size_t k = 0; k < model.members.size(); ++k) {
+    const auto& chain = model.members[k].elements;
+    if (std::find(chain.begin(), chain.end(), element) != chain.end() && (chain.size() > 1 || k != element))
+      return " (part of CAD member " + std::to_string(k) + ")";
+  }
+  return "";
+}
 
 void check_member(const FrameModel& model, std::size_t m) {
   const FrameElement& member = model.elements[m];
@@ -57,6 +69,11 @@ void check_member(const FrameModel& model, std::size_t m) {
   if (!positive(mat.E)) throw material_error("Young's modulus E");
   if (!positive(mat.G)) throw material_error("shear modulus G");
   if (!std::isfinite(mat.density) || mat.density < 0) throw material_error("density");
+
+  if (const auto mechanism = release_mechanism(member.releases))
+    throw std::invalid_argument(member_label(m) + owning_member(model, m) + " is released so that it forms a mechanism on its own (" + *mechanism +
+                                "); keep at least one end fixed in that direction, e.g. release torsion (rx) or the "
+                                "axial force (ux) at one end only");
 }
 
 }  // namespace
@@ -92,7 +109,16 @@ void validate_model(const FrameModel& model) {
     if (model.supports[s].node >= model.nodes.size())
       throw std::invalid_argument("support " + std::to_string(s) + " refers to node " +
                                   std::to_string(model.supports[s].node) + " which does not exist");
+    for (double k : model.supports[s].spring)
+      if (!std::isfinite(k) || k < 0)
+        throw std::invalid_argument("support " + std::to_string(s) + " at node " + std::to_string(model.supports[s].node) +
+                                    " has a spring stiffness that is negative or not a finite number");
   }
+  auto fixed_at = [&](std::size_t node, int dof) {
+    return std::any_of(model.supports.begin(), model.supports.end(), [&](const Support& s) {
+      return s.node == node && s.fixed[static_cast<std::size_t>(dof)];
+    });
+  };
   for (std::size_t c = 0; c < model.cases.size(); ++c) {
     const LoadCase& lc = model.cases[c];
     const std::string label = "load case " + std::to_string(c) + " '" + lc.name + "'";
@@ -107,6 +133,30 @@ void validate_model(const FrameModel& model) {
         throw std::invalid_argument(label + " loads member " + std::to_string(load.element) + " which does not exist");
       if (!load.w.allFinite())
         throw std::invalid_argument(label + " has a non-finite load on " + member_label(load.element));
+    }
+    for (const ElementLoad& load : lc.partial_loads) {
+      if (load.element >= model.elements.size())
+        throw std::invalid_argument(label + " loads member " + std::to_string(load.element) + " which does not exist");
+      if (!load.w_start.allFinite() || !load.w_end.allFinite() || !std::isfinite(load.a) || !std::isfinite(load.b))
+        throw std::invalid_argument(label + " has a non-finite load on " + member_label(load.element));
+      const auto& el = model.elements[load.element];
+      const double length = (model.nodes[el.nodes[1]] - model.nodes[el.nodes[0]]).norm();
+      const double b = load.b < 0 ? length : load.b;
+      const double tol = 1e-9 * length;
+      if (load.a < -tol || load.a > length + tol || (!load.point && (b < load.a - tol || b > length + tol)))
+        throw std::invalid_argument(label + ": a load on " + member_label(load.element) + " lies outside it (from " +
+                                    std::to_string(load.a) + " m to " + std::to_string(b) + " m on a member " +
+                                    std::to_string(length) + " m long)");
+    }
+    for (const Settlement& d : lc.settlements) {
+      if (d.node >= model.nodes.size() || d.dof < 0 || d.dof > 5)
+        throw std::invalid_argument(label + " moves node " + std::to_string(d.node) + " which does not exist");
+      if (!std::isfinite(d.value))
+        throw std::invalid_argument(label + " has a non-finite settlement at node " + std::to_string(d.node));
+      if (!fixed_at(d.node, d.dof))
+        throw std::invalid_argument(label + " moves node " + std::to_string(d.node) + " in " +
+                                    dof_names[static_cast<std::size_t>(d.dof)] +
+                                    ", which no support fixes; a settlement needs a support fixed in that direction");
     }
   }
   for (std::size_t c = 0; c < model.combinations.size(); ++c) {

@@ -64,10 +64,10 @@ TEST_CASE("a member of three elements reports as one member") {
   CHECK(r.elements[1].max_local_deflection == Approx(53 * w / (24 * EI)).epsilon(1e-9));
 
   // Checks speak of the member: one result, at midspan, over the whole length.
-  const auto stress = check_stress(model, {&r});
+  const auto stress = check_stress(model, {&r}, 1.0);
   REQUIRE(stress.size() == 1);
   CHECK(stress[0].station == Approx(L / 2));
-  const auto deflection = check_deflection(model, {&r}, 300);
+  const auto deflection = check_deflection(model, {&r}, {300.0});
   REQUIRE(deflection.size() == 1);
   CHECK(deflection[0].limit == Approx(L / 300));
   CHECK(deflection[0].utilisation == Approx(delta / (L / 300)).epsilon(1e-9));

@@ -116,14 +116,16 @@ TEST_CASE("cantilever with end load along local y", "[analysis][cantilever]") {
     CHECK(std::abs(mr.start_forces(5)) == Approx(P * L).epsilon(tol));
     CHECK(mr.max_abs_stress == Approx(P * L / s.Wz()).epsilon(tol));
     // Largest offset of the deflected shape v(x) = P x^2 (3L - x) / (6 E I) from
-    // the chord through the deformed ends, over the same stations.
+    // the chord through the deformed ends (sampled finely here; the recovery
+    // searches a grid four times finer than its stations).
     const double vL = P * L * L * L / (3 * m.E * s.Iz);
     double expected = 0;
-    for (const Station& st : mr.stations) {
-      const double v = P * st.x * st.x * (3 * L - st.x) / (6 * m.E * s.Iz);
-      expected = std::max(expected, std::abs(v - st.x / L * vL) * L / std::hypot(L, vL));
+    for (int k = 0; k <= 4000; ++k) {
+      const double x = L * k / 4000.0;
+      const double v = P * x * x * (3 * L - x) / (6 * m.E * s.Iz);
+      expected = std::max(expected, std::abs(v - x / L * vL) * L / std::hypot(L, vL));
     }
-    CHECK(mr.max_local_deflection == Approx(expected).epsilon(1e-6));
+    CHECK(mr.max_local_deflection == Approx(expected).epsilon(2e-4));
     CHECK(expected > 0.06 * P * L * L * L / (m.E * s.Iz));  // the shape really bows off its chord
   }
 }

@@ -1,11 +1,15 @@
 #pragma once
-// Results along one member from its end displacements and its uniform load.
+// Results along one element from its end displacements and its loads.
 //
 // Internal forces follow results.hpp: actions of the part beyond the cut on the
 // part before it, local axes, N > 0 tension. Between the nodes they are exact
-// for a uniform load (statics of the free body [0, x]); the deflected axis is
-// exact too (Hermite cubics of the end values plus the fixed-end particular solution).
+// for every load of element_loads.hpp (statics of the free body [0, x]); the
+// deflected axis is exact too: the end values carried along by the beam
+// equations, which is the Hermite interpolation of the end values plus the
+// loads' particular solution (element_state_at).
 
+#include "stepframe/analysis/element_loads.hpp"
+#include "stepframe/analysis/element_releases.hpp"
 #include "stepframe/analysis/frame_element.hpp"
 #include "stepframe/analysis/results.hpp"
 #include "stepframe/analysis/section.hpp"
@@ -16,31 +20,49 @@
 
 namespace stepframe::analysis {
 
-/// Internal forces (N, Vy, Vz, T, My, Mz) at distance x from the start, given
-/// the local end forces of member_end_forces and the local uniform load q.
-Vector6d internal_forces_at(const Vector12d& end_forces_local, const Eigen::Vector3d& q_local, double x);
+/// Stresses at one cross-section under internal forces (N, Vy, Vz, T, My, Mz).
+struct SectionStress {
+  double max_abs_normal = 0;  ///< largest |sigma| over the stress points [Pa]
+  double shear = 0;           ///< |Vy|/Avy + |Vz|/Avz + torsional shear [Pa]
+  double von_mises = 0;       ///< sqrt(max_abs_normal^2 + 3 shear^2) [Pa]
+};
 
-/// Translation of the member axis at distance x from the start, local axes,
-/// from the local end displacements and the local uniform load q.
-Eigen::Vector3d axis_displacement_at(const ElementProperties& p, const Vector12d& u_local,
-                                     const Eigen::Vector3d& q_local, double x);
+/// sigma = N/A + My z/Iy - Mz y/Iz at each of the section's stress points
+/// (its convex-hull corners; the four corners +-width/2, +-depth/2 of the
+/// bounding box when the section has none). Shear: the mean shear stress over
+/// the shear areas (A when they are unknown) plus the torsional shear: thin
+/// open sections T t_max / J (Roark, Table 10.1 / 10.7 thin-walled open
+/// sections), rectangular hollow sections T / (2 A_m t) (Bredt's formula, A_m
+/// enclosed by the wall's mid-line), circular tubes and bars T r / J (exact
+/// for circular shafts), and T min(depth, width) / J for sections given by
+/// properties only (exact for a thin plate, conservative for compact shapes).
+SectionStress section_stress(const Section& section, const Vector6d& forces);
 
-/// Largest |sigma| over the four extreme fibre corners (y = +-width/2,
-/// z = +-depth/2): |N|/A + |My|/Wy + |Mz|/Wz [Pa].
+/// Largest |sigma| over the stress points [Pa] (section_stress().max_abs_normal).
 double max_fibre_stress(const Section& section, const Vector6d& forces);
 
-/// Everything the recovery needs about one member.
+/// Everything the recovery needs about one element.
 struct ElementState {
   ElementProperties properties;
   Section section;
   Eigen::Matrix3d axes = Eigen::Matrix3d::Identity();  ///< rows: local x, y, z (global components)
   Eigen::Vector3d origin = Eigen::Vector3d::Zero();    ///< start node position, global [m]
-  Vector12d end_displacements = Vector12d::Zero();     ///< global axes, start node then end node
-  Eigen::Vector3d q_local = Eigen::Vector3d::Zero();   ///< uniform load, local axes [N/m]
+  Vector12d end_displacements = Vector12d::Zero();     ///< the nodes' values, global axes, start then end
+  LocalLoads loads;                                    ///< local axes
+  EndReleases releases{};
+  /// Second order: the element's stiffness includes the geometric stiffness
+  /// of this axial force [N] and moments include N times the axis' lateral
+  /// displacement from its start (P-delta).
+  bool second_order = false;
+  double axial_force = 0;
 };
 
-/// End forces, `stations` evenly spaced stations (both ends included, at least
-/// 2), stresses and the largest deflection from the deformed chord.
+/// Forces and moments the two nodes exert on the element, local axes, start then end.
+Vector12d element_end_actions(const ElementState& state);
+
+/// End forces, `stations` evenly spaced stations (both ends included, at
+/// least 2), stresses, exact diagram extremes and the largest deflection from
+/// the deformed chord (located on a grid four times finer than the stations).
 LineResult recover_element(const ElementState& state, std::size_t stations);
 
 }  // namespace stepframe::analysis

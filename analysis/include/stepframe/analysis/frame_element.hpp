@@ -1,10 +1,12 @@
 #pragma once
-// The 12-DOF Euler-Bernoulli frame element in its local axes.
+// The 12-DOF frame element in its local axes: Euler-Bernoulli, or Timoshenko
+// when the properties carry shear areas.
 //
 // Local DOF order: [u1 v1 w1 rx1 ry1 rz1  u2 v2 w2 rx2 ry2 rz2], node 1 = start.
 // u, v, w are translations along local x, y, z; rx, ry, rz rotations about them
 // (right-hand rule). Bending in the x-y plane uses Iz with rz = dv/dx; bending
-// in the x-z plane uses Iy with ry = -dw/dx. Shear deformation is neglected.
+// in the x-z plane uses Iy with ry = -dw/dx (for Timoshenko elements rz and
+// -ry are the rotations of the cross-section, the slopes then add the shear strain).
 
 #include "stepframe/analysis/material.hpp"
 #include "stepframe/analysis/section.hpp"
@@ -25,12 +27,24 @@ struct ElementProperties {
   double Iy = 0;      ///< second moment about local y [m^4]
   double Iz = 0;      ///< second moment about local z [m^4]
   double J = 0;       ///< St Venant torsion constant [m^4]
+  double Asy = 0;     ///< shear area for shear along local y [m^2]; 0 = no shear deformation
+  double Asz = 0;     ///< shear area for shear along local z [m^2]; 0 = no shear deformation
 };
 
-/// Gathers the element properties of a member of the given section, material and length.
-ElementProperties element_properties(const Section& section, const Material& material, double length);
+/// Shear area a section offers for Timoshenko bending: the section's Avy/Avz
+/// when known, else 5/6 A (the solid rectangle's shear coefficient,
+/// Timoshenko & Gere / Cowper 1966; a screening fallback for sections given
+/// by properties alone).
+double shear_area_y(const Section& section);
+double shear_area_z(const Section& section);
 
-/// Element stiffness in local axes: local end forces = k * local end displacements.
+/// Gathers the element properties of a member of the given section, material
+/// and length; with shear_deformation the shear areas are filled in.
+ElementProperties element_properties(const Section& section, const Material& material, double length,
+                                     bool shear_deformation = false);
+
+/// Element stiffness in local axes: local end forces = k * local end
+/// displacements. With shear areas: Timoshenko bending, phi = 12 E I / (G As L^2).
 Matrix12d local_stiffness(const ElementProperties& p);
 
 /// Nodal loads equivalent (work-consistent) to a uniform load q over the whole

@@ -8,6 +8,9 @@
 
 #include <Eigen/Core>
 
+#include <array>
+#include <cstddef>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -21,7 +24,17 @@ struct Station {
   Eigen::Vector3d position = Eigen::Vector3d::Zero();  ///< undeformed position of the axis point, global [m]
   Vector6d forces = Vector6d::Zero();  ///< N, Vy, Vz, T, My, Mz [N, N m]
   Eigen::Vector3d displacement = Eigen::Vector3d::Zero();  ///< translation of the member axis at x, global axes [m]
-  double max_abs_stress = 0;    ///< largest |sigma| over the section's extreme fibres [Pa]
+  double max_abs_stress = 0;    ///< largest |sigma| over the section's stress points [Pa]
+  double max_shear_stress = 0;  ///< shear from Vy, Vz (over the shear areas) plus torsion [Pa]
+  double von_mises = 0;         ///< sqrt(sigma^2 + 3 tau^2) of the two maxima above (EN 1993-1-1 6.2.1(5)) [Pa]
+};
+
+/// Largest and smallest value of one internal-force diagram and where they occur.
+struct DiagramExtreme {
+  double max = 0;
+  double x_max = 0;  ///< [m] from the start of the element or member
+  double min = 0;
+  double x_min = 0;
 };
 
 /// Results along a line: one element, or one member (its elements' stations joined).
@@ -33,16 +46,40 @@ struct LineResult {
   double max_local_deflection = 0;  ///< largest distance of the deformed axis from the chord
                                     ///< between its deformed ends [m]
   double max_local_deflection_at = 0;  ///< station where it occurs, from the start [m]
+  /// Extremes of N, Vy, Vz, T, My, Mz, located exactly: at the ends, where a
+  /// load starts, stops or acts, and where the shear crosses zero (moments) or
+  /// the load intensity does (shears); not only at the stations.
+  std::array<DiagramExtreme, 6> extremes{};
+  double max_von_mises = 0;  ///< [Pa]
+};
+
+/// One buckling mode of a combination.
+struct BucklingMode {
+  double alpha = 0;  ///< load factor: the combination times alpha is critical
+  Eigen::VectorXd displacements;  ///< 6 per node, global, scaled so the largest translation is 1
+  /// Translations at the points each element was divided into for the
+  /// buckling analysis (start and end included), global, same scale.
+  std::vector<std::vector<Eigen::Vector3d>> element_points;
 };
 
 struct LoadResult {
   std::string name;
   bool is_combination = false;
   Eigen::VectorXd displacements;  ///< 6 per node (ux uy uz rx ry rz), global [m, rad]
-  Eigen::VectorXd reactions;      ///< 6 per node, zero where the DOF is free [N, N m]
+  Eigen::VectorXd reactions;      ///< 6 per node: at fixed DOFs R = K u - F, at springs the spring force
+                                  ///< -k u on the frame, zero elsewhere [N, N m]
   std::vector<LineResult> elements;  ///< one per FrameModel::elements
   std::vector<LineResult> members;   ///< one per member_chains(model): stations of its elements joined,
                                      ///< x measured along the member from its start
+  /// Second-order (P-Delta) result, iterated until the displacements changed
+  /// by less than SolveOptions::second_order_tolerance.
+  bool second_order = false;
+  std::size_t second_order_iterations = 0;
+  /// Elastic critical load factor (EN 1993-1-1 5.2.1(3) alpha_cr) of a
+  /// combination; empty for load cases, when buckling is not asked for, or
+  /// when nothing in the frame is compressed.
+  std::optional<double> alpha_cr;
+  std::vector<BucklingMode> buckling_modes;  ///< lowest first
 };
 
 }  // namespace stepframe::analysis

@@ -14,6 +14,14 @@ namespace stepframe::analysis {
 
 struct SolveOptions {
   std::size_t stations = 21;  ///< stations per member for internal forces and deflections
+  /// Buckling modes per combination (alpha_cr and mode shapes; every load
+  /// case instead when the model has no combinations); 0 skips the buckling analysis.
+  std::size_t buckling_modes = 3;
+  std::size_t buckling_subdivisions = 6;  ///< elements per model element in the buckling analysis
+  /// Second order (FrameModel::settings.second_order): converged when the
+  /// displacements change by less than this fraction of their largest value.
+  double second_order_tolerance = 1e-8;
+  std::size_t second_order_max_iterations = 50;
   /// Called with a fraction in [0, 1] as the work goes on; may be empty.
   std::function<void(double)> progress;
 };
@@ -34,8 +42,12 @@ class UnstableFrame : public std::runtime_error {
 };
 
 /// Results of every load case (in model order) followed by every combination
-/// (in model order). Throws UnstableFrame, or std::invalid_argument for a
-/// model that refers to missing nodes, sections or materials.
+/// (in model order). Cases are solved together (one factorisation, all load
+/// vectors as one multi-column right-hand side); combinations are the
+/// factored sums of the cases, or, when the model asks for second order, each
+/// solved by P-Delta iteration. Throws UnstableFrame (also when a combination
+/// exceeds its elastic critical load in second order), or
+/// std::invalid_argument for an invalid model (see validate_model).
 std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& options = {});
 
 }  // namespace stepframe::analysis

@@ -1,5 +1,6 @@
 #pragma once
-// Sparse LDL^T factorisation of the reduced stiffness matrix, checked for mechanisms.
+// Sparse Cholesky factorisation of the reduced stiffness matrix (CHOLMOD,
+// supernodal, fill-reducing ordering), checked for mechanisms.
 
 #include "stepframe/analysis/assembly.hpp"
 #include "stepframe/analysis/solve.hpp"
@@ -8,6 +9,7 @@
 #include <Eigen/SparseCholesky>
 #include <Eigen/SparseCore>
 
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -17,8 +19,11 @@ namespace stepframe::analysis {
 /// a pivot D_ii <= pivot_tolerance * max_i K_ii (or D_ii <= 0) flags a mechanism.
 inline constexpr double pivot_tolerance = 1e-9;
 
-/// Factorises the free-free stiffness once (fill-reducing AMD ordering) and
-/// then solves any number of right-hand sides.
+/// Factorises the free-free stiffness once (CHOLMOD supernodal L L^T with its
+/// fill-reducing ordering) and then solves any number of right-hand sides,
+/// several at once as the columns of a matrix. The pivots (L_kk^2) are checked
+/// for mechanisms; when CHOLMOD stops on a non-positive pivot, a simplicial
+/// L D L^T of the same matrix names the free directions.
 class StiffnessFactor {
  public:
   /// Throws UnstableFrame naming each node and direction whose pivot vanishes
@@ -29,11 +34,19 @@ class StiffnessFactor {
   StiffnessFactor(const StiffnessFactor&) = delete;
   StiffnessFactor& operator=(const StiffnessFactor&) = delete;
 
+  ~StiffnessFactor();
+
   /// Solution of K_ff u = f (reduced numbering).
   Eigen::VectorXd solve(const Eigen::VectorXd& f_free) const;
+  /// Solutions for every column of f (reduced numbering), in one pass.
+  Eigen::MatrixXd solve(const Eigen::MatrixXd& f_free) const;
+
+  /// Number of non-zeros of the factor L (fill-in included).
+  double factor_nonzeros() const;
 
  private:
-  Eigen::SimplicialLDLT<Eigen::SparseMatrix<double>, Eigen::Lower> ldlt_;
+  struct Impl;
+  std::unique_ptr<Impl> impl_;
 };
 
 /// The text UnstableFrame carries for the given free directions, e.g. "the frame is

@@ -1,0 +1,104 @@
+#include "stepframe/analysis/element_releases.hpp"
+
+#include "stepframe/analysis/frame_model.hpp"
+
+#include <Eigen/Cholesky>
+#include <algorithm>
+#include <cmath>
+#include <Eigen/Eigenvalues>
+
+#include <vector>
+
+namespace stepframe::analysis {
+namespace {
+
+std::vector<int> released_dofs(const EndReleases& r) {
+  std::vector<int> out;
+  for (int e = 0; e < 2; ++e)
+    for (int d = 0; d < 6; ++d)
+      if (r[static_cast<std::size_t>(e)][static_cast<std::size_t>(d)]) out.push_back(6 * e + d);
+  return out;
+}
+
+Eigen::MatrixXd pick(const Matrix12d& k, const std::vector<int>& rows, const std::vector<int>& cols) {
+  Eigen::MatrixXd out(static_cast<Eigen::Index>(rows.size()), static_cast<Eigen::Index>(cols.size()));
+  for (std::size_t i = 0; i < rows.size(); ++i)
+    for (std::size_t j = 0; j < cols.size(); ++j)
+      out(static_cast<Eigen::Index>(i), static_cast<Eigen::Index>(j)) = k(rows[i], cols[j]);
+  return out;
+}
+
+std::vector<int> complement(const std::vector<int>& r) {
+  std::vector<int> c;
+  for (int i = 0; i < 12; ++i)
+    if (std::find(r.begin(), r.end(), i) == r.end()) c.push_back(i);
+  return c;
+}
+
+}  // namespace
+
+bool any_release(const EndReleases& releases) {
+  for (const auto& end : releases)
+    for (bool b : end)
+      if (b) return true;
+  return false;
+}
+
+std::optional<std::string> release_mechanism(const EndReleases& releases) {
+  const std::vector<int> r = released_dofs(releases);
+  if (r.empty()) return std::nullopt;
+  // A unit element (all properties 1, length 1) shares the singular pattern
+  // of every real one: k_rr is singular exactly when the released directions
+  // admit a strain-free motion of the element.
+  ElementProperties unit{1, 1, 1, 1, 1, 1, 1, 0, 0};
+  const Eigen::MatrixXd krr = pick(local_stiffness(unit), r, r);
+  Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> eig(krr);
+  const Eigen::VectorXd values = eig.eigenvalues();
+  if (values.minCoeff() > 1e-9 * std::max(1.0, values.maxCoeff())) return std::nullopt;
+  // Name the released directions taking part in the free motion.
+  const Eigen::VectorXd mode = eig.eigenvectors().col(0);
+  std::string out;
+  for (std::size_t i = 0; i < r.size(); ++i) {
+    if (std::abs(mode(static_cast<Eigen::Index>(i))) < 1e-6) continue;
+    if (!out.empty()) out += ", ";
+    out += std::string(dof_names[static_cast<std::size_t>(r[i] % 6)]) + (r[i] < 6 ? " at the start" : " at the end");
+  }
+  return out;
+}
+
+CondensedElement condense_releases(const Matrix12d& k, const Vector12d& fixed_end, const EndReleases& releases) {
+  CondensedElement out{k, fixed_end};
+  const std::vector<int> r = released_dofs(releases);
+  if (r.empty()) return out;
+  const std::vector<int> c = complement(r);
+  const Eigen::LDLT<Eigen::MatrixXd> krr(pick(k, r, r));
+  const Eigen::MatrixXd kcr = pick(k, c, r);
+  Eigen::VectorXd fr(static_cast<Eigen::Index>(r.size()));
+  for (std::size_t i = 0; i < r.size(); ++i) fr(static_cast<Eigen::Index>(i)) = fixed_end(r[i]);
+  const Eigen::MatrixXd kc = pick(k, c, c) - kcr * krr.solve(kcr.transpose());
+  const Eigen::VectorXd fc = -kcr * krr.solve(fr);
+  out.k.setZero();
+  out.fixed_end.setZero();
+  for (std::size_t i = 0; i < c.size(); ++i) {
+    out.fixed_end(c[i]) = fixed_end(c[i]) + fc(static_cast<Eigen::Index>(i));
+    for (std::size_t j = 0; j < c.size(); ++j)
+      out.k(c[i], c[j]) = kc(static_cast<Eigen::Index>(i), static_cast<Eigen::Index>(j));
+  }
+  return out;
+}
+
+Vector12d element_end_displacements(const Matrix12d& k, const Vector12d& fixed_end, const EndReleases& releases,
+                                    const Vector12d& node_displacements) {
+  Vector12d u = node_displacements;
+  const std::vector<int> r = released_dofs(releases);
+  if (r.empty()) return u;
+  const std::vector<int> c = complement(r);
+  Eigen::VectorXd uc(static_cast<Eigen::Index>(c.size())), fr(static_cast<Eigen::Index>(r.size()));
+  for (std::size_t i = 0; i < c.size(); ++i) uc(static_cast<Eigen::Index>(i)) = node_displacements(c[i]);
+  for (std::size_t i = 0; i < r.size(); ++i) fr(static_cast<Eigen::Index>(i)) = fixed_end(r[i]);
+  const Eigen::VectorXd ur = -pick(k, r, r).ldlt().solve(pick(k, r, c) * uc + fr);
+  for (std::size_t i = 0; i < r.size(); ++i) u(r[i]) = ur(static_cast<Eigen::Index>(i));
+  return u;
+}
+
+}  // namespace stepframe::analysis

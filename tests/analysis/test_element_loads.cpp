@@ -1,0 +1,79 @@
+// The element's load functions and stiffness agree with each other: the
+// stiffness is the inverse of the cantilever flexibility the load functions
+// integrate (Euler-Bernoulli and Timoshenko alike), and fixed-end actions
+// superpose (linear elasticity; common practice).
+
+#include "frame_fixtures.hpp"
+#include "stepframe/analysis/element_loads.hpp"
+#include "stepframe/analysis/element_releases.hpp"
+
+#include <catch2/catch.hpp>
+
+#include <Eigen/LU>
+
+using namespace stepframe::analysis;
+using V = Eigen::Vector3d;
+
+namespace {
+
+// Stiffness from the flexibility: with the start fixed, the end state
+// d_L = F f0; the end actions follow from equilibrium, so k = [ ... ] from unit end states.
+Matrix12d stiffness_from_flexibility(const ElementProperties& p) {
+  Eigen::Matrix<double, 6, 6> F;
+  for (int i = 0; i < 6; ++i) F.col(i) = element_state_at(p, Vector6d::Zero(), Vector6d::Unit(i), {}, p.length);
+  const Eigen::Matrix<double, 6, 6> Finv = F.inverse();
+  // Columns 6..11 of k: unit end displacements with the start fixed.
+  Matrix12d k = Matrix12d::Zero();
+  for (int j = 0; j < 6; ++j) {
+    const Vector6d f0 = Finv.col(j);
+    k.col(6 + j) = end_actions_from_start(p, f0, {});
+  }
+  return k;
+}
+
+}  // namespace
+
+TEST_CASE("the stiffness is the inverse of the integrated flexibility, with and without shear deformation",
+          "[analysis][element]") {
+  for (bool shear : {false, true}) {
+    INFO("shear deformation " << shear);
+    Section s = test::test_section();
+    s.Avz = 2.5e-3;
+    s.Avy = 1.5e-3;
+    const ElementProperties p = element_properties(s, test::test_steel(), 1.7, shear);
+    const Matrix12d k = local_stiffness(p);
+    const Matrix12d from_flex = stiffness_from_flexibility(p);
+    CHECK((k.rightCols<6>() - from_flex.rightCols<6>()).norm() <= 1e-9 * k.norm());
+  }
+}
+
+TEST_CASE("fixed-end actions superpose: a trapezoid is a uniform load plus a triangle", "[analysis][element]") {
+  const ElementProperties p = element_properties(test::test_section(), test::test_steel(), 5.0);
+  const V wa(0, 1e3, -2e3), wb(0, 4e3, -8e3);
+  const LocalLoads trapezoid{{false, 1.0, 4.0, wa, wb}};
+  const LocalLoads parts{{false, 1.0, 4.0, wa, wa}, {false, 1.0, 4.0, V::Zero(), wb - wa}};
+  CHECK((fixed_end_actions(p, trapezoid) - fixed_end_actions(p, parts)).norm() <=
+        1e-12 * fixed_end_actions(p, trapezoid).norm());
+  // The uniform whole-length load gives the closed-form actions of equivalent_nodal_loads.
+  const V q(1.5e3, -2e3, -3e3);
+  CHECK((fixed_end_actions(p, {uniform_local_load(p.length, q)}) + equivalent_nodal_loads(p.length, q)).norm() <=
+        1e-10 * q.norm() * p.length * p.length);
+}
+
+TEST_CASE("a condensed release leaves a zero end action and keeps equilibrium", "[analysis][element]") {
+  const ElementProperties p = element_properties(test::test_section(), test::test_steel(), 4.0);
+  const LocalLoads loads{{false, 0.5, 3.0, V(0, 0, -5e3), V(0, 0, -1e3)}, {true, 2.0, 2.0, V(0, 3e3, 0), V::Zero()}};
+  EndReleases releases{};
+  releases[1][ry] = releases[1][rz] = true;  // pinned end
+  const CondensedElement c = condense_releases(local_stiffness(p), fixed_end_actions(p, loads), releases);
+  CHECK(c.fixed_end(10) == Approx(0).margin(1e-9));
+  CHECK(c.fixed_end(11) == Approx(0).margin(1e-9));
+  // The end forces still balance the loads (the trapezoid and the point force).
+  const V total = load_total(loads);
+  const V forces = c.fixed_end.segment<3>(0) + c.fixed_end.segment<3>(6);
+  CHECK((forces + total).norm() <= 1e-9 * total.norm());
+  // Propped cantilever under the uniform part: the root moment equals w L^2 / 8 (Roark Table 8.1).
+  const LocalLoads uniform{uniform_local_load(p.length, V(0, 0, -6e3))};
+  const CondensedElement u = condense_releases(local_stiffness(p), fixed_end_actions(p, uniform), releases);
+  CHECK(std::abs(u.fixed_end(4)) == Approx(6e3 * 16.0 / 8).epsilon(1e-12));
+}
