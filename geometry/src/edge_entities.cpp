@@ -38,11 +38,12 @@ struct Candidate {
   }
 };
 
+bool is_curve_or_edge(const Handle(Standard_Transient) & entity) {
+  return entity->IsKind(STANDARD_TYPE(StepGeom_Curve)) || entity->IsKind(STANDARD_TYPE(StepShape_Edge));
+}
+
 void offer(std::unordered_map<const TopoDS_TShape*, Candidate>& best, const TopoDS_Shape& edge,
-           const Handle(Standard_Transient) & entity, std::size_t granularity) {
-  const Candidate offered{entity,
-                          entity->IsKind(STANDARD_TYPE(StepGeom_Curve)) || entity->IsKind(STANDARD_TYPE(StepShape_Edge)),
-                          granularity};
+           const Candidate& offered) {
   Candidate& slot = best[edge.TShape().get()];
   if (offered.better_than(slot)) slot = offered;
 }
@@ -69,7 +70,8 @@ void offer_wireframe_edges(std::unordered_map<const TopoDS_TShape*, Candidate>& 
   std::vector<TopoDS_Shape> occt_edges;
   for (TopExp_Explorer it(result, TopAbs_EDGE); it.More(); it.Next()) occt_edges.push_back(it.Current());
   if (occt_edges.size() != step_edges.size()) return;  // an edge failed to translate: keep the coarser map
-  for (std::size_t i = 0; i < occt_edges.size(); ++i) offer(best, occt_edges[i], step_edges[i], 1);
+  for (std::size_t i = 0; i < occt_edges.size(); ++i)
+    offer(best, occt_edges[i], Candidate{step_edges[i], is_curve_or_edge(step_edges[i]), 1});
 }
 
 }  // namespace
@@ -83,10 +85,19 @@ EdgeEntityMap map_edges_to_entities(const Handle(Transfer_TransientProcess) & pr
     if (entity.IsNull() || binder.IsNull()) continue;
     const TopoDS_Shape result = TransferBRep::ShapeResult(binder);
     if (result.IsNull()) continue;
-    TopTools_IndexedMapOfShape edges;
-    TopExp::MapShapes(result, TopAbs_EDGE, edges);
-    const auto count = static_cast<std::size_t>(edges.Extent());
-    for (Standard_Integer k = 1; k <= edges.Extent(); ++k) offer(best, edges(k), entity, count);
+    const bool fine = is_curve_or_edge(entity);
+    if (result.ShapeType() == TopAbs_EDGE || result.ShapeType() == TopAbs_VERTEX) {
+      // A curve or edge made into one edge; a point of a curve set bound on
+      // its own to the vertex made from it.
+      offer(best, result, Candidate{entity, fine, 1});
+      continue;
+    }
+    // A set, model or representation made into many edges: count them, then
+    // offer each (an edge met twice in a compound is offered twice, harmlessly).
+    std::size_t count = 0;
+    for (TopExp_Explorer it(result, TopAbs_EDGE); it.More(); it.Next()) ++count;
+    const Candidate offered{entity, fine, count};
+    for (TopExp_Explorer it(result, TopAbs_EDGE); it.More(); it.Next()) offer(best, it.Current(), offered);
     if (auto wireframe = Handle(StepShape_EdgeBasedWireframeModel)::DownCast(entity); !wireframe.IsNull())
       offer_wireframe_edges(best, wireframe, result);
   }

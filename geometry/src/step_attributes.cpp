@@ -5,11 +5,19 @@
 #include <Quantity_Color.hxx>
 #include <STEPConstruct_Styles.hxx>
 #include <StepData_StepModel.hxx>
+#include <StepGeom_CompositeCurve.hxx>
+#include <StepGeom_CompositeCurveSegment.hxx>
+#include <StepShape_HArray1OfConnectedEdgeSet.hxx>
+#include <StepShape_HArray1OfEdge.hxx>
 #include <StepRepr_Representation.hxx>
 #include <StepRepr_RepresentationItem.hxx>
 #include <StepShape_ConnectedEdgeSet.hxx>
 #include <StepShape_EdgeBasedWireframeModel.hxx>
 #include <StepShape_GeometricSet.hxx>
+#include <StepGeom_CartesianPoint.hxx>
+#include <StepGeom_Point.hxx>
+#include <StepShape_HArray1OfGeometricSetSelect.hxx>
+#include <StepShape_VertexPoint.hxx>
 #include <StepVisual_Colour.hxx>
 #include <StepVisual_HArray1OfLayeredItem.hxx>
 #include <StepVisual_LayeredItem.hxx>
@@ -30,6 +38,11 @@ namespace stepframe::geometry::detail {
 
 namespace {
 
+void add_layers(std::vector<std::string>& to, const std::vector<std::string>& from) {
+  for (const std::string& layer : from)
+    if (std::find(to.begin(), to.end(), layer) == to.end()) to.push_back(layer);
+}
+
 std::string text_of(const Handle(TCollection_HAsciiString) & text) {
   return text.IsNull() ? std::string() : std::string(text->ToCString());
 }
@@ -40,15 +53,6 @@ std::string own_name(const Handle(Standard_Transient) & entity) {
   if (auto representation = Handle(StepRepr_Representation)::DownCast(entity); !representation.IsNull())
     return text_of(representation->Name());
   return {};
-}
-
-// Entities that group curves or edges: climbing through these finds the
-// attributes a CAD program attached to a whole set rather than to each curve.
-bool is_container(const Handle(Standard_Transient) & entity) {
-  return entity->IsKind(STANDARD_TYPE(StepShape_GeometricSet)) ||
-         entity->IsKind(STANDARD_TYPE(StepShape_ConnectedEdgeSet)) ||
-         entity->IsKind(STANDARD_TYPE(StepShape_EdgeBasedWireframeModel)) ||
-         entity->IsKind(STANDARD_TYPE(StepRepr_Representation));
 }
 
 std::string hex_colour(const Quantity_Color& colour) {
@@ -65,8 +69,44 @@ StepAttributes::StepAttributes(const Handle(XSControl_WorkSession) & session)
     : session_(session), model_(Handle(StepData_StepModel)::DownCast(session->Model())) {
   if (model_.IsNull()) return;
   const STEPConstruct_Styles styles(session_);
+  std::vector<Handle(StepShape_GeometricSet)> sets;
   for (Standard_Integer i = 1; i <= model_->NbEntities(); ++i) {
     const Handle(Standard_Transient)& entity = model_->Value(i);
+    // Who lists whom: one pass instead of a graph query per edge.
+    auto adopt = [&](const Handle(Standard_Transient) & child) {
+      if (child.IsNull()) return;
+      auto& list = parents_[child.get()];
+      if (std::find(list.begin(), list.end(), entity) == list.end()) list.push_back(entity);
+    };
+    if (auto set = Handle(StepShape_GeometricSet)::DownCast(entity); !set.IsNull()) {
+      sets.push_back(set);
+      if (!set->Elements().IsNull())
+        for (Standard_Integer k = 1; k <= set->NbElements(); ++k) adopt(set->ElementsValue(k).Value());
+      continue;
+    }
+    if (auto edges = Handle(StepShape_ConnectedEdgeSet)::DownCast(entity); !edges.IsNull()) {
+      if (!edges->CesEdges().IsNull())
+        for (Standard_Integer k = edges->CesEdges()->Lower(); k <= edges->CesEdges()->Upper(); ++k)
+          adopt(edges->CesEdges()->Value(k));
+      continue;
+    }
+    if (auto wireframe = Handle(StepShape_EdgeBasedWireframeModel)::DownCast(entity); !wireframe.IsNull()) {
+      if (!wireframe->EbwmBoundary().IsNull())
+        for (Standard_Integer k = wireframe->EbwmBoundary()->Lower(); k <= wireframe->EbwmBoundary()->Upper(); ++k)
+          adopt(wireframe->EbwmBoundary()->Value(k));
+      continue;
+    }
+    if (auto representation = Handle(StepRepr_Representation)::DownCast(entity); !representation.IsNull()) {
+      if (!representation->Items().IsNull())
+        for (Standard_Integer k = 1; k <= representation->NbItems(); ++k) adopt(representation->ItemsValue(k));
+      continue;
+    }
+    if (auto composite = Handle(StepGeom_CompositeCurve)::DownCast(entity); !composite.IsNull()) {
+      if (!composite->Segments().IsNull())
+        for (Standard_Integer k = 1; k <= composite->NbSegments(); ++k)
+          if (!composite->SegmentsValue(k).IsNull()) adopt(composite->SegmentsValue(k)->ParentCurve());
+      continue;
+    }
 
     if (auto layer = Handle(StepVisual_PresentationLayerAssignment)::DownCast(entity); !layer.IsNull()) {
       const std::string name = text_of(layer->Name());
@@ -98,6 +138,16 @@ StepAttributes::StepAttributes(const Handle(XSControl_WorkSession) & session)
       }
     }
   }
+  // Points of a layered geometric set are on its layers.
+  for (const Handle(StepShape_GeometricSet)& set : sets) {
+    const auto layers = layers_.find(set.get());
+    if (layers == layers_.end() || set->Elements().IsNull()) continue;
+    for (Standard_Integer k = 1; k <= set->NbElements(); ++k) {
+      const Handle(Standard_Transient) element = set->ElementsValue(k).Value();
+      if (!element.IsNull() && element->IsKind(STANDARD_TYPE(StepGeom_CartesianPoint)))
+        add_layers(set_layers_of_point_[element.get()], layers->second);
+    }
+  }
 }
 
 std::string StepAttributes::entity_id(const Handle(Standard_Transient) & entity) const {
@@ -107,39 +157,62 @@ std::string StepAttributes::entity_id(const Handle(Standard_Transient) & entity)
   return label > 0 ? fmt::format("#{}", label) : std::string();
 }
 
-std::vector<Handle(Standard_Transient)> StepAttributes::lineage(const Handle(Standard_Transient) & entity) const {
-  std::vector<Handle(Standard_Transient)> chain{entity};
-  const Interface_Graph& graph = session_->Graph();
-  std::unordered_set<const Standard_Transient*> seen{entity.get()};
-  // Breadth first, so nearer containers come before farther ones. Containers
-  // nest only a few levels deep (curve -> set -> representation).
-  constexpr std::size_t max_entities = 64;
-  for (std::size_t next = 0; next < chain.size() && chain.size() < max_entities; ++next) {
-    for (Interface_EntityIterator it = graph.Sharings(chain[next]); it.More(); it.Next()) {
-      const Handle(Standard_Transient)& parent = it.Value();
-      if (parent.IsNull() || !is_container(parent) || !seen.insert(parent.get()).second) continue;
-      chain.push_back(parent);
-    }
+std::vector<Handle(Standard_Transient)> StepAttributes::containers_of(const Handle(Standard_Transient) & entity) const {
+  if (auto it = parents_.find(entity.get()); it != parents_.end()) return it->second;
+  return {};
+}
+
+const SourceInfo& StepAttributes::inherited_from(const Handle(Standard_Transient) & container) const {
+  if (auto it = inherited_.find(container.get()); it != inherited_.end()) return it->second;
+  // Mark the container first: a cycle in a broken file then ends here.
+  inherited_.emplace(container.get(), SourceInfo{});
+  SourceInfo info;
+  info.name = own_name(container);
+  if (auto it = colours_.find(container.get()); it != colours_.end()) info.colour = it->second;
+  if (auto it = layers_.find(container.get()); it != layers_.end()) info.layers = it->second;
+  // Containers nest only a few levels deep (curve -> set -> representation):
+  // nearer ones give name and colour first, every one its layers.
+  for (const Handle(Standard_Transient)& parent : containers_of(container)) {
+    const SourceInfo parent_info = inherited_from(parent);
+    if (info.name.empty()) info.name = parent_info.name;
+    if (info.colour.empty()) info.colour = parent_info.colour;
+    add_layers(info.layers, parent_info.layers);
   }
-  return chain;
+  return inherited_[container.get()] = std::move(info);
 }
 
 SourceInfo StepAttributes::attributes_of(const Handle(Standard_Transient) & entity) const {
   SourceInfo info;
   if (entity.IsNull()) return info;
   info.entity = entity_id(entity);
-  for (const Handle(Standard_Transient)& member : lineage(entity)) {
-    if (info.name.empty()) info.name = own_name(member);
-    if (info.colour.empty()) {
-      if (auto it = colours_.find(member.get()); it != colours_.end()) info.colour = it->second;
-    }
-    if (auto it = layers_.find(member.get()); it != layers_.end()) {
-      for (const std::string& layer : it->second) {
-        if (std::find(info.layers.begin(), info.layers.end(), layer) == info.layers.end())
-          info.layers.push_back(layer);
-      }
-    }
+  info.name = own_name(entity);
+  if (auto it = colours_.find(entity.get()); it != colours_.end()) info.colour = it->second;
+  if (auto it = layers_.find(entity.get()); it != layers_.end()) info.layers = it->second;
+  for (const Handle(Standard_Transient)& parent : containers_of(entity)) {
+    const SourceInfo& parent_info = inherited_from(parent);
+    if (info.name.empty()) info.name = parent_info.name;
+    if (info.colour.empty()) info.colour = parent_info.colour;
+    add_layers(info.layers, parent_info.layers);
   }
+  return info;
+}
+
+std::optional<SourceInfo> StepAttributes::point_attributes(const Handle(Standard_Transient) & point) const {
+  if (point.IsNull()) return std::nullopt;
+  // The point itself and, for a vertex, its cartesian point: their own names,
+  // their own layers, and the layers of geometric sets holding them.
+  Handle(Standard_Transient) own[2] = {point, nullptr};
+  if (auto vertex = Handle(StepShape_VertexPoint)::DownCast(point); !vertex.IsNull()) own[1] = vertex->VertexGeometry();
+  SourceInfo info;
+  for (const Handle(Standard_Transient)& entity : own) {
+    if (entity.IsNull()) continue;
+    if (info.name.empty()) info.name = own_name(entity);
+    if (auto it = layers_.find(entity.get()); it != layers_.end()) add_layers(info.layers, it->second);
+    if (auto it = set_layers_of_point_.find(entity.get()); it != set_layers_of_point_.end())
+      add_layers(info.layers, it->second);
+  }
+  if (info.name.empty() && info.layers.empty()) return std::nullopt;
+  info.entity = entity_id(point);
   return info;
 }
 

@@ -8,6 +8,7 @@
 #include <Standard_Handle.hxx>
 #include <Standard_Transient.hxx>
 
+#include <optional>
 #include <string>
 #include <unordered_map>
 #include <vector>
@@ -31,15 +32,28 @@ class StepAttributes {
   /// those assigned to the entity and to every container of it.
   SourceInfo attributes_of(const Handle(Standard_Transient) & entity) const;
 
+  /// Attributes of a point (CARTESIAN_POINT or VERTEX_POINT) when it carries a
+  /// name of its own or a layer (its own, its vertex's or point's, or a
+  /// container's); nullopt for an unlabelled point.
+  std::optional<SourceInfo> point_attributes(const Handle(Standard_Transient) & point) const;
+
  private:
-  /// The entity, then the geometric sets, edge sets, wireframe models and
-  /// representations that contain it, nearest first.
-  std::vector<Handle(Standard_Transient)> lineage(const Handle(Standard_Transient) & entity) const;
+  /// Name, colour and layers a container passes down to what it holds (its
+  /// own, then its containers'), worked out once per container.
+  const SourceInfo& inherited_from(const Handle(Standard_Transient) & container) const;
+  /// The containers that hold `entity` directly.
+  std::vector<Handle(Standard_Transient)> containers_of(const Handle(Standard_Transient) & entity) const;
 
   Handle(XSControl_WorkSession) session_;
   Handle(StepData_StepModel) model_;
   std::unordered_map<const Standard_Transient*, std::vector<std::string>> layers_;
   std::unordered_map<const Standard_Transient*, std::string> colours_;
+  /// Layers of the geometric sets that hold a point as one of their elements.
+  std::unordered_map<const Standard_Transient*, std::vector<std::string>> set_layers_of_point_;
+  mutable std::unordered_map<const Standard_Transient*, SourceInfo> inherited_;
+  /// Child -> the containers that list it (sets, edge sets, wireframe models,
+  /// representations, composite curves), read once from the model.
+  std::unordered_map<const Standard_Transient*, std::vector<Handle(Standard_Transient)>> parents_;
 };
 
 }  // namespace stepframe::geometry::detail

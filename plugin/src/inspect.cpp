@@ -5,6 +5,8 @@
 
 #include <fmt/format.h>
 
+#include <algorithm>
+
 namespace stepframe {
 namespace {
 
@@ -55,6 +57,10 @@ nlohmann::json inspection_json(const Inspection& in) {
                        {"length", geometry::path_length(wf, m)},
                        {"source", json_shapes::source(m.source)}});
   }
+  auto& points = j["points"] = nlohmann::json::array();
+  for (const auto& label : wf.labels)
+    points.push_back({{"node", label.node}, {"xyz", json_shapes::vec(wf.nodes[label.node])},
+                      {"source", json_shapes::source(label.source)}});
   auto& diagnostics = j["diagnostics"] = nlohmann::json::array();
   for (const auto& d : wf.diagnostics) diagnostics.push_back(json_shapes::diagnostic(d));
   return j;
@@ -73,12 +79,29 @@ std::string inspection_text(const Inspection& in) {
     out += fmt::format("\n  {:<30} members\n", kind);
     for (const auto& [value, count] : values) out += fmt::format("  {:<30} {:>7}\n", value, count);
   }
-  out += fmt::format("\n  diagnostics   {}\n", wf.diagnostics.empty() ? "none" : "");
+  if (!wf.labels.empty()) {
+    out += fmt::format("\n  {:<24} {:<20} {:>6}  {:<28} {}\n", "named point", "layers", "node", "at (m)", "entity");
+    for (const auto& label : wf.labels) {
+      const auto& p = wf.nodes[label.node];
+      out += fmt::format("  {:<24} {:<20} {:>6}  {:<28} {}\n", label.source.name.empty() ? "-" : label.source.name,
+                         label.source.layers.empty() ? "-" : fmt::format("{}", fmt::join(label.source.layers, ", ")),
+                         label.node, fmt::format("({:.3f}, {:.3f}, {:.3f})", p[0], p[1], p[2]), label.source.entity);
+    }
+  }
+  std::size_t counts[3] = {0, 0, 0};
+  for (const auto& d : wf.diagnostics) ++counts[static_cast<int>(d.severity)];
+  out += fmt::format("\n  diagnostics   {} errors, {} warnings, {} notes\n", counts[2], counts[1], counts[0]);
+  if (wf.diagnostics.empty()) return out;
+  out += fmt::format("  {:<8} {:<22} {:<18} {:<28} {}\n", "severity", "code", "entities", "at (m)", "message");
   for (const auto& d : wf.diagnostics) {
-    out += fmt::format("  {:<8} {:<22} {}", geometry::to_string(d.severity), d.code, d.message);
-    if (!d.entities.empty()) out += fmt::format(" [{}]", fmt::join(d.entities, " "));
-    if (d.at) out += fmt::format(" at ({:.4f}, {:.4f}, {:.4f}) m", (*d.at)[0], (*d.at)[1], (*d.at)[2]);
-    out += "\n";
+    constexpr std::size_t shown = 3;
+    std::vector<std::string> ids(d.entities.begin(),
+                                 d.entities.begin() + static_cast<std::ptrdiff_t>(std::min(shown, d.entities.size())));
+    std::string entities = ids.empty() ? "-" : fmt::format("{}", fmt::join(ids, " "));
+    if (d.entities.size() > shown) entities += " ...";
+    const std::string at = d.at ? fmt::format("({:.3f}, {:.3f}, {:.3f})", (*d.at)[0], (*d.at)[1], (*d.at)[2]) : "-";
+    out += fmt::format("  {:<8} {:<22} {:<18} {:<28} {}\n", geometry::to_string(d.severity), d.code, entities, at,
+                       d.message);
   }
   return out;
 }

@@ -12,7 +12,8 @@ namespace stepframe::json_shapes {
 inline nlohmann::json vec(const Eigen::Vector3d& v) { return {v[0], v[1], v[2]}; }
 
 inline nlohmann::json source(const geometry::SourceInfo& s) {
-  return {{"entity", s.entity}, {"name", s.name}, {"layers", s.layers}, {"product", s.product}, {"colour", s.colour}};
+  return {{"entity", s.entity},   {"name", s.name},     {"layers", s.layers},
+          {"product", s.product}, {"colour", s.colour}, {"assembly_path", s.assembly_path}};
 }
 
 inline nlohmann::json diagnostic(const geometry::Diagnostic& d) {

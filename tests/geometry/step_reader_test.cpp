@@ -6,6 +6,9 @@
 
 #include <catch2/catch.hpp>
 
+#include <cmath>
+#include <numbers>
+
 #include <algorithm>
 #include <fstream>
 #include <string>
@@ -38,7 +41,7 @@ TEST_CASE("a hand-written geometric curve set in millimetres", "[step][reader]")
   const sg::StepModel model = sg::read_step(data / "gantry_curve_set_mm.stp");
   CHECK(model.length_unit == "mm");
   CHECK(model.metres_per_unit == Approx(1e-3).epsilon(1e-12));
-  REQUIRE(model.edges.size() == 4);
+  REQUIRE(model.edges.size() == 5);
 
   struct Expected {
     const char* entity;
@@ -69,12 +72,23 @@ TEST_CASE("a hand-written geometric curve set in millimetres", "[step][reader]")
     CHECK(edge.source.product == "GANTRY-7");
   }
 
-  // #90 is trimmed twice at the same point; #92 is a LINE with no trimming;
-  // #95 is a quarter circle.
-  CHECK(model.diagnostics.size() == 3);
+  // #95 is a quarter circle of radius 500 mm about (2000, 0, 3000) in the x-z
+  // plane: axis y and ref_direction x give the local y direction y x x = -z
+  // (ISO 10303-42, axis2_placement_3d), so the circle (ISO 10303-42, circle:
+  // C + R (cos t x + sin t y)) runs from centre + 500 x down to centre - 500 z.
+  const sg::WireEdge& arch = model.edges[4];
+  CHECK(arch.source.entity == "#95");
+  CHECK(arch.source.name == "arch");
+  REQUIRE(arch.curved());
+  CHECK(close(arch.start, {2.5, 0, 3}));
+  CHECK(close(arch.end, {2, 0, 2.5}));
+  CHECK(arch.curve.back().turn == Approx(std::numbers::pi / 2).epsilon(1e-9));
+  for (const sg::CurveSample& s : arch.curve) CHECK((s.point - Eigen::Vector3d(2, 0, 3)).norm() == Approx(0.5));
+
+  // #90 is trimmed twice at the same point; #92 is a LINE with no trimming.
+  CHECK(model.diagnostics.size() == 2);
   CHECK(codes_naming(model, "#90") == std::vector<std::string>{"zero-length-edge"});
   CHECK(codes_naming(model, "#92") == std::vector<std::string>{"unbounded-curve-skipped"});
-  CHECK(codes_naming(model, "#95") == std::vector<std::string>{"curved-edge-skipped"});
   for (const sg::Diagnostic& d : model.diagnostics) CHECK(d.severity == sg::Severity::warning);
 }
 
@@ -141,11 +155,11 @@ TEST_CASE("read_step refuses unusable files with a message naming the file", "[s
     std::ofstream{empty};
     CHECK_THROWS_WITH(sg::read_step(empty), Catch::Contains(empty.string()));
   }
-  SECTION("a wireframe with no straight line") {
-    const auto arc = data / "arc_only_mm.stp";
-    CHECK_THROWS_AS(sg::read_step(arc), sg::StepReadError);
-    CHECK_THROWS_WITH(sg::read_step(arc), Catch::Contains(arc.string()) &&
-                                              Catch::Contains("no usable straight edges") &&
-                                              Catch::Contains("1 curved"));
+  SECTION("a model with a surface and no curve at all") {
+    const auto plate = data / "plate_only_mm.stp";
+    CHECK_THROWS_AS(sg::read_step(plate), sg::StepReadError);
+    CHECK_THROWS_WITH(sg::read_step(plate), Catch::Contains(plate.string()) &&
+                                                Catch::Contains("no usable edges") &&
+                                                Catch::Contains("1 solid or surface bodies"));
   }
 }

@@ -14,7 +14,7 @@ namespace sg = stepframe::geometry;
 namespace {
 
 sg::WireEdge edge(Eigen::Vector3d a, Eigen::Vector3d b, std::string entity) {
-  sg::WireEdge e{a, b, {}};
+  sg::WireEdge e{a, b, {}, {}};
   e.source.entity = std::move(entity);
   return e;
 }
@@ -49,7 +49,12 @@ TEST_CASE("end points closer than the tolerance share a node, farther ones do no
     CHECK(frame.members[0].nodes == std::vector<std::size_t>{0, 1});
     CHECK(frame.members[1].nodes == std::vector<std::size_t>{1, 2});
     CHECK(frame.nodes[1].isApprox(Eigen::Vector3d(1, 0, 0)));
-    CHECK(frame.diagnostics.empty());
+    // The only finding is the note that #2's start was moved by 0.4 tolerance.
+    REQUIRE(frame.diagnostics.size() == 1);
+    CHECK(frame.diagnostics[0].code == "endpoints-merged");
+    CHECK(frame.diagnostics[0].severity == sg::Severity::info);
+    CHECK(frame.diagnostics[0].entities == std::vector<std::string>{"#2"});
+    CHECK_THAT(frame.diagnostics[0].message, Catch::Contains("0.004 m"));
   }
   SECTION("a gap of 1.5 tolerance stays open") {
     const auto frame = sg::build_wireframe(
@@ -83,6 +88,8 @@ TEST_CASE("an edge whose ends merge into one node is dropped and reported", "[wi
   REQUIRE(frame.members.size() == 2);
   CHECK(frame.members[0].source.entity == "#10");
   CHECK(frame.members[1].source.entity == "#12");
+  // The dropped edge's node is not left behind: 3 nodes for two members.
+  CHECK(frame.nodes.size() == 3);
   REQUIRE(frame.diagnostics.size() == 1);
   const sg::Diagnostic& d = frame.diagnostics.front();
   CHECK(d.code == "zero-length-edge");
@@ -108,6 +115,7 @@ TEST_CASE("members on the same pair of nodes are reported as duplicates and kept
 TEST_CASE("the reader's diagnostics come first, then the merge's own", "[wireframe]") {
   sg::StepModel model = model_of({edge({0, 0, 0}, {1e-3, 0, 0}, "#5")});
   model.diagnostics.push_back({sg::Severity::warning, "curved-edge-skipped", "from the reader", {"#4"}, {}});
+  model.edges.push_back(edge({0, 0, 0}, {1, 0, 0}, "#6"));
   const auto frame = sg::build_wireframe(model, tol);
   REQUIRE(frame.diagnostics.size() == 2);
   CHECK(frame.diagnostics[0].code == "curved-edge-skipped");
@@ -144,7 +152,10 @@ TEST_CASE("a lattice of several thousand jittered edges merges to its grid nodes
   const auto frame = sg::build_wireframe(model_of(edges), tol);
   CHECK(frame.nodes.size() == 2000);
   CHECK(frame.members.size() == 5400);
-  CHECK(frame.diagnostics.empty());
+  // Every end point was moved by the jitter: one note, nothing else (no
+  // junctions, gaps, overlaps or separate parts in a jittered lattice).
+  REQUIRE(frame.diagnostics.size() == 1);
+  CHECK(frame.diagnostics[0].code == "endpoints-merged");
   // Every member joins grid neighbours 1 m apart (to within the jitter).
   for (const auto& m : frame.members) {
     const double length = (frame.nodes[m.nodes[1]] - frame.nodes[m.nodes[0]]).norm();

@@ -14,6 +14,10 @@ struct SourceInfo {
   std::vector<std::string> layers;  ///< presentation layer names
   std::string product;              ///< product (part) name
   std::string colour;               ///< "#rrggbb" when the file styles the curve, else empty
+  /// Where the part sits in the assembly: the top product, then each placed
+  /// instance down to the part, joined by " / " (e.g. "PLANT / bay 2 / brace 1").
+  /// Empty for a part that is not inside an assembly.
+  std::string assembly_path;
 };
 
 }  // namespace stepframe::geometry

@@ -1,0 +1,119 @@
+// Supports and node loads placed by the named or layered points of the CAD
+// file (`where: {point_name: ...}` / `{point_layer: ...}`), and the
+// `curve_max_turn` key, on the hand-written portal_edges_ft.stp: columns
+// 15 ft high at x = 0 and 20 ft (vertices FOOT-W and FOOT-E), knees on layer KNEES.
+
+#include "stepframe/errors.hpp"
+#include "stepframe/geometry/step_reader.hpp"
+#include "stepframe/geometry/wireframe.hpp"
+#include "stepframe/model_builder.hpp"
+#include "stepframe/project_reader.hpp"
+#include "stepframe/run.hpp"
+#include "test_helpers.hpp"
+
+#include <catch2/catch.hpp>
+
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+#include <string>
+
+using namespace stepframe;
+using Catch::Matchers::Contains;
+
+namespace {
+
+const std::filesystem::path data = STEPFRAME_TEST_DATA;
+
+std::string portal_project(const std::string& supports_where, const std::string& load_where) {
+  return "model: " + (data / "portal_edges_ft.stp").string() + "\n"
+         "units: {length: m, force: kN}\n"
+         "rules:\n  - where: {}\n    section: IPE300\n    material: S355\n"
+         "supports:\n  - where: " + supports_where + "\n    fix: fixed\n"
+         "cases:\n  - name: H\n    node_loads:\n      - where: " + load_where + "\n        force: [10, 0, -5]\n";
+}
+
+struct Built {
+  Project project;
+  geometry::Wireframe wireframe;
+  BuiltModel built;
+};
+
+Built build(const std::string& yaml) {
+  Built b;
+  b.project = read_project_text(yaml, data, "portal.yaml");
+  const auto step = geometry::read_step(b.project.model);
+  geometry::WireframeOptions options;
+  options.merge_tolerance = b.project.merge_tolerance;
+  options.curve_max_turn = b.project.curve_max_turn;
+  b.wireframe = geometry::build_wireframe(step, options);
+  b.built = build_frame_model(b.project, b.wireframe);
+  return b;
+}
+
+std::size_t node_at(const geometry::Wireframe& frame, const Eigen::Vector3d& p) {
+  for (std::size_t i = 0; i < frame.nodes.size(); ++i)
+    if ((frame.nodes[i] - p).norm() < 1e-9) return i;
+  FAIL("no node at " << p.transpose());
+  return 0;
+}
+
+}  // namespace
+
+TEST_CASE("supports and node loads select the nodes named points sit on", "[points]") {
+  const double ft = 0.3048;  // international yard and pound agreement, 1959
+  const Built b = build(portal_project("{point_name: 'FOOT-.*'}", "{point_layer: knees}"));
+  const auto& supports = b.built.model.supports;
+  REQUIRE(supports.size() == 2);
+  std::vector<std::size_t> supported{supports[0].node, supports[1].node};
+  std::sort(supported.begin(), supported.end());
+  std::vector<std::size_t> feet{node_at(b.wireframe, {0, 0, 0}), node_at(b.wireframe, Eigen::Vector3d(20, 0, 0) * ft)};
+  std::sort(feet.begin(), feet.end());
+  CHECK(supported == feet);
+  // The layer pattern matches case-insensitively: both knees get the load.
+  REQUIRE(b.built.model.cases.size() == 1);
+  const auto& loads = b.built.model.cases[0].node_loads;
+  REQUIRE(loads.size() == 2);
+  std::vector<std::size_t> loaded{loads[0].node, loads[1].node};
+  std::sort(loaded.begin(), loaded.end());
+  std::vector<std::size_t> knees{node_at(b.wireframe, Eigen::Vector3d(0, 0, 15) * ft),
+                                 node_at(b.wireframe, Eigen::Vector3d(20, 0, 15) * ft)};
+  std::sort(knees.begin(), knees.end());
+  CHECK(loaded == knees);
+  CHECK(loads[0].force.isApprox(Eigen::Vector3d(10e3, 0, -5e3)));
+}
+
+TEST_CASE("both point patterns must match when both are given", "[points]") {
+  // FOOT-W has a name and no layer, so the pair matches nothing.
+  CHECK_THROWS_WITH(build(portal_project("{point_name: 'FOOT-W', point_layer: '.*'}", "{point_name: FOOT-E}")),
+                    Contains("point_name 'FOOT-W' point_layer '.*'"));
+  // A knee has a layer and no name: '' matches the empty name.
+  const Built b = build(portal_project("{point_name: 'FOOT-.*'}", "{point_name: '', point_layer: KNEES}"));
+  CHECK(b.built.model.cases[0].node_loads.size() == 2);
+}
+
+TEST_CASE("a point selector that matches nothing names what the model has", "[points][errors]") {
+  CHECK_THROWS_AS(build(portal_project("{point_name: COLUMN-BASE}", "{point_name: FOOT-E}")), InputError);
+  CHECK_THROWS_WITH(build(portal_project("{point_name: COLUMN-BASE}", "{point_name: FOOT-E}")),
+                    Contains("portal.yaml") && Contains("supports[0].where") && Contains("COLUMN-BASE") &&
+                        Contains("name 'FOOT-W'") && Contains("layer 'KNEES'"));
+}
+
+TEST_CASE("point selectors and curve_max_turn are checked when the project is read", "[points][errors]") {
+  const std::string base = "model: frame.stp\ncases: [{name: G, self_weight: true}]\n";
+  SECTION("a point name beside coordinates") {
+    CHECK_THROWS_WITH(read_project_text(base + "supports: [{where: {point_name: A, z: 0}, fix: fixed}]\n", data, "p.yaml"),
+                      Contains("p.yaml:3") && Contains("not both"));
+  }
+  SECTION("a pattern that is not a regular expression") {
+    CHECK_THROWS_WITH(read_project_text(base + "supports: [{where: {point_layer: '(('}, fix: fixed}]\n", data, "p.yaml"),
+                      Contains("supports[0].where.point_layer") && Contains("regular expression"));
+  }
+  SECTION("curve_max_turn in degrees") {
+    const Project p = read_project_text(base + "curve_max_turn: 2.5\n", data, "p.yaml");
+    CHECK(p.curve_max_turn == Approx(2.5 * std::numbers::pi / 180));
+    CHECK(read_project_text(base, data, "p.yaml").curve_max_turn == Approx(5 * std::numbers::pi / 180));
+    CHECK_THROWS_WITH(read_project_text(base + "curve_max_turn: 0\n", data, "p.yaml"),
+                      Contains("p.yaml:3") && Contains("curve_max_turn") && Contains("degrees"));
+  }
+}
