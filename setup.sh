@@ -11,6 +11,7 @@ PACKAGES=(
   libocct-ocaf-dev libocct-data-exchange-dev
   libvtk9-dev libeigen3-dev libsuitesparse-dev libspectra-dev
   libspdlog-dev libyaml-cpp-dev nlohmann-json3-dev libcli11-dev catch2
+  python3 python3-dev pybind11-dev
 )
 BUILD_DIR=${BUILD_DIR:-build}
 JOBS=${JOBS:-2}

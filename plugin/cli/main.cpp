@@ -1,5 +1,8 @@
 // The stepframe command line: data on stdout, logs on stderr.
 
+#include "init_command.hpp"
+#include "progress_display.hpp"
+#include "sections_command.hpp"
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/inspect.hpp"
 #include "stepframe/run.hpp"
@@ -15,10 +18,12 @@ namespace {
 
 constexpr int internal_error = 4;
 
-int run_command(const std::filesystem::path& project, const std::filesystem::path& out, bool json) {
-  const auto outcome = stepframe::run_project(project, out, [](std::string_view stage, double fraction) {
-    if (fraction == 0.0) spdlog::info("{} ...", stage);
-  });
+int run_command(const std::filesystem::path& project, const std::filesystem::path& out, bool json, bool show_progress) {
+  stepframe::cli::ProgressDisplay display(show_progress);
+  stepframe::RunControl control;
+  control.progress = display.callback();
+  const auto outcome = stepframe::run_project(project, out, control);
+  display.clear();
   const int status = static_cast<int>(outcome.status);
   if (!outcome.analysis) {
     spdlog::error("{}", outcome.message);
@@ -55,12 +60,15 @@ int inspect_command(const std::filesystem::path& model, double tolerance_mm, boo
 
 int main(int argc, char** argv) {
   auto logger = spdlog::stderr_color_mt("stepframe");
-  logger->set_pattern("%^%l%$: %v");
+  // On a terminal each log line first erases the progress line it may interrupt.
+  const bool terminal = stepframe::cli::stderr_is_terminal();
+  logger->set_pattern(terminal ? "\r\033[K%^%l%$: %v" : "%^%l%$: %v");
   spdlog::set_default_logger(logger);
 
   CLI::App app{"stepframe: analyse steel frames drawn as STEP wireframes.\n" + std::string(stepframe::caution)};
   app.set_version_flag("--version", std::string("stepframe ") + STEPFRAME_VERSION);
   app.require_subcommand(1);
+  app.fallthrough();  // -v / -q may follow the subcommand too
   bool verbose = false, quiet = false;
   app.add_flag("-v,--verbose", verbose, "Log details (debug level)");
   app.add_flag("-q,--quiet", quiet, "Log only warnings and errors");
@@ -71,6 +79,8 @@ int main(int argc, char** argv) {
   run->add_option("PROJECT", project, "Project file (YAML)")->required()->check(CLI::ExistingFile);
   run->add_option("--out", out, "Output folder (default: <project>-results beside the project file)");
   run->add_flag("--json", run_json, "Print the run summary as JSON on stdout");
+  bool no_progress = false;
+  run->add_flag("--no-progress", no_progress, "No progress line (it is shown only when stderr is a terminal anyway)");
 
   auto* inspect = app.add_subcommand("inspect", "Show what a STEP file holds: unit, extent, attributes, diagnostics");
   std::filesystem::path model;
@@ -79,6 +89,19 @@ int main(int argc, char** argv) {
   inspect->add_option("MODEL", model, "STEP file")->required();
   inspect->add_option("--tolerance", tolerance_mm, "Merge tolerance for end points, in mm")->capture_default_str();
   inspect->add_flag("--json", inspect_json, "Print JSON (results.json shapes) instead of tables");
+
+  auto* init = app.add_subcommand("init", "Write a starter project file for a STEP file: its layers, parts and names "
+                                          "as rule stubs, its lowest nodes as supports");
+  std::filesystem::path init_model, init_output;
+  bool init_force = false;
+  double init_tolerance_mm = 1.0;
+  init->add_option("MODEL", init_model, "STEP file")->required();
+  init->add_option("-o,--output", init_output, "Project file to write (default: MODEL with .yaml, beside it)");
+  init->add_flag("--force", init_force, "Overwrite the project file if it exists");
+  init->add_option("--tolerance", init_tolerance_mm, "Merge tolerance for end points, in mm")->capture_default_str();
+
+  stepframe::cli::SectionsOptions sections_options;
+  auto* sections = stepframe::cli::add_sections_command(app, sections_options);
 
   try {
     app.parse(argc, argv);
@@ -89,7 +112,9 @@ int main(int argc, char** argv) {
   spdlog::set_level(quiet ? spdlog::level::warn : verbose ? spdlog::level::debug : spdlog::level::info);
 
   try {
-    if (*run) return run_command(project, out, run_json);
+    if (*run) return run_command(project, out, run_json, terminal && !quiet && !no_progress);
+    if (*sections) return stepframe::cli::sections_command(sections_options);
+    if (*init) return stepframe::cli::init_command(init_model, init_output, init_force, init_tolerance_mm);
     return inspect_command(model, tolerance_mm, inspect_json);
   } catch (const std::exception& e) {
     spdlog::critical("internal error: {} (please report it with the input files)", e.what());

@@ -1,28 +1,44 @@
 #include "stepframe/analysis/solve.hpp"
 #include "stepframe/geometry/step_reader.hpp"
+#include "stepframe/model_source.hpp"
 #include "stepframe/run.hpp"
 
 #include <spdlog/spdlog.h>
 
 namespace stepframe {
 
-RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir,
-                       const ProgressCallback& progress) {
+RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::filesystem::path& out_dir,
+                       const RunControl& control, const std::string& context) {
+  const ScopedLogSink log_route(control.log_sink, control.log_level);
   RunOutcome outcome;
   try {
-    outcome.analysis = analyse_project(project_file, progress);
-    outcome.files = write_outputs(*outcome.analysis, out_dir.empty() ? default_out_dir(project_file) : out_dir);
+    outcome.analysis = analyse();
+    if (!out_dir.empty()) {
+      control.report("output", 0);
+      outcome.files = write_outputs(*outcome.analysis, out_dir);
+      if (control.progress) control.progress("output", 1);
+    }
     outcome.status = outcome.analysis->status();
+  } catch (const Cancelled& e) {
+    outcome = {ExitStatus::cancelled, e.what(), std::nullopt, {}};
   } catch (const InputError& e) {
     outcome = {ExitStatus::bad_input, e.what(), std::nullopt, {}};
   } catch (const geometry::StepReadError& e) {
     outcome = {ExitStatus::bad_input, e.what(), std::nullopt, {}};
+  } catch (const SourceNotAvailable& e) {
+    outcome = {ExitStatus::bad_input, e.what(), std::nullopt, {}};
   } catch (const analysis::UnstableFrame& e) {
-    outcome = {ExitStatus::unstable, project_file.string() + ": " + e.what(), std::nullopt, {}};
+    outcome = {ExitStatus::unstable, context + ": " + e.what(), std::nullopt, {}};
   } catch (const std::invalid_argument& e) {
-    outcome = {ExitStatus::bad_input, project_file.string() + ": " + e.what(), std::nullopt, {}};
+    outcome = {ExitStatus::bad_input, context + ": " + e.what(), std::nullopt, {}};
   }
   return outcome;
+}
+
+RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir,
+                       const RunControl& control) {
+  return run_guarded([&] { return analyse_project(project_file, control); },
+                     out_dir.empty() ? default_out_dir(project_file) : out_dir, control, project_file.string());
 }
 
 }  // namespace stepframe

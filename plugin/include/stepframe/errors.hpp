@@ -12,6 +12,7 @@ enum class ExitStatus : int {
   check_failed = 1,  ///< the analysis ran and at least one check fails
   bad_input = 2,     ///< the project file, the STEP file or the model is unusable
   unstable = 3,      ///< the frame is a mechanism
+  cancelled = 5,     ///< the caller cancelled the run (library and C ABI only; 4 is the CLI's internal error)
 };
 
 /// Input that cannot be used; what() names the file, the line or STEP entity,

@@ -7,6 +7,7 @@
 #include "stepframe/geometry/wireframe.hpp"
 #include "stepframe/model_builder.hpp"
 #include "stepframe/project.hpp"
+#include "stepframe/run_control.hpp"
 
 #include <nlohmann/json.hpp>
 
@@ -23,9 +24,6 @@ namespace stepframe {
 inline constexpr std::string_view caution =
     "Screening aid only: a competent engineer must review these results; local codes and licensed practice govern.";
 
-/// Called as work goes on: a stage name and the fraction of that stage done.
-using ProgressCallback = std::function<void(std::string_view stage, double fraction)>;
-
 /// Everything a run computes, before anything is written.
 struct Analysis {
   Project project;
@@ -40,8 +38,12 @@ struct Analysis {
 
 /// Reads the project and its STEP file, builds the model, solves and checks.
 /// Throws InputError (bad input), geometry::StepReadError (unreadable STEP),
-/// analysis::UnstableFrame (mechanism).
-Analysis analyse_project(const std::filesystem::path& project_file, const ProgressCallback& progress = {});
+/// analysis::UnstableFrame (mechanism), Cancelled (the control asked to stop).
+Analysis analyse_project(const std::filesystem::path& project_file, const RunControl& control = {});
+
+/// The same for a project already in memory whose model is already read
+/// (from any source): builds the model, solves and checks.
+Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control = {});
 
 /// The results.json document (schema stepframe-results/1; README "results.json").
 nlohmann::json results_json(const Analysis& analysis);
@@ -67,7 +69,14 @@ struct RunOutcome {
 /// status and message (nothing is written unless the analysis completes).
 /// `out_dir` empty means default_out_dir(project_file).
 RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir = {},
-                       const ProgressCallback& progress = {});
+                       const RunControl& control = {});
+
+/// Runs `analyse`, writes the outputs under `out_dir` unless it is empty, and
+/// maps every failure to its exit status and message (`context` names the
+/// input in messages that do not already). Routes the log to control.log_sink
+/// for the duration. run_project and the embedding API share it.
+RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::filesystem::path& out_dir,
+                       const RunControl& control, const std::string& context);
 
 /// A short human summary: status, governing member and check, per-result extremes.
 std::string summary_text(const Analysis& analysis);

@@ -1,0 +1,73 @@
+#pragma once
+// How a caller watches and steers a run: progress reports, cancellation and
+// where the log messages go.
+
+#include <spdlog/common.h>
+#include <spdlog/logger.h>
+
+#include <atomic>
+#include <functional>
+#include <memory>
+#include <stdexcept>
+#include <string>
+#include <string_view>
+
+namespace stepframe {
+
+/// Called as work goes on: a stage name ("project", "geometry", "model",
+/// "solve", "checks", "output") and the fraction of that stage done, in [0, 1].
+/// Each stage reports 0 when it starts; most report 1 when they end.
+using ProgressCallback = std::function<void(std::string_view stage, double fraction)>;
+
+/// Asked between stages and inside the solver's loops; returning true stops
+/// the run with Cancelled. It may be called from the thread running the
+/// analysis only, so it must be cheap and must not block.
+using CancelCallback = std::function<bool()>;
+
+/// Thrown when a caller cancels a run. Nothing is written after it.
+class Cancelled : public std::runtime_error {
+ public:
+  Cancelled() : std::runtime_error("the run was cancelled by the caller") {}
+};
+
+/// Everything a caller can hook into a run. All members are optional.
+struct RunControl {
+  ProgressCallback progress;
+  CancelCallback cancel;
+  /// A flag another thread may set to stop the run (checked like `cancel`).
+  /// Not owned: it must outlive the run.
+  const std::atomic<bool>* cancel_flag = nullptr;
+  /// Receives the run's log messages instead of the process default logger.
+  spdlog::sink_ptr log_sink;
+  spdlog::level::level_enum log_level = spdlog::level::info;
+
+  /// Throws Cancelled when either the callback or the flag asks for it.
+  void throw_if_cancelled() const {
+    if ((cancel_flag && cancel_flag->load(std::memory_order_relaxed)) || (cancel && cancel()))
+      throw Cancelled();
+  }
+  /// Reports progress (if anyone listens), then checks for cancellation.
+  void report(std::string_view stage, double fraction) const {
+    if (progress) progress(stage, fraction);
+    throw_if_cancelled();
+  }
+};
+
+/// While alive, routes spdlog's default logger to `sink` (at `level`); the
+/// previous default logger is restored on destruction. With a null sink it
+/// does nothing. The library logs through the default logger, so a process
+/// that runs several analyses at once on different threads must give them
+/// the same sink (or none): the default logger is one per process.
+class ScopedLogSink {
+ public:
+  ScopedLogSink(spdlog::sink_ptr sink, spdlog::level::level_enum level);
+  ~ScopedLogSink();
+  ScopedLogSink(const ScopedLogSink&) = delete;
+  ScopedLogSink& operator=(const ScopedLogSink&) = delete;
+
+ private:
+  std::shared_ptr<spdlog::logger> previous_;
+  bool active_ = false;
+};
+
+}  // namespace stepframe

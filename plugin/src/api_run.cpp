@@ -1,0 +1,88 @@
+#include "stepframe/api.hpp"
+#include "stepframe/project_reader.hpp"
+
+#include <spdlog/spdlog.h>
+
+#include <stdexcept>
+
+#ifndef STEPFRAME_VERSION
+#error "STEPFRAME_VERSION must be defined by the build"
+#endif
+
+namespace stepframe {
+namespace {
+
+nlohmann::json error_document(const RunOutcome& outcome) {
+  return {{"schema", "stepframe-results/1"},
+          {"status", outcome.status == ExitStatus::cancelled ? "cancelled" : "error"},
+          {"exit_status", static_cast<int>(outcome.status)},
+          {"message", outcome.message}};
+}
+
+}  // namespace
+
+std::string_view library_version() { return STEPFRAME_VERSION; }
+
+Results::Results(RunOutcome outcome) : outcome_(std::move(outcome)) {
+  json_ = outcome_.analysis ? results_json(*outcome_.analysis) : error_document(outcome_);
+}
+
+const Analysis& Results::analysis() const {
+  if (!outcome_.analysis) throw std::logic_error("stepframe::Results::analysis(): the run did not analyse: " + outcome_.message);
+  return *outcome_.analysis;
+}
+
+std::string Results::summary() const {
+  return outcome_.analysis ? summary_text(*outcome_.analysis) : outcome_.message + "\n";
+}
+
+Results run_file(const std::filesystem::path& project_file, const RunOptions& options) {
+  return Results(run_guarded([&] { return analyse_project(project_file, options.control); }, options.out_dir,
+                             options.control, project_file.string()));
+}
+
+Results run_text(std::string_view project_text, const std::filesystem::path& base_dir, const RunOptions& options) {
+  const std::string name = "<project text>";
+  return Results(run_guarded(
+      [&] {
+        options.control.report("project", 0);
+        auto project = read_project_text(project_text, base_dir, name);
+        options.control.report("geometry", 0);
+        const auto step = geometry::read_step(project.model);
+        return analyse_model(std::move(project), step, options.control);
+      },
+      options.out_dir, options.control, name));
+}
+
+Results run_text(std::string_view project_text, const std::filesystem::path& base_dir, const ModelSource& model,
+                 const RunOptions& options) {
+  const std::string name = "<project text>";
+  return Results(run_guarded(
+      [&] {
+        options.control.report("project", 0);
+        auto project = read_project_text(project_text, base_dir, name);
+        options.control.report("geometry", 0);
+        const auto step = read_model_source(model);
+        if (!std::holds_alternative<StepFile>(model)) project.model = describe(model);
+        return analyse_model(std::move(project), step, options.control);
+      },
+      options.out_dir, options.control, name));
+}
+
+Results run(const Project& project, const RunOptions& options) {
+  return run(project, StepFile{project.model}, options);
+}
+
+Results run(const Project& project, const ModelSource& model, const RunOptions& options) {
+  return Results(run_guarded(
+      [&] {
+        options.control.report("geometry", 0);
+        const auto step = read_model_source(model);
+        Project p = project;
+        if (!std::holds_alternative<StepFile>(model)) p.model = describe(model);
+        return analyse_model(std::move(p), step, options.control);
+      },
+      options.out_dir, options.control, project.file.string()));
+}
+
+}  // namespace stepframe

@@ -1,0 +1,21 @@
+#include "stepframe/run_control.hpp"
+
+#include <spdlog/spdlog.h>
+
+namespace stepframe {
+
+ScopedLogSink::ScopedLogSink(spdlog::sink_ptr sink, spdlog::level::level_enum level) {
+  if (!sink) return;
+  previous_ = spdlog::default_logger();
+  // Not registered by name: the run's logger lives only as the default, for this scope.
+  auto logger = std::make_shared<spdlog::logger>("stepframe-run", std::move(sink));
+  logger->set_level(level);
+  spdlog::set_default_logger(std::move(logger));
+  active_ = true;
+}
+
+ScopedLogSink::~ScopedLogSink() {
+  if (active_) spdlog::set_default_logger(previous_);
+}
+
+}  // namespace stepframe
