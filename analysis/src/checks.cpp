@@ -1,6 +1,11 @@
 #include "stepframe/analysis/checks.hpp"
 
+#include "stepframe/analysis/member_line.hpp"
+
+#include <fmt/format.h>
+
 #include <algorithm>
+#include <cmath>
 
 namespace stepframe::analysis {
 namespace {
@@ -12,7 +17,8 @@ void keep_worst(std::vector<CheckResult>& worst, CheckResult candidate) {
 }
 
 // Runs `check(member index, member chain, member result)` for every member of
-// every result and keeps the worst per member.
+// every result and keeps the worst per member; `check` may return a result
+// with an empty `check` name to skip a member.
 template <class Check>
 std::vector<CheckResult> worst_over(const FrameModel& model, const std::vector<const LoadResult*>& results, Check check) {
   if (results.empty()) return {};
@@ -20,43 +26,122 @@ std::vector<CheckResult> worst_over(const FrameModel& model, const std::vector<c
   std::vector<CheckResult> worst(chains.size());
   for (const LoadResult* result : results)
     for (std::size_t m = 0; m < chains.size(); ++m) {
-      CheckResult r = check(chains[m], result->members[m]);
+      CheckResult r = check(m, chains[m], result->members[m]);
+      if (r.check.empty()) continue;
       r.member = m;
       r.combination = result->name;
       r.utilisation = r.value / r.limit;
       keep_worst(worst, std::move(r));
     }
-  for (auto& r : worst) r.pass = r.utilisation <= 1.0;
-  return worst;
+  std::vector<CheckResult> out;
+  for (auto& r : worst)
+    if (!r.check.empty()) r.pass = r.utilisation <= 1.0, out.push_back(std::move(r));
+  return out;
+}
+
+// Number of element ends at each node, and whether it is supported: a member
+// end with one element end and no support is free.
+std::vector<bool> free_ends(const FrameModel& model) {
+  std::vector<int> ends(model.nodes.size(), 0);
+  for (const auto& e : model.elements) ++ends[e.nodes[0]], ++ends[e.nodes[1]];
+  for (const auto& s : model.supports)
+    if (std::any_of(s.fixed.begin(), s.fixed.end(), [](bool f) { return f; }) ||
+        std::any_of(s.spring.begin(), s.spring.end(), [](double k) { return k > 0; }))
+      ends[s.node] += 2;
+  std::vector<bool> free(model.nodes.size());
+  for (std::size_t n = 0; n < free.size(); ++n) free[n] = ends[n] == 1;
+  return free;
 }
 
 }  // namespace
 
-std::vector<CheckResult> check_stress(const FrameModel& model, const std::vector<const LoadResult*>& results) {
-  return worst_over(model, results, [&](const Member& member, const LineResult& line) {
+std::vector<CheckResult> check_stress(const FrameModel& model, const std::vector<const LoadResult*>& results,
+                                      double gamma_M0) {
+  return worst_over(model, results, [&](std::size_t, const Member& member, const LineResult& line) {
     const auto peak = std::max_element(line.stations.begin(), line.stations.end(),
-                                       [](const Station& a, const Station& b) { return a.max_abs_stress < b.max_abs_stress; });
+                                       [](const Station& a, const Station& b) { return a.von_mises < b.von_mises; });
+    const FrameElement& first = model.elements[member.elements.front()];
+    const Material material = material_for_section(model.materials[first.material], model.sections[first.section]);
     CheckResult r;
     r.check = "stress";
-    r.clause = "EN 1993-1-1 6.2.1(5), normal stress at extreme fibres, gamma_M0 = 1.0";
+    r.clause = fmt::format("EN 1993-1-1 6.2.1(5), von Mises at the section's stress points <= fy / gamma_M0 "
+                           "(fy = {:.0f} MPa, gamma_M0 = {:.2f})",
+                           material.fy / 1e6, gamma_M0);
     r.station = peak == line.stations.end() ? 0.0 : peak->x;
-    r.value = line.max_abs_stress;
-    r.limit = model.materials[model.elements[member.elements.front()].material].fy;
+    r.value = line.max_von_mises;
+    r.limit = material.fy / gamma_M0;
     return r;
   });
 }
 
 std::vector<CheckResult> check_deflection(const FrameModel& model, const std::vector<const LoadResult*>& results,
-                                          double span_ratio) {
-  return worst_over(model, results, [&](const Member&, const LineResult& line) {
+                                          const std::vector<double>& span_ratios) {
+  const auto free = free_ends(model);
+  return worst_over(model, results, [&](std::size_t m, const Member& member, const LineResult& line) {
+    const bool free_start = free[model.elements[member.elements.front()].nodes[0]];
+    const bool free_end = free[model.elements[member.elements.back()].nodes[1]];
+    const bool cantilever = free_start != free_end;
+    const double ratio = span_ratios.at(m), length = line.stations.back().x;
     CheckResult r;
     r.check = "deflection";
-    r.clause = "EN 1993-1-1 7.2, local deflection <= L/" + std::to_string(static_cast<long>(span_ratio));
-    r.station = line.max_local_deflection_at;
-    r.value = line.max_local_deflection;
-    r.limit = line.stations.back().x / span_ratio;  // the member's length
+    if (cantilever) {
+      // The free end's movement across the member relative to its root (includes the root's rotation).
+      const Station& tip = free_end ? line.stations.back() : line.stations.front();
+      const Station& root = free_end ? line.stations.front() : line.stations.back();
+      const Eigen::Vector3d axis = (line.stations.back().position - line.stations.front().position).normalized();
+      const Eigen::Vector3d d = tip.displacement - root.displacement;
+      r.clause = fmt::format("EN 1993-1-1 7.2, cantilever tip deflection <= 2L/{:g}", ratio);
+      r.station = tip.x;
+      r.value = (d - d.dot(axis) * axis).norm();
+      r.limit = 2 * length / ratio;
+    } else {
+      r.clause = fmt::format("EN 1993-1-1 7.2, local deflection <= L/{:g}", ratio);
+      r.station = line.max_local_deflection_at;
+      r.value = line.max_local_deflection;
+      r.limit = length / ratio;
+    }
     return r;
   });
+}
+
+std::vector<CheckResult> check_drift(const FrameModel& model, const std::vector<const LoadResult*>& results,
+                                     double storey_ratio) {
+  return worst_over(model, results, [&](std::size_t, const Member&, const LineResult& line) {
+    CheckResult r;
+    const Eigen::Vector3d chord = line.stations.back().position - line.stations.front().position;
+    if (std::abs(chord.z()) < 0.99 * chord.norm()) return r;  // not a column: no drift check
+    const Eigen::Vector3d sway = line.stations.back().displacement - line.stations.front().displacement;
+    r.check = "drift";
+    r.clause = fmt::format("storey drift <= h/{:g} (EN 1990 A1.4.3, limit set by the project)", storey_ratio);
+    r.station = line.stations.back().x;
+    r.value = sway.head<2>().norm();
+    r.limit = std::abs(chord.z()) / storey_ratio;
+    return r;
+  });
+}
+
+std::vector<CheckResult> check_frame_stability(const std::vector<const LoadResult*>& results, double alpha_cr_min) {
+  std::vector<CheckResult> out;
+  for (const LoadResult* result : results) {
+    if (!result->alpha_cr) continue;
+    CheckResult r;
+    r.member = whole_frame;
+    r.check = "frame stability";
+    r.combination = result->name;
+    r.value = *result->alpha_cr;
+    // First order: alpha_cr must reach the limit. Second order (P-Delta) already carries the
+    // amplification, so only alpha_cr > 1 (the frame stands at all) is asked for.
+    r.limit = result->second_order ? 1.0 : alpha_cr_min;
+    r.utilisation = r.limit / *result->alpha_cr;
+    r.pass = r.utilisation <= 1.0;
+    r.clause = result->second_order
+                   ? "EN 1993-1-1 5.2.1(3): second-order effects included by the P-Delta analysis; alpha_cr > 1"
+                   : fmt::format("EN 1993-1-1 5.2.1(3): alpha_cr >= {:g} for a first-order analysis; otherwise ask "
+                                 "for analysis: {{second_order: true}}",
+                                 alpha_cr_min);
+    out.push_back(std::move(r));
+  }
+  return out;
 }
 
 }  // namespace stepframe::analysis

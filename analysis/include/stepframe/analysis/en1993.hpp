@@ -1,0 +1,125 @@
+#pragma once
+// EN 1993-1-1 (2005) screening of steel members: cross-section class
+// (5.5, Table 5.2), cross-section resistance (6.2), flexural buckling
+// (6.3.1), lateral-torsional buckling (6.3.2) and bending with axial
+// compression (6.3.3 with Annex B, method 2).
+//
+// Forces follow results.hpp (N > 0 tension; My about the strong axis y).
+// Every function is pure; units SI.
+
+#include "stepframe/analysis/checks.hpp"
+#include "stepframe/analysis/frame_model.hpp"
+#include "stepframe/analysis/material.hpp"
+#include "stepframe/analysis/results.hpp"
+#include "stepframe/analysis/section.hpp"
+
+#include <array>
+#include <string>
+#include <vector>
+
+namespace stepframe::analysis::en1993 {
+
+/// Partial factors; defaults are the recommended values of 6.1(1) NOTE 2B.
+struct PartialFactors {
+  double gamma_M0 = 1.0;
+  double gamma_M1 = 1.0;
+};
+
+/// Buckling curves of Table 6.1.
+enum class Curve { a0, a, b, c, d };
+const char* curve_name(Curve curve);
+
+/// Imperfection factor alpha of Table 6.1.
+double imperfection_factor(Curve curve);
+
+/// Reduction factor chi of 6.3.1.2 (6.49), also chi_LT of 6.3.2.2 (6.56):
+/// Phi = 0.5 [1 + alpha (lambda - 0.2) + lambda^2], chi = 1 / (Phi + sqrt(Phi^2 - lambda^2)) <= 1.
+double reduction_factor(double slenderness, Curve curve);
+
+/// epsilon = sqrt(235 MPa / fy) (Table 5.2).
+double epsilon(double fy);
+
+/// Class of one plate (Table 5.2). For internal parts `alpha` is the
+/// compressed fraction of c in the plastic stress state and `psi` the ratio
+/// of end stresses in the elastic state (1 = uniform compression, -1 = pure
+/// bending); outstands, angle legs and tubes are taken in uniform compression.
+int part_class(const SectionPart& part, double fy, double alpha = 1.0, double psi = 1.0);
+
+/// The class 1, 2 and 3 limits of c/t for one plate (Table 5.2); a limit of
+/// 0 means the table gives none for that class.
+std::array<double, 3> part_limits(const SectionPart& part, double fy, double alpha = 1.0, double psi = 1.0);
+
+struct Classification {
+  int section_class = 1;
+  std::string governing_part;       ///< the plate that sets the class
+  double class3_utilisation = 0;    ///< that plate's c/t over its class 3 limit (> 1 means class 4)
+};
+
+/// Class of a section under axial force N (tension > 0) and bending My:
+/// webs of I, channel and hollow sections get alpha and psi from N and My;
+/// flanges and other parts are taken in compression (conservative when the
+/// stress state of a part is not computed). Sections without parts (given by
+/// properties) are taken as class 3 (elastic resistance).
+Classification classify(const Section& section, double fy, double N, double My);
+
+/// Flexural buckling curves about y and z (Table 6.2).
+struct FlexuralCurves {
+  Curve y = Curve::c;
+  Curve z = Curve::c;
+};
+FlexuralCurves flexural_curves(const Section& section, double fy);
+
+/// Lateral-torsional buckling curve of 6.3.2.2 (Table 6.4).
+Curve lateral_torsional_curve(const Section& section);
+
+/// Elastic critical moment of a doubly symmetric I section, k = kw = 1 over
+/// the unrestrained length L, with the load applied zg above the shear centre
+/// (zg > 0 destabilising): the classic closed form (Timoshenko & Gere, Theory
+/// of Elastic Stability, 2nd ed., 1961, ch. 6, for zg = 0) with the C1/C2
+/// extension common in European practice (from memory):
+/// Mcr = C1 pi^2 E Iz / L^2 [sqrt(Iw/Iz + L^2 G It / (pi^2 E Iz) + (C2 zg)^2) - C2 zg].
+double critical_moment(double E, double G, double Iz, double Iw, double It, double L, double C1, double C2 = 0,
+                       double zg = 0);
+
+/// C1 for a linear moment diagram with end-moment ratio psi (-1 <= psi <= 1):
+/// 1.88 - 1.40 psi + 0.52 psi^2 <= 2.70 (from memory; a common approximation).
+double c1_linear(double psi);
+
+/// Equivalent uniform moment factor Cm of Annex B Table B.3 for a linear
+/// diagram: 0.6 + 0.4 psi >= 0.4.
+double cm_linear(double psi);
+
+/// Buckling lengths as factors of the member length.
+struct BucklingLengths {
+  double y = 1.0;   ///< flexural buckling about y
+  double z = 1.0;   ///< flexural buckling about z
+  double lt = 1.0;  ///< unrestrained length for lateral-torsional buckling
+};
+
+/// One member as the checks see it.
+struct MemberInput {
+  std::size_t member = 0;
+  const Section* section = nullptr;
+  Material material;  ///< with fy for the section's thickest plate
+  double length = 0;  ///< [m]
+  BucklingLengths buckling;
+};
+
+/// The EN 1993-1-1 checks of every member under every listed result, the
+/// worst result of each check kept per member. `buckling` gives each member's
+/// buckling length factors (empty: 1.0 everywhere). Each member's fy is that
+/// of its section's thickest plate (material_for_section).
+std::vector<CheckResult> check_members(const FrameModel& model, const std::vector<const LoadResult*>& results,
+                                       const std::vector<BucklingLengths>& buckling, const PartialFactors& factors);
+
+/// The EN 1993-1-1 checks of one member under one load result, one
+/// CheckResult each: "5.5 classification" (only for a class 4 section: its
+/// c/t over the class 3 limit, failing), "6.2 cross-section" (N + My + Mz, eq. 6.2, with the
+/// shear reduction of 6.2.8), "6.2.6 shear", "6.3.1 flexural buckling",
+/// "6.3.2 lateral-torsional buckling", "6.3.3 interaction" (6.61, 6.62).
+/// Checks that do not apply (no compression, closed sections for LTB) are
+/// left out. `combination` is copied into the results.
+std::vector<CheckResult> check_member(const MemberInput& member, const LineResult& line, const std::string& combination,
+                                      const PartialFactors& factors);
+
+}  // namespace stepframe::analysis::en1993

@@ -1,0 +1,227 @@
+// EN 1993-1-1 (2005) member checks: 5.5, 6.2, 6.3.1, 6.3.2 and 6.3.3 (Annex B).
+
+#include "stepframe/analysis/en1993.hpp"
+#include "stepframe/analysis/member_line.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <cmath>
+#include <map>
+#include <numbers>
+
+namespace stepframe::analysis::en1993 {
+namespace {
+
+constexpr double pi = std::numbers::pi;
+constexpr int N_ = 0, Vy_ = 1, Vz_ = 2, My_ = 4, Mz_ = 5;  // Station::forces components
+
+/// A moment diagram along the member: linear or not, its end ratio and peak.
+struct Diagram {
+  bool linear = true;
+  double psi = 1.0;  ///< smaller over larger end moment, signed (1 = uniform moment)
+  double peak = 0;   ///< largest |M| [N m]
+  std::size_t peak_station = 0;
+};
+
+Diagram diagram(const LineResult& line, int component) {
+  Diagram d;
+  const auto& st = line.stations;
+  const double m0 = st.front().forces(component), m1 = st.back().forces(component), length = st.back().x;
+  for (std::size_t k = 0; k < st.size(); ++k)
+    if (std::abs(st[k].forces(component)) > d.peak) d.peak = std::abs(st[k].forces(component)), d.peak_station = k;
+  for (const Station& s : st) {
+    const double straight = m0 + (m1 - m0) * s.x / length;
+    if (std::abs(s.forces(component) - straight) > 1e-3 * d.peak + 1e-9) d.linear = false;
+  }
+  const double big = std::abs(m0) >= std::abs(m1) ? m0 : m1, small = std::abs(m0) >= std::abs(m1) ? m1 : m0;
+  d.psi = std::abs(big) > 1e-12 ? std::clamp(small / big, -1.0, 1.0) : 1.0;
+  return d;
+}
+
+/// Elastic or plastic modulus by class (6.2.5(2)): Wpl for classes 1 and 2, Wel for class 3 (and 4, see 5.5).
+double modulus_y(const Section& s, int cls) { return cls <= 2 && s.Wpl_y > 0 ? s.Wpl_y : s.Wy(); }
+double modulus_z(const Section& s, int cls) { return cls <= 2 && s.Wpl_z > 0 ? s.Wpl_z : s.Wz(); }
+
+bool is_open(SectionShape shape) {
+  return shape == SectionShape::rolled_i || shape == SectionShape::welded_i || shape == SectionShape::channel ||
+         shape == SectionShape::tee || shape == SectionShape::angle;
+}
+bool has_lateral_torsional_buckling(const Section& s) {
+  return (s.shape == SectionShape::rolled_i || s.shape == SectionShape::welded_i || s.shape == SectionShape::channel) &&
+         s.Iw > 0;
+}
+
+CheckResult result(const std::string& check, std::string clause, double station, double value, double limit) {
+  CheckResult r;
+  r.check = check;
+  r.clause = std::move(clause);
+  r.station = station;
+  r.value = value;
+  r.limit = limit;
+  r.utilisation = limit > 0 ? value / limit : 0.0;
+  r.pass = r.utilisation <= 1.0;
+  return r;
+}
+
+}  // namespace
+
+std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& line, const std::string& combination,
+                                      const PartialFactors& f) {
+  const Section& s = *in.section;
+  const double fy = in.material.fy, E = in.material.E, G = in.material.G;
+  const double L = in.length;
+  std::vector<CheckResult> out;
+
+  // 5.5 classification and 6.2 cross-section resistance, station by station. The class shows in
+  // the 6.2 clause; a class 4 section (outside this screening) is a failing check of its own.
+  double worst_section = -1, worst_shear = -1, worst_class = -1;
+  CheckResult section_check, shear_check, class_check;
+  for (const Station& st : line.stations) {
+    const double N = st.forces(N_), My = st.forces(My_), Mz = st.forces(Mz_);
+    const double Vy = std::abs(st.forces(Vy_)), Vz = std::abs(st.forces(Vz_));
+    const Classification cls = classify(s, fy, N, My);
+    if (cls.section_class == 4 && cls.class3_utilisation > worst_class) {
+      worst_class = cls.class3_utilisation;
+      class_check = result("5.5 classification",
+                           fmt::format("EN 1993-1-1 5.5, Table 5.2: class {} ({}); class 4 needs effective properties "
+                                       "(EN 1993-1-5), not covered",
+                                       cls.section_class, cls.governing_part),
+                           st.x, cls.class3_utilisation, 1.0);
+    }
+    const double NRd = s.A * fy / f.gamma_M0;  // (6.6) and (6.10)
+    double MyRd = modulus_y(s, cls.section_class) * fy / f.gamma_M0;  // (6.13), (6.14)
+    double MzRd = modulus_z(s, cls.section_class) * fy / f.gamma_M0;
+    // 6.2.6 (6.18): Vpl,Rd = Av (fy / sqrt 3) / gamma_M0; 6.2.8: rho = (2 V / Vpl - 1)^2 reduces the
+    // bending resistance when V > 0.5 Vpl (applied to the whole modulus: conservative).
+    const double VplZ = s.Avz * fy / std::sqrt(3.0) / f.gamma_M0, VplY = s.Avy * fy / std::sqrt(3.0) / f.gamma_M0;
+    if (VplZ > 0 && Vz > 0.5 * VplZ) MyRd *= 1.0 - std::pow(std::min(2 * Vz / VplZ - 1, 1.0), 2);
+    if (VplY > 0 && Vy > 0.5 * VplY) MzRd *= 1.0 - std::pow(std::min(2 * Vy / VplY - 1, 1.0), 2);
+    // (6.2): linear interaction, valid for every class 1 to 3 section.
+    const double u = std::abs(N) / NRd + std::abs(My) / MyRd + std::abs(Mz) / MzRd;
+    if (u > worst_section) {
+      worst_section = u;
+      section_check = result("6.2 cross-section",
+                             fmt::format("EN 1993-1-1 6.2.1(7) eq. (6.2), N + My + Mz, with 6.2.8 shear; class {} ({})",
+                                         cls.section_class, cls.governing_part),
+                             st.x, u, 1.0);
+    }
+    if (VplZ > 0 && VplY > 0) {
+      const double uv = std::max(Vz / VplZ, Vy / VplY);
+      if (uv > worst_shear) {
+        worst_shear = uv;
+        shear_check = result("6.2.6 shear", "EN 1993-1-1 6.2.6 eq. (6.17), plastic shear resistance", st.x, uv, 1.0);
+      }
+    }
+  }
+  if (worst_class >= 0) out.push_back(class_check);
+  out.push_back(section_check);
+  if (worst_shear >= 0) out.push_back(shear_check);
+
+  // Member buckling.
+  double NEd = 0;  // largest compression
+  std::size_t n_station = 0;
+  for (std::size_t k = 0; k < line.stations.size(); ++k)
+    if (-line.stations[k].forces(N_) > NEd) NEd = -line.stations[k].forces(N_), n_station = k;
+  const Diagram my = diagram(line, My_), mz = diagram(line, Mz_);
+  const FlexuralCurves curves = flexural_curves(s, fy);
+  const double NRk = s.A * fy;
+  // 6.3.1.2 (6.50): lambda = sqrt(A fy / Ncr), Ncr = pi^2 E I / (k L)^2.
+  const double Ly = in.buckling.y * L, Lz = in.buckling.z * L;
+  const double lambda_y = std::sqrt(NRk / (pi * pi * E * s.Iy / (Ly * Ly)));
+  const double lambda_z = std::sqrt(NRk / (pi * pi * E * s.Iz / (Lz * Lz)));
+  const double chi_y = reduction_factor(lambda_y, curves.y), chi_z = reduction_factor(lambda_z, curves.z);
+
+  if (NEd > 0) {
+    const double NbRd = std::min(chi_y, chi_z) * NRk / f.gamma_M1;  // (6.47)
+    out.push_back(result("6.3.1 flexural buckling",
+                         fmt::format("EN 1993-1-1 6.3.1, curves {}/{} (y/z), chi_y = {:.3f}, chi_z = {:.3f}, "
+                                     "Lcr = {:.3g}/{:.3g} m; flexural buckling only",
+                                     curve_name(curves.y), curve_name(curves.z), chi_y, chi_z, Ly, Lz),
+                         line.stations[n_station].x, NEd, NbRd));
+  }
+
+  const int cls_member = classify(s, fy, -NEd, my.peak).section_class;
+  const double Wy = modulus_y(s, cls_member), Wz = modulus_z(s, cls_member);
+  double chi_lt = 1.0;
+  if (has_lateral_torsional_buckling(s) && my.peak > 0) {
+    const double Llt = in.buckling.lt * L;
+    // Linear diagram: C1 from psi, load effects at the shear centre. Otherwise the conservative default:
+    // C1 = 1.0 with the load on the top flange (zg = h/2, C2 = 0.454 for a uniform load, from memory).
+    const double C1 = my.linear ? c1_linear(my.psi) : 1.0;
+    const double C2 = my.linear ? 0.0 : 0.454, zg = my.linear ? 0.0 : 0.5 * s.depth;
+    const double Mcr = critical_moment(E, G, s.Iz, s.Iw, s.J, Llt, C1, C2, zg);
+    const double lambda_lt = std::sqrt(Wy * fy / Mcr);                     // (6.56)
+    const Curve curve = lateral_torsional_curve(s);
+    chi_lt = lambda_lt <= 0.2 ? 1.0 : reduction_factor(lambda_lt, curve);  // 6.3.2.2(4): lambda_LT,0 = 0.2
+    const double MbRd = chi_lt * Wy * fy / f.gamma_M1;                     // (6.55)
+    out.push_back(result(
+        "6.3.2 lateral-torsional buckling",
+        fmt::format("EN 1993-1-1 6.3.2.2, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}, {}", curve_name(curve), Mcr / 1e3,
+                    chi_lt,
+                    my.linear ? fmt::format("linear moment, C1 = {:.2f}, unrestrained length {:.3g} m", C1, Llt)
+                              : fmt::format("conservative default: no restraint over {:.3g} m, C1 = 1.0, load on the "
+                                            "top flange",
+                                            Llt)),
+        line.stations[my.peak_station].x, my.peak, MbRd));
+  }
+
+  if (NEd > 0) {
+    // 6.3.3 (6.61), (6.62) with the interaction factors of Annex B (method 2).
+    const double Cmy = my.linear ? cm_linear(my.psi) : 1.0;  // Table B.3; 1.0 bounds the span-loaded cases
+    const double Cmz = mz.linear ? cm_linear(mz.psi) : 1.0;
+    const double Cmlt = Cmy;
+    const bool plastic = cls_member <= 2;
+    const double n_y = NEd / (chi_y * NRk / f.gamma_M1), n_z = NEd / (chi_z * NRk / f.gamma_M1);
+    const bool i_section = s.shape == SectionShape::rolled_i || s.shape == SectionShape::welded_i;
+    // Table B.1.
+    const double kyy = plastic ? Cmy * (1 + std::min(lambda_y - 0.2, 0.8) * n_y) : Cmy * (1 + 0.6 * std::min(lambda_y, 1.0) * n_y);
+    const double kzz = plastic ? (i_section ? Cmz * (1 + std::min(2 * lambda_z - 0.6, 1.4) * n_z)
+                                            : Cmz * (1 + std::min(lambda_z - 0.2, 0.8) * n_z))
+                               : Cmz * (1 + 0.6 * std::min(lambda_z, 1.0) * n_z);
+    const double kyz = plastic ? 0.6 * kzz : kzz;
+    double kzy = plastic ? 0.6 * kyy : 0.8 * kyy;
+    if (is_open(s.shape)) {
+      // Table B.2: members susceptible to torsional deformations.
+      const double c = plastic ? 0.1 : 0.05, lz = std::min(lambda_z, 1.0);
+      kzy = 1 - c * lz * n_z / (Cmlt - 0.25);
+      if (plastic && lambda_z < 0.4) kzy = std::min(0.6 + lambda_z, kzy);
+    }
+    const double MyRk = Wy * fy, MzRk = Wz * fy;
+    const double u61 = n_y + kyy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kyz * mz.peak / (MzRk / f.gamma_M1);
+    const double u62 = n_z + kzy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kzz * mz.peak / (MzRk / f.gamma_M1);
+    out.push_back(result("6.3.3 interaction",
+                         fmt::format("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
+                                     "kzz = {:.3f}, Cmy = {:.2f}",
+                                     u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy),
+                         line.stations[my.peak_station].x, std::max(u61, u62), 1.0));
+  }
+  for (auto& r : out) r.combination = combination, r.member = in.member;
+  return out;
+}
+
+std::vector<CheckResult> check_members(const FrameModel& model, const std::vector<const LoadResult*>& results,
+                                       const std::vector<BucklingLengths>& buckling, const PartialFactors& factors) {
+  const auto chains = member_chains(model);
+  std::map<std::pair<std::size_t, std::string>, CheckResult> worst;
+  for (std::size_t m = 0; m < chains.size(); ++m) {
+    const FrameElement& first = model.elements[chains[m].elements.front()];
+    MemberInput in;
+    in.member = m;
+    in.section = &model.sections[first.section];
+    in.material = material_for_section(model.materials[first.material], *in.section);
+    if (m < buckling.size()) in.buckling = buckling[m];
+    for (const LoadResult* r : results) {
+      in.length = r->members[m].stations.back().x;
+      for (CheckResult& c : check_member(in, r->members[m], r->name, factors)) {
+        auto [it, inserted] = worst.try_emplace({m, c.check}, c);
+        if (!inserted && c.utilisation > it->second.utilisation) it->second = std::move(c);
+      }
+    }
+  }
+  std::vector<CheckResult> out;
+  for (auto& [key, c] : worst) out.push_back(std::move(c));
+  return out;
+}
+
+}  // namespace stepframe::analysis::en1993
