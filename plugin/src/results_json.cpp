@@ -45,6 +45,11 @@ nlohmann::json results_json(const Analysis& a) {
   auto& results = j["results"] = nlohmann::json::array();
   for (const auto& r : a.results) {
     nlohmann::json jr{{"name", r.name}, {"kind", r.is_combination ? "combination" : "case"}};
+    // Elastic critical load factor and the lowest buckling modes' factors (null / empty when not computed).
+    jr["alpha_cr"] = r.alpha_cr ? nlohmann::json(*r.alpha_cr) : nlohmann::json(nullptr);
+    jr["buckling_factors"] = nlohmann::json::array();
+    for (const auto& mode : r.buckling_modes) jr["buckling_factors"].push_back(mode.alpha);
+    jr["second_order"] = r.second_order;
     auto& disp = jr["displacements"] = nlohmann::json::array();
     auto& reactions = jr["reactions"] = nlohmann::json::array();
     std::vector<bool> supported(model.nodes.size(), false);
@@ -61,6 +66,7 @@ nlohmann::json results_json(const Analysis& a) {
       const auto& res = r.members[m];
       mr.push_back({{"member", m},
                     {"max_abs_stress", res.max_abs_stress},
+                    {"max_von_mises", res.max_von_mises},
                     {"max_local_deflection", res.max_local_deflection},
                     {"end_forces", {{"start", vec6(res.start_forces)}, {"end", vec6(res.end_forces)}}}});
     }
@@ -69,7 +75,7 @@ nlohmann::json results_json(const Analysis& a) {
 
   auto& checks = j["checks"] = nlohmann::json::array();
   for (const auto& c : a.checks)
-    checks.push_back({{"member", c.member},
+    checks.push_back({{"member", c.member == analysis::whole_frame ? nlohmann::json(nullptr) : nlohmann::json(c.member)},
                       {"check", c.check},
                       {"clause", c.clause},
                       {"combination", c.combination},

@@ -15,27 +15,44 @@ std::string summary_text(const Analysis& a) {
                      pass ? "PASS" : "FAIL", model.members.size(), model.nodes.size(), model.cases.size(),
                      model.combinations.size());
 
-  out += fmt::format("\n{:<16} {:<12} {:>16} {:>20} {:>18}\n", "result", "kind", "max |stress| MPa",
-                     "max local defl. mm", "max |u| node mm");
+  out += fmt::format("\n{:<16} {:<12} {:>14} {:>14} {:>14} {:>9}\n", "result", "kind", "von Mises MPa",
+                     "local defl. mm", "node |u| mm", "alpha_cr");
   for (const auto& r : a.results) {
     double stress = 0, deflection = 0, u = 0;
-    for (const auto& m : r.members) stress = std::max(stress, m.max_abs_stress), deflection = std::max(deflection, m.max_local_deflection);
+    for (const auto& m : r.members)
+      stress = std::max(stress, m.max_von_mises), deflection = std::max(deflection, m.max_local_deflection);
     for (std::size_t n = 0; n < model.nodes.size(); ++n)
       u = std::max(u, r.displacements.segment<3>(static_cast<Eigen::Index>(6 * n)).norm());
-    out += fmt::format("{:<16} {:<12} {:>16.1f} {:>20.2f} {:>18.2f}\n", r.name, r.is_combination ? "combination" : "case",
-                       stress / 1e6, deflection * 1e3, u * 1e3);
+    out += fmt::format("{:<16} {:<12} {:>14.1f} {:>14.2f} {:>14.2f} {:>9}\n", r.name,
+                       r.is_combination ? (r.second_order ? "comb. (P-D)" : "combination") : "case", stress / 1e6,
+                       deflection * 1e3, u * 1e3, r.alpha_cr ? fmt::format("{:.2f}", *r.alpha_cr) : "-");
   }
 
   if (!a.checks.empty()) {
-    const auto governing = std::max_element(a.checks.begin(), a.checks.end(),
-                                            [](const auto& x, const auto& y) { return x.utilisation < y.utilisation; });
     const auto failed = std::count_if(a.checks.begin(), a.checks.end(), [](const auto& c) { return !c.pass; });
-    const auto& src = a.built.member_sources[governing->member];
     out += fmt::format("\nchecks: {} of {} pass\n", a.checks.size() - static_cast<std::size_t>(failed), a.checks.size());
-    out += fmt::format("governing: member {} ({}{}, {}) {} utilisation {:.2f} under {} at x = {:.3f} m\n",
-                       governing->member, src.entity, src.name.empty() ? "" : " '" + src.name + "'",
-                       model.sections[model.elements[model.members[governing->member].elements.front()].section].designation, governing->check,
-                       governing->utilisation, governing->combination, governing->station);
+    // The five highest utilisations, governing first.
+    std::vector<const analysis::CheckResult*> ranked;
+    for (const auto& c : a.checks) ranked.push_back(&c);
+    std::stable_sort(ranked.begin(), ranked.end(), [](auto* x, auto* y) { return x->utilisation > y->utilisation; });
+    out += fmt::format("{:>6}  {:<28} {:<10} {:<34} {:<12} {:>8}\n", "member", "source", "section", "check",
+                       "result", "util.");
+    for (std::size_t i = 0; i < ranked.size() && i < 5; ++i) {
+      const auto& c = *ranked[i];
+      std::string member = "frame", source, section;
+      if (c.member != analysis::whole_frame) {
+        const auto& src = a.built.member_sources[c.member];
+        member = std::to_string(c.member);
+        source = src.entity + (src.name.empty() ? "" : " '" + src.name + "'");
+        section = model.sections[model.elements[model.members[c.member].elements.front()].section].designation;
+      }
+      out += fmt::format("{:>6}  {:<28} {:<10} {:<34} {:<12} {:>8.2f}{}\n", member, source.substr(0, 28), section,
+                         c.check, c.combination, c.utilisation, c.pass ? "" : "  FAIL");
+    }
+    const auto& top = *ranked.front();
+    out += fmt::format("governing: {} {} utilisation {:.2f} under {}\n",
+                       top.member == analysis::whole_frame ? std::string("the frame") : "member " + std::to_string(top.member),
+                       top.check, top.utilisation, top.combination);
   } else {
     out += "\nchecks: none requested\n";
   }

@@ -38,14 +38,17 @@ TEST_CASE("the line model round-trips through VTK's XML reader") {
       s.forces.setZero();
       s.displacement = Eigen::Vector3d(0.001 * m, 0.0, -0.002 * k);
       s.max_abs_stress = 1e6 * (10 * m + k);
+      s.von_mises = 1.1e6 * (10 * m + k);
+      s.forces(0) = -1e3 * k;
       mr.stations.push_back(s);
     }
     mr.max_abs_stress = 1e6 * (10 * m + 2);
+    mr.max_von_mises = 1.1e6 * (10 * m + 2);
     result.members.push_back(mr);
   }
 
   const auto file = std::filesystem::temp_directory_path() / "stepframe-test-line-model.vtu";
-  viz::write_line_model_vtu(file, model, result);
+  viz::write_line_model_vtu(file, model, result, {0.25, 0.75});
 
   vtkNew<vtkXMLUnstructuredGridReader> reader;
   reader->SetFileName(file.string().c_str());
@@ -63,7 +66,9 @@ TEST_CASE("the line model round-trips through VTK's XML reader") {
 
   auto* stress = grid->GetCellData()->GetArray("stress");
   REQUIRE(stress);
-  CHECK(stress->GetTuple1(1) == Approx(12e6));
+  CHECK(stress->GetTuple1(1) == Approx(13.2e6));  // the largest von Mises stress of member 1
+  CHECK(grid->GetCellData()->GetArray("normal_stress")->GetTuple1(1) == Approx(12e6));
+  CHECK(grid->GetCellData()->GetArray("utilisation")->GetTuple1(1) == Approx(0.75));
   REQUIRE(grid->GetCellData()->GetScalars());
   CHECK(std::string(grid->GetCellData()->GetScalars()->GetName()) == "stress");
   CHECK(grid->GetCellData()->GetArray("member_id")->GetTuple1(1) == 1);
@@ -76,6 +81,7 @@ TEST_CASE("the line model round-trips through VTK's XML reader") {
   CHECK(displacement->GetNumberOfComponents() == 3);
   CHECK(displacement->GetComponent(5, 2) == Approx(-0.004));
   CHECK(displacement->GetComponent(3, 0) == Approx(0.001));
-  CHECK(grid->GetPointData()->GetArray("station_stress")->GetTuple1(4) == Approx(11e6));
+  CHECK(grid->GetPointData()->GetArray("von_mises")->GetTuple1(4) == Approx(12.1e6));
+  CHECK(grid->GetPointData()->GetArray("N")->GetTuple1(5) == Approx(-2e3));
   std::filesystem::remove(file);
 }

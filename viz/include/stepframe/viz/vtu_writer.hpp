@@ -6,19 +6,23 @@
 #include "stepframe/analysis/results.hpp"
 
 #include <filesystem>
+#include <vector>
 
 namespace stepframe::viz {
 
 /// Writes `result` for `model` to `file` (binary, zlib-compressed appended data).
 /// Points are the undeformed station positions [m].
-/// Point data: "displacement" (vector [m]; warp by it to see the deformed shape),
-///             "station_stress" (largest |sigma| at the station [Pa]).
-/// Cell data:  "stress" (largest |sigma| over the member [Pa]; the active scalar,
-///             so any VTK viewer colours by it), "member_id", "section_id",
-///             "section" (designation).
+/// Point data: "displacement" (vector [m]; warp by it to see the deformed shape,
+///             which then follows the element's own interpolation),
+///             "von_mises" (largest at the station [Pa]), "N" [N], "My", "Mz" [N m]
+///             (internal forces, results.hpp convention).
+/// Cell data:  "stress" (largest von Mises stress over the member [Pa]; the
+///             active scalar, so any VTK viewer colours by it), "normal_stress"
+///             (largest |sigma| [Pa]), "utilisation" (when given), "member_id",
+///             "section_id", "section" (designation).
 /// Writes exactly `file`; callers that need atomic output pass a temporary
 /// name and rename it. Throws std::runtime_error naming the file on failure.
 void write_line_model_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
-                          const analysis::LoadResult& result);
+                          const analysis::LoadResult& result, const std::vector<double>& member_utilisation = {});
 
 }  // namespace stepframe::viz

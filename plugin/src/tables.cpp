@@ -1,0 +1,115 @@
+#include "stepframe/tables.hpp"
+
+#include <fmt/format.h>
+
+#include <algorithm>
+#include <array>
+#include <map>
+
+namespace stepframe {
+namespace {
+
+// RFC 4180 quoting for text fields.
+std::string csv_field(const std::string& text) {
+  if (text.find_first_of(",\"\n") == std::string::npos) return text;
+  std::string out = "\"";
+  for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
+  return out + "\"";
+}
+
+const analysis::FrameElement& first_element(const analysis::FrameModel& model, std::size_t member) {
+  return model.elements[model.members[member].elements.front()];
+}
+
+double member_length(const analysis::FrameModel& model, std::size_t member) {
+  double length = 0;
+  for (std::size_t e : model.members[member].elements) {
+    const auto& el = model.elements[e];
+    length += (model.nodes[el.nodes[1]] - model.nodes[el.nodes[0]]).norm();
+  }
+  return length;
+}
+
+}  // namespace
+
+std::string checks_csv(const Analysis& a) {
+  const auto& model = a.built.model;
+  std::vector<const analysis::CheckResult*> governing(model.members.size(), nullptr);
+  for (const auto& c : a.checks)
+    if (c.member != analysis::whole_frame && (!governing[c.member] || c.utilisation > governing[c.member]->utilisation))
+      governing[c.member] = &c;
+
+  std::string out = "member,entity,name,section,utilisation,check,clause,combination,station_m,pass\n";
+  for (std::size_t m = 0; m < model.members.size(); ++m) {
+    const auto& src = a.built.member_sources[m];
+    const auto& section = model.sections[first_element(model, m).section].designation;
+    if (const auto* c = governing[m])
+      out += fmt::format("{},{},{},{},{:.4f},{},{},{},{:.4f},{}\n", m, csv_field(src.entity), csv_field(src.name),
+                         csv_field(section), c->utilisation, c->check, csv_field(c->clause), csv_field(c->combination),
+                         c->station, c->pass ? "pass" : "FAIL");
+    else
+      out += fmt::format("{},{},{},{},,,,,,not checked\n", m, csv_field(src.entity), csv_field(src.name), csv_field(section));
+  }
+  return out;
+}
+
+std::string takeoff_csv(const Analysis& a) {
+  const auto& model = a.built.model;
+  struct Total {
+    std::size_t count = 0;
+    double length = 0, mass = 0;
+  };
+  std::map<std::string, Total> per_section;
+  Total overall;
+  std::string out = "member,entity,name,section,material,cut_length_mm,mass_per_metre_kg,mass_kg\n";
+  for (std::size_t m = 0; m < model.members.size(); ++m) {
+    const auto& element = first_element(model, m);
+    const auto& section = model.sections[element.section];
+    const auto& material = model.materials[element.material];
+    const double length = member_length(model, m);
+    const double per_metre = section.A * material.density;  // kg/m = A [m^2] x density [kg/m^3]
+    const double mass = per_metre * length;
+    const auto& src = a.built.member_sources[m];
+    out += fmt::format("{},{},{},{},{},{:.1f},{:.2f},{:.2f}\n", m, csv_field(src.entity), csv_field(src.name),
+                       csv_field(section.designation), csv_field(material.name), length * 1e3, per_metre, mass);
+    auto& t = per_section[section.designation];
+    ++t.count, t.length += length, t.mass += mass;
+    ++overall.count, overall.length += length, overall.mass += mass;
+  }
+  out += "\nsection,members,total_length_m,total_mass_kg\n";
+  for (const auto& [designation, t] : per_section)
+    out += fmt::format("{},{},{:.3f},{:.2f}\n", csv_field(designation), t.count, t.length, t.mass);
+  out += fmt::format("TOTAL,{},{:.3f},{:.2f}\n", overall.count, overall.length, overall.mass);
+  return out;
+}
+
+std::string end_forces_csv(const Analysis& a) {
+  const auto& model = a.built.model;
+  std::vector<const analysis::LoadResult*> pool;
+  for (const auto& r : a.results)
+    if (r.is_combination) pool.push_back(&r);
+  if (pool.empty())
+    for (const auto& r : a.results) pool.push_back(&r);
+
+  constexpr std::array<const char*, 6> names{"N_kN", "Vy_kN", "Vz_kN", "T_kNm", "My_kNm", "Mz_kNm"};
+  std::string out = "member,entity,end,component,max,max_combination,min,min_combination\n";
+  for (std::size_t m = 0; m < model.members.size(); ++m)
+    for (int end = 0; end < 2; ++end)
+      for (int c = 0; c < 6; ++c) {
+        double high = -std::numeric_limits<double>::infinity(), low = std::numeric_limits<double>::infinity();
+        std::string high_by, low_by;
+        for (const auto* r : pool) {
+          const auto& line = r->members[m];
+          const double v = (end == 0 ? line.start_forces : line.end_forces)(c);
+          if (v > high) high = v, high_by = r->name;
+          if (v < low) low = v, low_by = r->name;
+        }
+        // kN and kN*m for people: internal forces are N and N*m inside.
+        out += fmt::format("{},{},{},{},{:.3f},{},{:.3f},{}\n", m, csv_field(a.built.member_sources[m].entity),
+                           end == 0 ? "start" : "end", names[c], high / 1e3, csv_field(high_by), low / 1e3,
+                           csv_field(low_by));
+      }
+  return out;
+}
+
+}  // namespace stepframe

@@ -1,0 +1,188 @@
+// Every output file of a run, read back: VTK files with VTK's own readers,
+// the report against results.json, the tables against the model.
+
+#include "stepframe/geometry/step_writer.hpp"
+#include "test_helpers.hpp"
+
+#include <catch2/catch.hpp>
+#include <nlohmann/json.hpp>
+#include <vtkCellData.h>
+#include <vtkDataArray.h>
+#include <vtkFieldData.h>
+#include <vtkMultiBlockDataSet.h>
+#include <vtkNew.h>
+#include <vtkPointData.h>
+#include <vtkUnstructuredGrid.h>
+#include <vtkXMLMultiBlockDataReader.h>
+#include <vtkXMLUnstructuredGridReader.h>
+
+#include <cmath>
+#include <regex>
+#include <sstream>
+
+using namespace stepframe;
+using Catch::Matchers::Contains;
+
+namespace {
+
+/// A portal: two 3 m HEB 200 columns and a 5 m IPE 300 beam, fixed bases, a
+/// vertical load on the beam and a sway load, two combinations and buckling.
+void write_portal(const test::ScratchDir& dir) {
+  auto line = [](Eigen::Vector3d a, Eigen::Vector3d b, const char* name, const char* layer) {
+    geometry::LineToWrite l{a, b, {}};
+    l.attributes.name = name;
+    l.attributes.layers = {layer};
+    l.attributes.product = "PORTAL";
+    return l;
+  };
+  geometry::write_step_wireframe(dir / "portal.stp",
+                                 {line({0, 0, 0}, {0, 0, 3}, "HE 200 B", "COLUMNS"),
+                                  line({5, 0, 0}, {5, 0, 3}, "HE 200 B", "COLUMNS"),
+                                  line({0, 0, 3}, {5, 0, 3}, "IPE 300", "BEAMS")},
+                                 "mm");
+  test::write_text(dir / "portal.yaml", R"(model: portal.stp
+units: {length: m, force: kN, stress: MPa, line_load: kN/m}
+rules:
+  - where: {}
+    material: S355
+supports:
+  - where: {z: 0}
+    fix: fixed
+cases:
+  - name: G
+    self_weight: true
+    member_loads:
+      - where: {layer: BEAMS}
+        w: [0, 0, -20]
+  - name: W
+    node_loads:
+      - near: [0, 0, 3]
+        force: [8, 0, 0]
+combinations:
+  - name: ULS
+    factors: {G: 1.35, W: 1.5}
+  - name: SLS
+    factors: {G: 1.0, W: 1.0}
+analysis:
+  buckling_modes: 2
+checks:
+  stress: {combinations: [ULS]}
+  en1993: {combinations: [ULS]}
+  stability: {combinations: [ULS]}
+  deflection: {span_ratio: 300, combinations: [SLS]}
+  drift: {storey_ratio: 300, combinations: [SLS]}
+)");
+}
+
+vtkSmartPointer<vtkUnstructuredGrid> read_vtu(const std::filesystem::path& file) {
+  vtkNew<vtkXMLUnstructuredGridReader> reader;
+  reader->SetFileName(file.string().c_str());
+  reader->Update();
+  vtkSmartPointer<vtkUnstructuredGrid> grid = reader->GetOutput();
+  return grid;
+}
+
+std::vector<std::vector<std::string>> csv_rows(const std::string& text) {
+  std::vector<std::vector<std::string>> rows;
+  std::istringstream in(text);
+  for (std::string line; std::getline(in, line);) {
+    std::vector<std::string> row;
+    std::istringstream fields(line);
+    for (std::string f; std::getline(fields, f, ',');) row.push_back(f);
+    rows.push_back(row);
+  }
+  return rows;
+}
+
+}  // namespace
+
+TEST_CASE("a run writes every output, and each reads back consistently") {
+  test::ScratchDir dir;
+  write_portal(dir);
+  const auto out = dir / "out";
+  const auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\" --out \"" + out.string() + "\"", dir);
+  INFO(r.out << r.err);
+  REQUIRE((r.status == 0 || r.status == 1));
+  const auto j = nlohmann::json::parse(test::read_text(out / "results.json"));
+  REQUIRE(j["members"].size() == 3);
+
+  SECTION("the line model of each result carries the results.json numbers") {
+    for (const auto& result : j["results"]) {
+      const auto grid = read_vtu(out / "vtk" / (result["name"].get<std::string>() + ".vtu"));
+      REQUIRE(grid->GetNumberOfCells() == 3);
+      auto* stress = grid->GetCellData()->GetArray("stress");
+      REQUIRE(stress);
+      CHECK(std::string(grid->GetCellData()->GetScalars()->GetName()) == "stress");
+      for (int m = 0; m < 3; ++m)
+        CHECK(stress->GetTuple1(m) == Approx(result["members"][m]["max_von_mises"].get<double>()).epsilon(1e-12));
+      REQUIRE(grid->GetPointData()->GetArray("displacement"));
+      REQUIRE(grid->GetPointData()->GetArray("N"));
+      REQUIRE(grid->GetCellData()->GetArray("utilisation"));
+    }
+  }
+  SECTION("the surface model shows the fibre stresses") {
+    const auto grid = read_vtu(out / "vtk" / "ULS.surface.vtu");
+    REQUIRE(grid->GetNumberOfCells() > 100);
+    auto* fibre = grid->GetPointData()->GetArray("fibre_stress");
+    REQUIRE(fibre);
+    double range[2];
+    fibre->GetRange(range);
+    CHECK(range[0] < 0);  // compression and tension fibres both show
+    CHECK(range[1] > 0);
+    // The extreme fibre stress cannot exceed the largest normal stress of the line model.
+    const auto line = read_vtu(out / "vtk" / "ULS.vtu");
+    double normal[2];
+    line->GetCellData()->GetArray("normal_stress")->GetRange(normal);
+    CHECK(std::max(-range[0], range[1]) <= normal[1] * (1 + 1e-9));
+  }
+  SECTION("buckling modes and the multiblock index") {
+    REQUIRE(j["results"][2]["alpha_cr"].is_number());
+    const auto mode = read_vtu(out / "vtk" / "ULS.mode1.vtu");
+    REQUIRE(mode->GetPointData()->GetArray("mode_shape"));
+    CHECK(mode->GetFieldData()->GetArray("alpha")->GetTuple1(0) ==
+          Approx(j["results"][2]["alpha_cr"].get<double>()).epsilon(1e-12));
+    vtkNew<vtkXMLMultiBlockDataReader> reader;
+    reader->SetFileName((out / "frame.vtm").string().c_str());
+    reader->Update();
+    auto* blocks = vtkMultiBlockDataSet::SafeDownCast(reader->GetOutput());
+    REQUIRE(blocks);
+    REQUIRE(blocks->GetNumberOfBlocks() == 3);  // line, surface, modes
+    auto* lines = vtkMultiBlockDataSet::SafeDownCast(blocks->GetBlock(0));
+    REQUIRE(lines);
+    CHECK(lines->GetNumberOfBlocks() == 4);  // G, W, ULS, SLS
+  }
+  SECTION("the report's verdict and utilisation match results.json") {
+    const auto html = test::read_text(out / "report.html");
+    std::smatch m;
+    REQUIRE(std::regex_search(html, m, std::regex("data-status=\"(pass|fail)\"")));
+    CHECK(m[1] == j["status"].get<std::string>());
+    double max_u = 0;
+    for (const auto& c : j["checks"]) max_u = std::max(max_u, c["utilisation"].get<double>());
+    REQUIRE(std::regex_search(html, m, std::regex("id=\"max-utilisation\">([0-9.]+)<")));
+    CHECK(std::stod(m[1]) == Approx(max_u).margin(5e-4));
+    CHECK_THAT(html, Contains("competent engineer") && Contains("data:image/png;base64,"));
+  }
+  SECTION("tables: checks, take-off and end forces") {
+    const auto checks = csv_rows(test::read_text(out / "checks.csv"));
+    CHECK(checks.size() == 4);  // header + 3 members
+    const auto takeoff = csv_rows(test::read_text(out / "takeoff.csv"));
+    // Total mass = sum of A rho L (IPE 300: 42.2 kg/m, HEB 200: 61.3 kg/m, EN 10365).
+    double expected = 0;
+    for (const auto& member : j["members"]) expected += member["length"].get<double>();
+    const auto& total = takeoff.back();
+    REQUIRE(total[0] == "TOTAL");
+    CHECK(std::stod(total[2]) == Approx(expected).epsilon(1e-6));
+    CHECK(std::stod(total[3]) == Approx(2 * 3 * 61.3 + 5 * 42.2).epsilon(0.01));
+    const auto ends = csv_rows(test::read_text(out / "end_forces.csv"));
+    CHECK(ends.size() == 1 + 3 * 2 * 6);
+  }
+  SECTION("the frame stability and EN 1993 checks are in results.json") {
+    bool stability = false, buckling = false;
+    for (const auto& c : j["checks"]) {
+      if (c["check"] == "frame stability") stability = c["member"].is_null();
+      if (c["check"] == "6.3.1 flexural buckling") buckling = true;
+    }
+    CHECK(stability);
+    CHECK(buckling);
+  }
+}

@@ -1,0 +1,78 @@
+// Report pictures: not blank, and the colour scale spans the stresses drawn.
+
+#include "stepframe/viz/picture.hpp"
+
+#include <catch2/catch.hpp>
+#include <vtkImageData.h>
+#include <vtkNew.h>
+#include <vtkPNGReader.h>
+
+#include <set>
+
+using namespace stepframe;
+
+namespace {
+
+analysis::LoadResult two_member_result() {
+  analysis::LoadResult result;
+  result.name = "ULS";
+  for (int m = 0; m < 2; ++m) {
+    analysis::LineResult line;
+    for (int k = 0; k <= 4; ++k) {
+      analysis::Station s;
+      s.x = 0.5 * k;
+      s.position = m == 0 ? Eigen::Vector3d(s.x, 0, 0) : Eigen::Vector3d(2, 0, s.x);
+      s.displacement = Eigen::Vector3d(0, 0, -0.001 * k * m);
+      s.von_mises = 50e6 * (m * 4 + k);  // 0 .. 400 MPa
+      line.stations.push_back(s);
+    }
+    result.members.push_back(line);
+  }
+  return result;
+}
+
+analysis::FrameModel two_member_model() {
+  analysis::FrameModel model;
+  model.nodes = {{0, 0, 0}, {2, 0, 0}, {2, 0, 2}};
+  return model;
+}
+
+}  // namespace
+
+TEST_CASE("the stress picture is a real PNG with the colour scale drawn") {
+  const auto picture = viz::draw_stress_picture(two_member_model(), two_member_result(), {400, 300, false, 0});
+  REQUIRE(picture.png.size() > 100);
+  CHECK(picture.png[1] == 'P');  // PNG signature, ISO/IEC 15948 5.2
+  CHECK(picture.png[2] == 'N');
+  CHECK(picture.stress_max == Approx(400e6));
+
+  vtkNew<vtkPNGReader> reader;
+  reader->SetMemoryBuffer(picture.png.data());
+  reader->SetMemoryBufferLength(static_cast<vtkIdType>(picture.png.size()));
+  reader->Update();
+  vtkImageData* image = reader->GetOutput();
+  int dims[3];
+  image->GetDimensions(dims);
+  REQUIRE(dims[0] == 400);
+  REQUIRE(dims[1] == 300);
+  std::size_t coloured = 0;
+  std::set<std::array<int, 3>> colours;
+  for (int y = 0; y < dims[1]; ++y)
+    for (int x = 0; x < dims[0]; ++x) {
+      const auto* p = static_cast<unsigned char*>(image->GetScalarPointer(x, y, 0));
+      if (p[0] == 255 && p[1] == 255 && p[2] == 255) continue;
+      ++coloured;
+      colours.insert({p[0], p[1], p[2]});
+    }
+  CHECK(coloured > 500);  // two members, 3 px wide
+  // Both ends of the scale appear: low stresses near blue, the highest near red.
+  const auto low = viz::stress_colour(0.0625), high = viz::stress_colour(0.9375);
+  CHECK(colours.count({low[0], low[1], low[2]}) == 1);
+  CHECK(colours.count({high[0], high[1], high[2]}) == 1);
+}
+
+TEST_CASE("the colour scale runs from blue to red") {
+  CHECK(viz::stress_colour(0.0) == std::array<std::uint8_t, 3>{0, 0, 255});
+  CHECK(viz::stress_colour(1.0) == std::array<std::uint8_t, 3>{220, 0, 0});
+  CHECK(viz::stress_colour(-1.0) == viz::stress_colour(0.0));
+}
