@@ -26,19 +26,25 @@ ExitStatus Analysis::status() const {
   return all_pass ? ExitStatus::pass : ExitStatus::check_failed;
 }
 
-Analysis analyse_project(const std::filesystem::path& project_file, const ProgressCallback& progress) {
-  auto report = [&](std::string_view stage, double fraction) {
-    if (progress) progress(stage, fraction);
-  };
-  Analysis a;
-  report("project", 0);
-  a.project = read_project(project_file);
-  spdlog::info("project {}: model {}", project_file.string(), a.project.model.string());
+Analysis analyse_project(const std::filesystem::path& project_file, const RunControl& control) {
+  control.report("project", 0);
+  auto project = read_project(project_file);
+  spdlog::info("project {}: model {}", project_file.string(), project.model.string());
 
-  report("geometry", 0);
-  const auto step = geometry::read_step(a.project.model);
+  control.report("geometry", 0);
+  const auto step = geometry::read_step(project.model);
+  return analyse_model(std::move(project), step, control);
+}
+
+Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control) {
+  auto report = [&](std::string_view stage, double fraction) { control.report(stage, fraction); };
+  Analysis a;
+  a.project = std::move(project);
   a.file_length_unit = step.length_unit;
-  a.wireframe = geometry::build_wireframe(step, a.project.merge_tolerance);
+  geometry::WireframeOptions wireframe_options;
+  wireframe_options.merge_tolerance = a.project.merge_tolerance;
+  wireframe_options.curve_max_turn = a.project.curve_max_turn;
+  a.wireframe = geometry::build_wireframe(step, wireframe_options);
   spdlog::info("{}: {} members, {} nodes (file unit {})", a.project.model.string(), a.wireframe.members.size(),
                a.wireframe.nodes.size(), step.length_unit);
   for (const auto& d : a.wireframe.diagnostics)
@@ -55,19 +61,26 @@ Analysis analyse_project(const std::filesystem::path& project_file, const Progre
 
   analysis::SolveOptions options;
   options.progress = [&](double f) { report("solve", f); };
+  options.buckling_modes = a.project.buckling_modes;
   a.results = analysis::solve(a.built.model, options);
 
   report("checks", 0);
   const auto& spec = a.project.checks;
-  if (spec.stress) {
-    auto r = analysis::check_stress(a.built.model, pick(a.results, spec.stress->combinations));
-    a.checks.insert(a.checks.end(), r.begin(), r.end());
-  }
+  const auto& model = a.built.model;
+  auto add = [&](std::vector<analysis::CheckResult> r) { a.checks.insert(a.checks.end(), r.begin(), r.end()); };
+  if (spec.stress) add(analysis::check_stress(model, pick(a.results, spec.stress->combinations), spec.gamma_M0));
   if (spec.deflection) {
-    auto r = analysis::check_deflection(a.built.model, pick(a.results, spec.deflection->combinations),
-                                        spec.deflection->span_ratio);
-    a.checks.insert(a.checks.end(), r.begin(), r.end());
+    // A rule's deflection_ratio sets the limit of its members; the check's span_ratio the rest.
+    std::vector<double> ratios;
+    for (const auto& r : a.built.deflection_ratio) ratios.push_back(r.value_or(spec.deflection->span_ratio));
+    add(analysis::check_deflection(model, pick(a.results, spec.deflection->combinations), ratios));
   }
+  if (spec.drift) add(analysis::check_drift(model, pick(a.results, spec.drift->combinations), spec.drift->storey_ratio));
+  if (spec.en1993)
+    add(analysis::en1993::check_members(model, pick(a.results, spec.en1993->combinations), a.built.buckling,
+                                        {spec.gamma_M0, spec.gamma_M1}));
+  if (spec.stability)
+    add(analysis::check_frame_stability(pick(a.results, spec.stability->combinations), spec.stability->alpha_cr_min));
   report("checks", 1);
   return a;
 }

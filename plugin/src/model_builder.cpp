@@ -77,20 +77,25 @@ class Library {
  public:
   explicit Library(const Project& p) : project_(p) {}
 
+  // Lookups are remembered by the text asked for: thousands of members repeat a few names.
   std::optional<std::size_t> section(const std::string& name, analysis::FrameModel& model) {
+    if (auto hit = section_lookups_.find(name); hit != section_lookups_.end()) return hit->second;
     std::optional<analysis::Section> found;
     if (auto it = project_.sections.find(name); it != project_.sections.end()) found = it->second;
     else found = analysis::find_catalogue_section(name);
-    if (!found) return std::nullopt;
-    return intern(model.sections, section_index_, *found, found->designation);
+    std::optional<std::size_t> index;
+    if (found) index = intern(model.sections, section_index_, *found, found->designation);
+    return section_lookups_[name] = index;
   }
 
   std::optional<std::size_t> material(const std::string& name, analysis::FrameModel& model) {
+    if (auto hit = material_lookups_.find(name); hit != material_lookups_.end()) return hit->second;
     std::optional<analysis::Material> found;
     if (auto it = project_.materials.find(name); it != project_.materials.end()) found = it->second;
     else found = analysis::find_standard_material(name);
-    if (!found) return std::nullopt;
-    return intern(model.materials, material_index_, *found, found->name);
+    std::optional<std::size_t> index;
+    if (found) index = intern(model.materials, material_index_, *found, found->name);
+    return material_lookups_[name] = index;
   }
 
   /// The first phrase of the member's name, product, then layers that names a section / material.
@@ -104,13 +109,14 @@ class Library {
     return std::nullopt;
   }
 
-  std::vector<std::string> known_sections() const {
-    auto names = analysis::catalogue_designations();
-    for (const auto& [name, s] : project_.sections) names.push_back(name);
+  /// Catalogue designations close to `name` (same family first) and the project's own sections.
+  std::vector<std::string> sections_like(const std::string& name) const {
+    auto names = analysis::nearest_designations(name, 3);
+    for (const auto& [custom, s] : project_.sections) names.push_back(custom);
     return names;
   }
   std::vector<std::string> known_materials() const {
-    std::vector<std::string> names{"S235", "S275", "S355", "A992", "A36"};
+    auto names = analysis::standard_material_names();
     for (const auto& [name, m] : project_.materials) names.push_back(name);
     return names;
   }
@@ -126,10 +132,49 @@ class Library {
 
   const Project& project_;
   std::map<std::string, std::size_t> section_index_, material_index_;
+  std::map<std::string, std::optional<std::size_t>> section_lookups_, material_lookups_;
 };
 
+// Nodes that named or layered points of the CAD file sit on.
+std::vector<std::size_t> select_labelled_nodes(const NodeSelector& sel, const std::vector<geometry::NodeLabel>& labels) {
+  const auto compile = [](const std::optional<std::string>& p) -> std::optional<std::regex> {
+    if (!p) return std::nullopt;
+    return std::regex(*p, std::regex::icase);
+  };
+  const auto name = compile(sel.point_name);
+  const auto layer = compile(sel.point_layer);
+  std::vector<std::size_t> out;
+  for (const auto& label : labels) {
+    if (name && !std::regex_match(label.source.name, *name)) continue;
+    if (layer && std::none_of(label.source.layers.begin(), label.source.layers.end(),
+                              [&](const std::string& l) { return std::regex_match(l, *layer); }))
+      continue;
+    if (std::find(out.begin(), out.end(), label.node) == out.end()) out.push_back(label.node);
+  }
+  if (out.empty()) {
+    std::vector<std::string> known;
+    for (const auto& label : labels) {
+      if (!label.source.name.empty()) known.push_back("name '" + label.source.name + "'");
+      for (const auto& l : label.source.layers) known.push_back("layer '" + l + "'");
+    }
+    std::sort(known.begin(), known.end());
+    known.erase(std::unique(known.begin(), known.end()), known.end());
+    constexpr std::size_t shown = 12;
+    std::string listed;
+    for (std::size_t i = 0; i < known.size() && i < shown; ++i) listed += (i ? ", " : "") + known[i];
+    if (known.size() > shown) listed += fmt::format(" and {} more", known.size() - shown);
+    throw InputError(fmt::format("{}: no named or layered point of the model matches{}{}; {}", sel.origin.describe(),
+                                 sel.point_name ? " point_name '" + *sel.point_name + "'" : std::string(),
+                                 sel.point_layer ? " point_layer '" + *sel.point_layer + "'" : std::string(),
+                                 known.empty() ? std::string("the model has no named or layered points (see `stepframe inspect`)")
+                                               : "the model's points have " + listed));
+  }
+  return out;
+}
+
 std::vector<std::size_t> select_nodes(const NodeSelector& sel, const std::vector<Eigen::Vector3d>& nodes,
-                                      double tolerance) {
+                                      const std::vector<geometry::NodeLabel>& labels, double tolerance) {
+  if (sel.point_name || sel.point_layer) return select_labelled_nodes(sel, labels);
   std::vector<std::size_t> out;
   if (sel.near) {
     std::size_t best = 0;
@@ -164,11 +209,78 @@ std::vector<std::size_t> select_nodes(const NodeSelector& sel, const std::vector
   return out;
 }
 
+analysis::LoadAxes load_axes(LoadAxesSpec axes) {
+  switch (axes) {
+    case LoadAxesSpec::local: return analysis::LoadAxes::local;
+    case LoadAxesSpec::projected: return analysis::LoadAxes::projected;
+    case LoadAxesSpec::global: break;
+  }
+  return analysis::LoadAxes::global;
+}
+
+// A member load given along the member (from/to/at measured from its start)
+// as loads on the elements of its chain: a distributed load is cut at the
+// element ends with its intensity interpolated linearly; a point load goes to
+// the element that holds its position.
+void add_member_load(const analysis::FrameModel& model, std::size_t m, const MemberLoadSpec& load,
+                     const geometry::SourceInfo& source, analysis::LoadCase& lc) {
+  const auto& chain = model.members[m].elements;
+  std::vector<double> starts{0.0};
+  for (std::size_t e : chain) {
+    const auto& el = model.elements[e];
+    starts.push_back(starts.back() + (model.nodes[el.nodes[1]] - model.nodes[el.nodes[0]]).norm());
+  }
+  const double length = starts.back();
+  const double slack = 1e-9 * length;
+  auto outside = [&](double x, const char* key) {
+    return InputError(fmt::format("{}: member {} is {:.4g} m long, but the load's '{}' is {:.4g} m from its start; "
+                                  "check the distance and the project's length unit",
+                                  load.where.origin.describe(), describe_member(source), length, key, x));
+  };
+  const bool plain = !load.at && !load.from && !load.to && !load.w_end && load.axes == LoadAxesSpec::global;
+  if (plain) {  // the common case: uniform global load on the whole member
+    for (std::size_t e : chain) lc.element_loads.push_back({e, load.w});
+    return;
+  }
+  if (load.at) {
+    if (*load.at > length + slack) throw outside(*load.at, "at");
+    std::size_t k = 0;
+    while (k + 1 < chain.size() && *load.at > starts[k + 1]) ++k;
+    analysis::ElementLoad point;
+    point.element = chain[k];
+    point.axes = load_axes(load.axes);
+    point.point = true;
+    point.a = std::clamp(*load.at - starts[k], 0.0, starts[k + 1] - starts[k]);
+    point.w_start = load.w;
+    lc.partial_loads.push_back(point);
+    return;
+  }
+  const double from = load.from.value_or(0.0), to = load.to.value_or(length);
+  if (from > length + slack) throw outside(from, "from");
+  if (to > length + slack) throw outside(to, "to");
+  const Eigen::Vector3d w_from = load.w, w_to = load.w_end.value_or(load.w);
+  auto intensity = [&](double x) -> Eigen::Vector3d { return w_from + (w_to - w_from) * ((x - from) / (to - from)); };
+  for (std::size_t k = 0; k < chain.size(); ++k) {
+    const double a = std::max(from, starts[k]), b = std::min(to, starts[k + 1]);
+    if (!(b > a)) continue;
+    analysis::ElementLoad part;
+    part.element = chain[k];
+    part.axes = load_axes(load.axes);
+    part.a = a - starts[k];
+    part.b = b - starts[k];
+    part.w_start = intensity(a);
+    part.w_end = intensity(b);
+    lc.partial_loads.push_back(part);
+  }
+}
+
 }  // namespace
 
 BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& wireframe) {
   BuiltModel built;
   auto& model = built.model;
+  model.settings.shear_deformation = project.shear_deformation;
+  model.settings.second_order = project.second_order;
   model.nodes = wireframe.nodes;
   Library library(project);
 
@@ -176,12 +288,13 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
   for (const auto& rule : project.rules) {
     if (rule.section && !library.section(*rule.section, model))
       throw InputError(rule.where.origin.describe() + ": unknown section '" + *rule.section + "'" +
-                       did_you_mean(*rule.section, library.known_sections()) +
+                       did_you_mean(*rule.section, library.sections_like(*rule.section)) +
                        " Define it under 'sections:' or use a catalogue designation such as IPE300 or HEB200.");
     if (rule.material && !library.material(*rule.material, model))
       throw InputError(rule.where.origin.describe() + ": unknown material '" + *rule.material + "'" +
                        did_you_mean(*rule.material, library.known_materials()) +
-                       " Define it under 'materials:' or use S235, S275, S355, A992 or A36.");
+                       " Define it under 'materials:' or use a standard grade (`stepframe sections` lists sections; "
+                       "grades: S235, S275, S355, S460, S355H, A992, A36, A572 Gr. 50, A500 Gr. B/C).");
   }
 
   std::vector<CompiledSelector> rule_selectors;
@@ -191,12 +304,20 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
   for (const auto& wm : wireframe.members) {
     std::optional<std::size_t> section, material;
     double roll = 0;
+    std::array<std::array<bool, 6>, 2> release{};
+    analysis::en1993::BucklingLengths buckling;
+    std::optional<double> deflection_ratio;
     for (std::size_t r = 0; r < project.rules.size(); ++r) {
       const auto& rule = project.rules[r];
       if (!rule_selectors[r].matches(wm.source)) continue;
       if (rule.section) section = library.section(*rule.section, model);
       if (rule.material) material = library.material(*rule.material, model);
       if (rule.roll) roll = *rule.roll;
+      if (rule.release) release = *rule.release;
+      if (rule.buckling_y) buckling.y = *rule.buckling_y;
+      if (rule.buckling_z) buckling.z = *rule.buckling_z;
+      if (rule.buckling_lt) buckling.lt = *rule.buckling_lt;
+      if (rule.deflection_ratio) deflection_ratio = rule.deflection_ratio;
     }
     if (!section)
       section = library.from_attributes(wm.source, [&](const std::string& s) { return library.section(s, model); });
@@ -209,10 +330,17 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
     analysis::Member member;
     for (std::size_t k = 1; k < wm.nodes.size(); ++k) {
       member.elements.push_back(model.elements.size());
-      model.elements.push_back({{wm.nodes[k - 1], wm.nodes[k]}, section.value_or(0), material.value_or(0), roll});
+      model.elements.push_back({{wm.nodes[k - 1], wm.nodes[k]}, section.value_or(0), material.value_or(0), roll, {}});
+    }
+    // Releases act at the member's ends: the start of its first element, the end of its last.
+    if (!member.elements.empty()) {
+      model.elements[member.elements.front()].releases[0] = release[0];
+      model.elements[member.elements.back()].releases[1] = release[1];
     }
     model.members.push_back(std::move(member));
     built.member_sources.push_back(wm.source);
+    built.buckling.push_back(buckling);
+    built.deflection_ratio.push_back(deflection_ratio);
   }
 
   auto list = [](const std::vector<std::string>& items) {
@@ -236,12 +364,21 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
 
   const double tol = project.merge_tolerance;
   for (const auto& spec : project.supports)
-    for (std::size_t node : select_nodes(spec.where, model.nodes, tol)) {
+    for (std::size_t node : select_nodes(spec.where, model.nodes, wireframe.labels, tol)) {
       auto existing = std::find_if(model.supports.begin(), model.supports.end(),
                                    [&](const analysis::Support& s) { return s.node == node; });
-      if (existing == model.supports.end()) model.supports.push_back({node, spec.fixed});
-      else
-        for (std::size_t d = 0; d < 6; ++d) existing->fixed[d] = existing->fixed[d] || spec.fixed[d];
+      if (existing == model.supports.end()) {
+        analysis::Support support;
+        support.node = node;
+        support.fixed = spec.fixed;
+        support.spring = spec.spring;
+        model.supports.push_back(support);
+      } else {
+        for (std::size_t d = 0; d < 6; ++d) {
+          existing->fixed[d] = existing->fixed[d] || spec.fixed[d];
+          existing->spring[d] += spec.spring[d];
+        }
+      }
     }
 
   for (const auto& spec : project.cases) {
@@ -253,7 +390,7 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
       bool any = false;
       for (std::size_t m = 0; m < model.members.size(); ++m)
         if (where.matches(built.member_sources[m])) {
-          for (std::size_t e : model.members[m].elements) lc.element_loads.push_back({e, load.w});
+          add_member_load(model, m, load, built.member_sources[m], lc);
           any = true;
         }
       if (!any)
@@ -261,8 +398,23 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
                          ": matches no member; check the name/layer/product patterns against `stepframe inspect`");
     }
     for (const auto& load : spec.node_loads)
-      for (std::size_t node : select_nodes(load.where, model.nodes, tol))
+      for (std::size_t node : select_nodes(load.where, model.nodes, wireframe.labels, tol))
         lc.node_loads.push_back({node, load.force, load.moment});
+    for (const auto& settlement : spec.settlements)
+      for (std::size_t node : select_nodes(settlement.where, model.nodes, wireframe.labels, tol))
+        for (int d = 0; d < 6; ++d) {
+          const auto& value = settlement.value[static_cast<std::size_t>(d)];
+          if (!value) continue;
+          const auto support = std::find_if(model.supports.begin(), model.supports.end(),
+                                            [&](const analysis::Support& s) { return s.node == node; });
+          if (support == model.supports.end() || !support->fixed[static_cast<std::size_t>(d)])
+            throw InputError(fmt::format("{}: node {} is not fixed in {} by any support; a settlement moves a "
+                                         "support, so add one that fixes {} there",
+                                         settlement.where.origin.describe(), node,
+                                         analysis::dof_names[static_cast<std::size_t>(d)],
+                                         analysis::dof_names[static_cast<std::size_t>(d)]));
+          lc.settlements.push_back({node, d, *value});
+        }
     model.cases.push_back(std::move(lc));
   }
 

@@ -1,5 +1,8 @@
 #include "stepframe/project_reader.hpp"
 
+#include "stepframe/analysis/element_releases.hpp"
+#include "stepframe/analysis/section_shapes.hpp"
+
 #include "stepframe/errors.hpp"
 #include "stepframe/suggest.hpp"
 #include "stepframe/units.hpp"
@@ -188,7 +191,8 @@ analysis::Section read_section(const Reader& r, const YAML::Node& node, const st
     *target = r.number(node[key], path + "." + k, dim);
     if (!(*target > 0)) r.fail(node[key], path + "." + k, "must be positive");
   }
-  return s;
+  // A depth x width outline with its corners as stress points, for the 3D view and fibre stresses.
+  return analysis::custom_section(name, s.A, s.Iy, s.Iz, s.J, s.depth, s.width);
 }
 
 MemberSelector read_member_selector(const Reader& r, const YAML::Node& node, const std::string& path) {
@@ -215,7 +219,20 @@ MemberSelector read_member_selector(const Reader& r, const YAML::Node& node, con
 NodeSelector read_node_selector(const Reader& r, const YAML::Node& node, const std::string& path) {
   NodeSelector sel;
   sel.origin = r.where(node, path);
-  r.check_keys(node, path, {"x", "y", "z", "near"});
+  r.check_keys(node, path, {"x", "y", "z", "near", "point_name", "point_layer"});
+  for (const char* key : {"point_name", "point_layer"}) {
+    if (!node[key]) continue;
+    if (node["near"] || node["x"] || node["y"] || node["z"])
+      r.fail(node, path, std::string("use either '") + key + "' or coordinates (near, x, y, z), not both");
+    const auto pattern = r.text(node[key], path + "." + key);
+    try {
+      std::regex check(pattern, std::regex::icase);
+    } catch (const std::regex_error& e) {
+      r.fail(node[key], path + "." + key, "'" + pattern + "' is not a valid regular expression (" + e.what() + ")");
+    }
+    (std::string(key) == "point_name" ? sel.point_name : sel.point_layer) = pattern;
+  }
+  if (sel.point_name || sel.point_layer) return sel;
   if (node["near"]) {
     if (node["x"] || node["y"] || node["z"])
       r.fail(node, path, "use either 'near' or planes (x, y, z), not both");
@@ -225,7 +242,9 @@ NodeSelector read_node_selector(const Reader& r, const YAML::Node& node, const s
   if (node["y"]) sel.y = r.number(node["y"], path + ".y", dimension::length);
   if (node["z"]) sel.z = r.number(node["z"], path + ".z", dimension::length);
   if (!sel.near && !sel.x && !sel.y && !sel.z)
-    r.fail(node, path, "give a plane such as {z: 0} or a point such as {near: [0, 0, 0]}");
+    r.fail(node, path,
+           "give a plane such as {z: 0}, a point such as {near: [0, 0, 0]} or a named point such as "
+           "{point_name: BASE-A}");
   return sel;
 }
 
@@ -251,8 +270,70 @@ std::array<bool, 6> read_fixity(const Reader& r, const YAML::Node& node, const s
   return fixed;
 }
 
+// A list of direction names (ux uy uz rx ry rz) as flags.
+std::array<bool, 6> read_directions(const Reader& r, const YAML::Node& node, const std::string& path) {
+  static const std::vector<std::string> names{"ux", "uy", "uz", "rx", "ry", "rz"};
+  std::array<bool, 6> flags{};
+  r.expect_list(node, path);
+  for (std::size_t i = 0; i < node.size(); ++i) {
+    const auto dof = r.text(node[i], Reader::index(path, i));
+    const auto it = std::find(names.begin(), names.end(), dof);
+    if (it == names.end())
+      r.fail(node[i], Reader::index(path, i), "'" + dof + "' is not one of ux, uy, uz, rx, ry, rz" + did_you_mean(dof, names));
+    flags[static_cast<std::size_t>(it - names.begin())] = true;
+  }
+  return flags;
+}
+
+// Per-direction values {ux: ..., ry: ...}: translations in `translation`, rotations in `rotation`.
+std::array<std::optional<double>, 6> read_per_direction(const Reader& r, const YAML::Node& node, const std::string& path,
+                                                        Dimension translation, Dimension rotation) {
+  static const std::vector<std::string> names{"ux", "uy", "uz", "rx", "ry", "rz"};
+  r.check_keys(node, path, names);
+  std::array<std::optional<double>, 6> values{};
+  for (std::size_t d = 0; d < 6; ++d)
+    if (node[names[d]]) values[d] = r.number(node[names[d]], path + "." + names[d], d < 3 ? translation : rotation);
+  return values;
+}
+
+MemberLoadSpec read_member_load(const Reader& r, const YAML::Node& node, const std::string& p) {
+  r.check_keys(node, p, {"where", "w", "w_end", "from", "to", "point", "at", "axes"});
+  MemberLoadSpec load;
+  load.where = read_member_selector(r, node["where"], p + ".where");
+  if (node["w"] && node["point"]) r.fail(node, p, "a member load is either distributed (w) or a point load (point), not both");
+  if (node["point"]) {
+    if (!node["at"]) r.fail(node, p, "a point load needs at: its distance from the member's start");
+    if (node["w_end"] || node["from"] || node["to"])
+      r.fail(node, p, "w_end, from and to belong to distributed loads; a point load has point and at");
+    load.w = r.vector3(node["point"], p + ".point", dimension::force);
+    load.at = r.number(node["at"], p + ".at", dimension::length);
+    if (*load.at < 0) r.fail(node["at"], p + ".at", "must not be negative (a distance from the member's start)");
+  } else {
+    if (!node["w"])
+      r.fail(node, p, "a member load needs w: [wx, wy, wz] (force per length) or point: [fx, fy, fz] with at:");
+    if (node["at"]) r.fail(node["at"], p + ".at", "'at' belongs to point loads; use from/to for a distributed load");
+    load.w = r.vector3(node["w"], p + ".w", dimension::line_load);
+    if (node["w_end"]) load.w_end = r.vector3(node["w_end"], p + ".w_end", dimension::line_load);
+    if (node["from"]) load.from = r.number(node["from"], p + ".from", dimension::length);
+    if (node["to"]) load.to = r.number(node["to"], p + ".to", dimension::length);
+    if (load.from && *load.from < 0) r.fail(node["from"], p + ".from", "must not be negative (a distance from the member's start)");
+    if (load.from && load.to && !(*load.to > *load.from))
+      r.fail(node["to"], p + ".to", "must be greater than 'from'");
+  }
+  if (node["axes"]) {
+    const auto axes = r.text(node["axes"], p + ".axes");
+    if (axes == "global") load.axes = LoadAxesSpec::global;
+    else if (axes == "local") load.axes = LoadAxesSpec::local;
+    else if (axes == "projected") load.axes = LoadAxesSpec::projected;
+    else r.fail(node["axes"], p + ".axes", "'" + axes + "' is not global, local or projected");
+    if (load.axes == LoadAxesSpec::projected && load.at)
+      r.fail(node["axes"], p + ".axes", "a point load is a force, not a load per projected length; use global or local");
+  }
+  return load;
+}
+
 CaseSpec read_case(const Reader& r, const YAML::Node& node, const std::string& path) {
-  r.check_keys(node, path, {"name", "self_weight", "member_loads", "node_loads"});
+  r.check_keys(node, path, {"name", "self_weight", "member_loads", "node_loads", "settlements"});
   CaseSpec c;
   c.origin = r.where(node, path);
   if (!node["name"]) r.fail(node, path, "a load case needs a name");
@@ -261,13 +342,20 @@ CaseSpec read_case(const Reader& r, const YAML::Node& node, const std::string& p
   if (const auto loads = node["member_loads"]) {
     r.expect_list(loads, path + ".member_loads");
     for (std::size_t i = 0; i < loads.size(); ++i) {
-      const auto p = Reader::index(path + ".member_loads", i);
-      r.check_keys(loads[i], p, {"where", "w"});
-      MemberLoadSpec load;
-      load.where = read_member_selector(r, loads[i]["where"], p + ".where");
-      if (!loads[i]["w"]) r.fail(loads[i], p, "a member load needs w: [wx, wy, wz] (force per length, global axes)");
-      load.w = r.vector3(loads[i]["w"], p + ".w", dimension::line_load);
-      c.member_loads.push_back(std::move(load));
+      c.member_loads.push_back(read_member_load(r, loads[i], Reader::index(path + ".member_loads", i)));
+    }
+  }
+  if (const auto list = node["settlements"]) {
+    r.expect_list(list, path + ".settlements");
+    for (std::size_t i = 0; i < list.size(); ++i) {
+      const auto p = Reader::index(path + ".settlements", i);
+      r.check_keys(list[i], p, {"where", "displacement"});
+      if (!list[i]["where"]) r.fail(list[i], p, "a settlement needs where: {near: [x, y, z]} or a plane");
+      if (!list[i]["displacement"]) r.fail(list[i], p, "a settlement needs displacement: {uz: -10} (lengths; rotations in rad)");
+      SettlementSpec s;
+      s.where = read_node_selector(r, list[i]["where"], p + ".where");
+      s.value = read_per_direction(r, list[i]["displacement"], p + ".displacement", dimension::length, dimension::none);
+      c.settlements.push_back(std::move(s));
     }
   }
   if (const auto loads = node["node_loads"]) {
@@ -308,22 +396,14 @@ std::vector<std::string> read_name_list(const Reader& r, const YAML::Node& node,
   return names;
 }
 
-}  // namespace
-
-Project read_project(const std::filesystem::path& file) {
-  YAML::Node root;
-  try {
-    root = YAML::LoadFile(file.string());
-  } catch (const YAML::BadFile&) {
-    throw InputError(file.string() + ": cannot open the project file; check the path");
-  } catch (const YAML::ParserException& e) {
-    throw InputError(file.string() + ":" + std::to_string(e.mark.line + 1) + ": not valid YAML: " + e.msg);
-  }
-
+// The shared core of read_project and read_project_text: `file` names the
+// project in messages, `base_dir` is where a relative `model:` is found.
+Project read_project_root(const YAML::Node& root, const std::filesystem::path& file,
+                          const std::filesystem::path& base_dir) {
   Reader r(file);
   if (!root.IsMap()) throw InputError(file.string() + ": a project file is a YAML mapping with at least 'model:'");
-  r.check_keys(root, "", {"model", "units", "merge_tolerance", "materials", "sections", "rules", "supports", "cases",
-                          "combinations", "checks"});
+  r.check_keys(root, "", {"model", "units", "merge_tolerance", "curve_max_turn", "materials", "sections", "rules", "supports", "cases",
+                          "combinations", "checks", "analysis"});
   r.units_ = read_units(r, root["units"]);
 
   Project p;
@@ -331,11 +411,18 @@ Project read_project(const std::filesystem::path& file) {
   p.length_unit = r.units_.length_name;
   p.force_unit = r.units_.force_name;
   if (!root["model"]) r.fail(root, "model", "the project needs 'model:' naming the STEP file");
-  p.model = file.parent_path() / r.text(root["model"], "model");
+  p.model = base_dir / r.text(root["model"], "model");
 
   if (root["merge_tolerance"]) {
     p.merge_tolerance = r.number(root["merge_tolerance"], "merge_tolerance", dimension::length);
     if (!(p.merge_tolerance > 0)) r.fail(root["merge_tolerance"], "merge_tolerance", "must be positive");
+  }
+  if (root["curve_max_turn"]) {
+    // Degrees of tangent turn per element of a curved member (arcs, splines).
+    const double degrees = r.number(root["curve_max_turn"], "curve_max_turn", dimension::none);
+    if (!(degrees > 0 && degrees <= 90))
+      r.fail(root["curve_max_turn"], "curve_max_turn", "must be an angle in degrees above 0 and at most 90, e.g. 5");
+    p.curve_max_turn = degrees * std::numbers::pi / 180.0;
   }
 
   if (const auto node = root["materials"]) {
@@ -357,15 +444,41 @@ Project read_project(const std::filesystem::path& file) {
     r.expect_list(node, "rules");
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("rules", i);
-      r.check_keys(node[i], path, {"where", "section", "material", "roll"});
+      r.check_keys(node[i], path, {"where", "section", "material", "roll", "release", "buckling", "deflection_ratio"});
       Rule rule;
       rule.where = read_member_selector(r, node[i]["where"], path + ".where");
       if (node[i]["section"]) rule.section = r.text(node[i]["section"], path + ".section");
       if (node[i]["material"]) rule.material = r.text(node[i]["material"], path + ".material");
       if (node[i]["roll"])
         rule.roll = r.number(node[i]["roll"], path + ".roll", dimension::none) * std::numbers::pi / 180.0;
-      if (!rule.section && !rule.material && !rule.roll)
-        r.fail(node[i], path, "a rule sets at least one of section, material, roll");
+      if (const auto release = node[i]["release"]) {
+        r.check_keys(release, path + ".release", {"start", "end"});
+        std::array<std::array<bool, 6>, 2> ends{};
+        if (release["start"]) ends[0] = read_directions(r, release["start"], path + ".release.start");
+        if (release["end"]) ends[1] = read_directions(r, release["end"], path + ".release.end");
+        if (const auto mechanism = analysis::release_mechanism(ends))
+          r.fail(release, path + ".release",
+                 "these releases leave a member free to move on its own (" + *mechanism +
+                     "); keep that direction fixed at one end, e.g. release rx or ux at one end only");
+        rule.release = ends;
+      }
+      if (const auto buckling = node[i]["buckling"]) {
+        r.check_keys(buckling, path + ".buckling", {"y", "z", "lt"});
+        const std::pair<const char*, std::optional<double>*> factors[] = {
+            {"y", &rule.buckling_y}, {"z", &rule.buckling_z}, {"lt", &rule.buckling_lt}};
+        for (const auto& [key, target] : factors) {
+          if (!buckling[key]) continue;
+          *target = r.number(buckling[key], path + ".buckling." + key, dimension::none);
+          if (!(**target > 0)) r.fail(buckling[key], path + ".buckling." + key, "a buckling length factor is positive, e.g. 1.0");
+        }
+      }
+      if (node[i]["deflection_ratio"]) {
+        rule.deflection_ratio = r.number(node[i]["deflection_ratio"], path + ".deflection_ratio", dimension::none);
+        if (!(*rule.deflection_ratio > 0)) r.fail(node[i]["deflection_ratio"], path + ".deflection_ratio", "must be positive, e.g. 250 for L/250");
+      }
+      if (!rule.section && !rule.material && !rule.roll && !rule.release && !rule.buckling_y && !rule.buckling_z &&
+          !rule.buckling_lt && !rule.deflection_ratio)
+        r.fail(node[i], path, "a rule sets at least one of section, material, roll, release, buckling, deflection_ratio");
       p.rules.push_back(std::move(rule));
     }
   }
@@ -374,11 +487,20 @@ Project read_project(const std::filesystem::path& file) {
     r.expect_list(node, "supports");
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("supports", i);
-      r.check_keys(node[i], path, {"where", "fix"});
+      r.check_keys(node[i], path, {"where", "fix", "springs"});
       if (!node[i]["where"]) r.fail(node[i], path, "a support needs where: {z: 0} or where: {near: [x, y, z]}");
       SupportSpec s;
       s.where = read_node_selector(r, node[i]["where"], path + ".where");
-      s.fixed = read_fixity(r, node[i]["fix"], path + ".fix");
+      if (node[i]["fix"] || !node[i]["springs"]) s.fixed = read_fixity(r, node[i]["fix"], path + ".fix");
+      if (const auto springs = node[i]["springs"]) {
+        // Translational stiffness is force per length (the line-load unit), rotational force x length per radian.
+        const auto k = read_per_direction(r, springs, path + ".springs", dimension::line_load, dimension::moment);
+        for (std::size_t d = 0; d < 6; ++d) {
+          if (!k[d]) continue;
+          if (!(*k[d] > 0)) r.fail(springs, path + ".springs", "a spring stiffness must be positive");
+          s.spring[d] = *k[d];
+        }
+      }
       p.supports.push_back(std::move(s));
     }
   }
@@ -422,24 +544,50 @@ Project read_project(const std::filesystem::path& file) {
   }
 
   if (const auto node = root["checks"]) {
-    r.check_keys(node, "checks", {"stress", "deflection"});
+    r.check_keys(node, "checks", {"stress", "deflection", "en1993", "drift", "stability", "partial_factors"});
+    // A check's `combinations`, or every case and combination when it gives none.
+    auto names_for = [&](const YAML::Node& check, const std::string& path) {
+      return check["combinations"] ? read_name_list(r, check["combinations"], path + ".combinations", result_names)
+                                   : result_names;
+    };
+    auto positive_ratio = [&](const YAML::Node& value, const std::string& path, const char* example) {
+      const double ratio = r.number(value, path, dimension::none);
+      if (!(ratio > 0)) r.fail(value, path, std::string("must be positive, e.g. ") + example);
+      return ratio;
+    };
     if (const auto s = node["stress"]) {
       r.check_keys(s, "checks.stress", {"combinations"});
-      StressCheckSpec spec;
-      if (s["combinations"]) spec.combinations = read_name_list(r, s["combinations"], "checks.stress.combinations", result_names);
-      else spec.combinations = result_names;
-      p.checks.stress = spec;
+      p.checks.stress = StressCheckSpec{names_for(s, "checks.stress")};
     }
     if (const auto d = node["deflection"]) {
       r.check_keys(d, "checks.deflection", {"span_ratio", "combinations"});
       DeflectionCheckSpec spec;
-      if (d["span_ratio"]) {
-        spec.span_ratio = r.number(d["span_ratio"], "checks.deflection.span_ratio", dimension::none);
-        if (!(spec.span_ratio > 0)) r.fail(d["span_ratio"], "checks.deflection.span_ratio", "must be positive, e.g. 300 for L/300");
-      }
-      if (d["combinations"]) spec.combinations = read_name_list(r, d["combinations"], "checks.deflection.combinations", result_names);
-      else spec.combinations = result_names;
+      if (d["span_ratio"]) spec.span_ratio = positive_ratio(d["span_ratio"], "checks.deflection.span_ratio", "300 for L/300");
+      spec.combinations = names_for(d, "checks.deflection");
       p.checks.deflection = spec;
+    }
+    if (const auto e = node["en1993"]) {
+      r.check_keys(e, "checks.en1993", {"combinations"});
+      p.checks.en1993 = En1993CheckSpec{names_for(e, "checks.en1993")};
+    }
+    if (const auto d = node["drift"]) {
+      r.check_keys(d, "checks.drift", {"storey_ratio", "combinations"});
+      DriftCheckSpec spec;
+      if (d["storey_ratio"]) spec.storey_ratio = positive_ratio(d["storey_ratio"], "checks.drift.storey_ratio", "300 for h/300");
+      spec.combinations = names_for(d, "checks.drift");
+      p.checks.drift = spec;
+    }
+    if (const auto st = node["stability"]) {
+      r.check_keys(st, "checks.stability", {"alpha_cr_min", "combinations"});
+      StabilityCheckSpec spec;
+      if (st["alpha_cr_min"]) spec.alpha_cr_min = positive_ratio(st["alpha_cr_min"], "checks.stability.alpha_cr_min", "10 (EN 1993-1-1 5.2.1(3))");
+      spec.combinations = names_for(st, "checks.stability");
+      p.checks.stability = spec;
+    }
+    if (const auto f = node["partial_factors"]) {
+      r.check_keys(f, "checks.partial_factors", {"gamma_M0", "gamma_M1"});
+      if (f["gamma_M0"]) p.checks.gamma_M0 = positive_ratio(f["gamma_M0"], "checks.partial_factors.gamma_M0", "1.0");
+      if (f["gamma_M1"]) p.checks.gamma_M1 = positive_ratio(f["gamma_M1"], "checks.partial_factors.gamma_M1", "1.0");
     }
   } else {
     // Without a checks block, screen stresses under every combination (every case when there are none).
@@ -448,7 +596,44 @@ Project read_project(const std::filesystem::path& file) {
     if (spec.combinations.empty()) spec.combinations = case_names;
     p.checks.stress = spec;
   }
+
+  if (const auto node = root["analysis"]) {
+    r.check_keys(node, "analysis", {"shear_deformation", "second_order", "buckling_modes"});
+    if (node["shear_deformation"]) p.shear_deformation = r.boolean(node["shear_deformation"], "analysis.shear_deformation");
+    if (node["second_order"]) p.second_order = r.boolean(node["second_order"], "analysis.second_order");
+    if (node["buckling_modes"]) {
+      const double n = r.number(node["buckling_modes"], "analysis.buckling_modes", dimension::none);
+      if (!(n >= 0 && n <= 20 && n == std::floor(n)))
+        r.fail(node["buckling_modes"], "analysis.buckling_modes", "must be a whole number from 0 (no buckling analysis) to 20");
+      p.buckling_modes = static_cast<std::size_t>(n);
+    }
+  }
   return p;
+}
+
+}  // namespace
+
+Project read_project(const std::filesystem::path& file) {
+  YAML::Node root;
+  try {
+    root = YAML::LoadFile(file.string());
+  } catch (const YAML::BadFile&) {
+    throw InputError(file.string() + ": cannot open the project file; check the path");
+  } catch (const YAML::ParserException& e) {
+    throw InputError(file.string() + ":" + std::to_string(e.mark.line + 1) + ": not valid YAML: " + e.msg);
+  }
+  return read_project_root(root, file, file.parent_path());
+}
+
+Project read_project_text(std::string_view yaml, const std::filesystem::path& base_dir,
+                          const std::string& display_name) {
+  YAML::Node root;
+  try {
+    root = YAML::Load(std::string(yaml));
+  } catch (const YAML::ParserException& e) {
+    throw InputError(display_name + ":" + std::to_string(e.mark.line + 1) + ": not valid YAML: " + e.msg);
+  }
+  return read_project_root(root, display_name, base_dir);
 }
 
 }  // namespace stepframe

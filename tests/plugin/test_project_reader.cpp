@@ -6,6 +6,7 @@
 
 #include <catch2/catch.hpp>
 
+#include <array>
 #include <numbers>
 
 using namespace stepframe;
@@ -147,4 +148,99 @@ TEST_CASE("errors name the file, the line and the key") {
     const auto e = error_of(dir, "model: f.stp\n");
     CHECK_THAT(e, Contains("no load case"));
   }
+}
+
+TEST_CASE("analysis settings, releases, springs, settlements and general member loads read into SI values") {
+  test::ScratchDir dir;
+  const auto p = read(dir, R"(model: frame.stp
+units: {length: mm, force: kN, stress: MPa, line_load: kN/m}
+analysis: {shear_deformation: true, second_order: true, buckling_modes: 2}
+rules:
+  - where: {layer: BRACES}
+    release: {start: [ry, rz], end: [rx, ry, rz]}
+supports:
+  - where: {z: 0}
+    fix: [ux, uy]
+    springs: {uz: "5000 kN/m", ry: "2000 kN*m"}
+cases:
+  - name: G
+    member_loads:
+      - where: {layer: BEAMS}
+        w: [0, 0, -4]
+        w_end: [0, 0, -10]
+        from: 1000
+        to: 2500
+        axes: projected
+      - where: {layer: BEAMS}
+        point: [0, 0, -20]
+        at: 1500
+        axes: local
+    settlements:
+      - where: {near: [0, 0, 0]}
+        displacement: {uz: -12, ry: 0.002}
+)");
+  CHECK(p.shear_deformation);
+  CHECK(p.second_order);
+  CHECK(p.buckling_modes == 2);
+  REQUIRE(p.rules.size() == 1);
+  REQUIRE(p.rules[0].release.has_value());
+  CHECK((*p.rules[0].release)[0] == std::array<bool, 6>{false, false, false, false, true, true});
+  CHECK((*p.rules[0].release)[1] == std::array<bool, 6>{false, false, false, true, true, true});
+  REQUIRE(p.supports.size() == 1);
+  CHECK(p.supports[0].fixed == std::array<bool, 6>{true, true, false, false, false, false});
+  CHECK(p.supports[0].spring[2] == Approx(5e6));   // N/m
+  CHECK(p.supports[0].spring[4] == Approx(2e6));   // N m per radian
+  const auto& loads = p.cases[0].member_loads;
+  REQUIRE(loads.size() == 2);
+  CHECK(loads[0].w.z() == Approx(-4e3));
+  CHECK(loads[0].w_end->z() == Approx(-10e3));
+  CHECK(*loads[0].from == Approx(1.0));
+  CHECK(*loads[0].to == Approx(2.5));
+  CHECK(loads[0].axes == LoadAxesSpec::projected);
+  CHECK(loads[1].w.z() == Approx(-20e3));  // N
+  CHECK(*loads[1].at == Approx(1.5));
+  CHECK(loads[1].axes == LoadAxesSpec::local);
+  REQUIRE(p.cases[0].settlements.size() == 1);
+  CHECK(*p.cases[0].settlements[0].value[2] == Approx(-0.012));
+  CHECK(*p.cases[0].settlements[0].value[4] == Approx(0.002));
+  CHECK_FALSE(p.cases[0].settlements[0].value[0].has_value());
+}
+
+TEST_CASE("errors in the analysis keys name the file, the line and the key") {
+  test::ScratchDir dir;
+  SECTION("an unknown release direction") {
+    const auto e = error_of(dir, std::string(minimal) + "rules:\n  - where: {}\n    release: {start: [ry, rq]}\n");
+    CHECK_THAT(e, Contains("p.yaml:8") && Contains("rules[0].release.start[1]") && Contains("'rq'"));
+  }
+  SECTION("a point load without its position") {
+    const auto e = error_of(dir, "model: f.stp\ncases:\n  - name: Q\n    member_loads:\n      - where: {}\n        point: [0, 0, -5]\n");
+    CHECK_THAT(e, Contains("p.yaml:5") && Contains("cases[0].member_loads[0]") && Contains("needs at:"));
+  }
+  SECTION("to before from") {
+    const auto e = error_of(dir, "model: f.stp\ncases:\n  - name: Q\n    member_loads:\n      - where: {}\n        w: [0, 0, -5]\n        from: 3000\n        to: 1000\n");
+    CHECK_THAT(e, Contains("p.yaml:8") && Contains("member_loads[0].to") && Contains("greater than 'from'"));
+  }
+  SECTION("an unknown load axes") {
+    const auto e = error_of(dir, "model: f.stp\ncases:\n  - name: Q\n    member_loads:\n      - where: {}\n        w: [0, 0, -5]\n        axes: sideways\n");
+    CHECK_THAT(e, Contains("p.yaml:7") && Contains("member_loads[0].axes") && Contains("global, local or projected"));
+  }
+  SECTION("a spring that is not positive") {
+    const auto e = error_of(dir, std::string(minimal) + "supports:\n  - where: {z: 0}\n    springs: {uz: -5}\n");
+    CHECK_THAT(e, Contains("p.yaml:8") && Contains("supports[0].springs") && Contains("positive"));
+  }
+  SECTION("a settlement in an unknown direction") {
+    const auto e = error_of(dir, "model: f.stp\ncases:\n  - name: S\n    settlements:\n      - where: {near: [0, 0, 0]}\n        displacement: {dz: -5}\n");
+    CHECK_THAT(e, Contains("p.yaml:6") && Contains("settlements[0].displacement.dz") && Contains("unknown key"));
+  }
+  SECTION("an analysis key that does not exist") {
+    const auto e = error_of(dir, std::string(minimal) + "analysis: {second_ordre: true}\n");
+    CHECK_THAT(e, Contains("p.yaml:6") && Contains("analysis.second_ordre") && Contains("did you mean 'second_order'"));
+  }
+}
+
+TEST_CASE("releases that make a member a mechanism are refused at the rule") {
+  test::ScratchDir dir;
+  const auto e = error_of(dir, std::string(minimal) + "rules:\n  - where: {layer: TIES}\n    release: {start: [rx], end: [rx]}\n");
+  CHECK_THAT(e, Contains("p.yaml:8") && Contains("rules[0].release") && Contains("rx at the start") &&
+                    Contains("free to move"));
 }

@@ -8,8 +8,10 @@
 #include <Eigen/Core>
 
 #include <array>
+#include <cstddef>
 #include <filesystem>
 #include <map>
+#include <numbers>
 #include <optional>
 #include <string>
 #include <vector>
@@ -37,6 +39,10 @@ struct MemberSelector {
 struct NodeSelector {
   std::optional<double> x, y, z;         ///< [m]
   std::optional<Eigen::Vector3d> near;   ///< [m]
+  /// Nodes that named or layered points of the CAD file sit on: regular
+  /// expressions matched case-insensitively against the whole point name /
+  /// any of its layers (both must match when both are given).
+  std::optional<std::string> point_name, point_layer;
   SourceLine origin;
 };
 
@@ -45,16 +51,36 @@ struct Rule {
   std::optional<std::string> section;
   std::optional<std::string> material;
   std::optional<double> roll;  ///< [rad]
+  /// End releases, local axes: [start, end] x (ux uy uz rx ry rz); set when the rule has `release:`.
+  std::optional<std::array<std::array<bool, 6>, 2>> release{};
+  /// Buckling lengths as factors of the member length (`buckling: {y: 1, z: 0.7, lt: 0.5}`).
+  std::optional<double> buckling_y{}, buckling_z{}, buckling_lt{};
+  /// Deflection limit span/ratio for the members matched (`deflection_ratio: 250`).
+  std::optional<double> deflection_ratio{};
 };
 
 struct SupportSpec {
   NodeSelector where;
   std::array<bool, 6> fixed{};  ///< ux uy uz rx ry rz
+  std::array<double, 6> spring{};  ///< [N/m, N m/rad] per DOF; 0 = none
 };
+
+/// The axes a member load is given in (analysis::LoadAxes).
+enum class LoadAxesSpec { global, local, projected };
 
 struct MemberLoadSpec {
   MemberSelector where;
-  Eigen::Vector3d w = Eigen::Vector3d::Zero();  ///< [N/m], global axes
+  Eigen::Vector3d w = Eigen::Vector3d::Zero();  ///< [N/m] (at `from` when w_end is set); or the point force [N]
+  std::optional<Eigen::Vector3d> w_end{};       ///< [N/m] at `to`: a trapezoidal load
+  std::optional<double> from{}, to{};           ///< [m] along the member from its start; default: whole member
+  std::optional<double> at{};                   ///< [m] along the member: a point load of force w
+  LoadAxesSpec axes = LoadAxesSpec::global;
+};
+
+/// An enforced displacement of supported nodes.
+struct SettlementSpec {
+  NodeSelector where;
+  std::array<std::optional<double>, 6> value{};  ///< [m or rad] per DOF
 };
 
 struct NodeLoadSpec {
@@ -68,6 +94,7 @@ struct CaseSpec {
   bool self_weight = false;
   std::vector<MemberLoadSpec> member_loads;
   std::vector<NodeLoadSpec> node_loads;
+  std::vector<SettlementSpec> settlements{};
   SourceLine origin;
 };
 
@@ -86,9 +113,31 @@ struct DeflectionCheckSpec {
   std::vector<std::string> combinations;
 };
 
+/// EN 1993-1-1 member checks (5.5, 6.2, 6.3.1, 6.3.2, 6.3.3).
+struct En1993CheckSpec {
+  std::vector<std::string> combinations;
+};
+
+/// Storey drift: relative horizontal displacement of the ends of each vertical member <= h / ratio.
+struct DriftCheckSpec {
+  double storey_ratio = 300;
+  std::vector<std::string> combinations;
+};
+
+/// Frame stability, EN 1993-1-1 5.2.1(3): alpha_cr >= the limit, else second-order effects matter.
+struct StabilityCheckSpec {
+  double alpha_cr_min = 10;
+  std::vector<std::string> combinations;
+};
+
 struct ChecksSpec {
   std::optional<StressCheckSpec> stress;
   std::optional<DeflectionCheckSpec> deflection;
+  std::optional<En1993CheckSpec> en1993;
+  std::optional<DriftCheckSpec> drift;
+  std::optional<StabilityCheckSpec> stability;
+  double gamma_M0 = 1.0;  ///< EN 1993-1-1 6.1(1) NOTE 2B recommended values
+  double gamma_M1 = 1.0;
 };
 
 struct Project {
@@ -97,6 +146,7 @@ struct Project {
   std::string length_unit = "mm";    ///< the project's unit for bare lengths (for reports)
   std::string force_unit = "kN";
   double merge_tolerance = 1e-3;     ///< [m]
+  double curve_max_turn = 5.0 * std::numbers::pi / 180.0;  ///< [rad] largest turn per element of a curved member
   std::map<std::string, analysis::Material> materials;  ///< custom, by name
   std::map<std::string, analysis::Section> sections;    ///< custom, by name
   std::vector<Rule> rules;
@@ -104,6 +154,9 @@ struct Project {
   std::vector<CaseSpec> cases;
   std::vector<CombinationSpec> combinations;
   ChecksSpec checks;
+  bool shear_deformation = false;   ///< analysis.shear_deformation
+  bool second_order = false;        ///< analysis.second_order
+  std::size_t buckling_modes = 3;   ///< analysis.buckling_modes (0: no buckling analysis)
 };
 
 }  // namespace stepframe
