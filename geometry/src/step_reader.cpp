@@ -219,11 +219,10 @@ void configure(STEPCAFControl_Reader& reader) {
   reader.SetViewMode(Standard_False);
 }
 
-// Parses the text (already rewritten when needed) through OCCT's stream reader.
-StepModel read_text(std::string_view text, const std::string& source) {
-  std::size_t vertex_shells = 0;
-  const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(text, vertex_shells);
-  const std::string_view parsed = rewritten ? std::string_view(*rewritten) : text;
+// Parses with OCCT (`read` calls the reader's ReadFile or ReadStream) and reads the
+// parsed model; an unparsable input is a StepReadError naming `source`.
+template <class Read>
+StepModel parse_and_read(const std::string& source, std::size_t vertex_shells, Read read) {
   detail::route_occt_messages_to_spdlog();
   STEPCAFControl_Controller::Init();
   STEPCAFControl_Reader reader;
@@ -231,8 +230,7 @@ StepModel read_text(std::string_view text, const std::string& source) {
   IFSelect_ReturnStatus read_status = IFSelect_RetFail;
   detail::OcctFailureLog parser_log;
   try {
-    std::istringstream stream{std::string(parsed)};
-    read_status = reader.ChangeReader().ReadStream(source.c_str(), stream);
+    read_status = read(reader);
   } catch (const Standard_Failure& failure) {
     fail(source, fmt::format("OCCT failed while parsing it ({}). {}", failure.GetMessageString(), export_advice));
   }
@@ -242,6 +240,16 @@ StepModel read_text(std::string_view text, const std::string& source) {
                              said.empty() ? std::string() : " (" + said + ")", export_advice));
   }
   return read_parsed(reader, source, vertex_shells);
+}
+
+// Parses the text (shell-based wireframes rewritten first) through OCCT's stream reader.
+StepModel read_text(std::string_view text, const std::string& source) {
+  std::size_t vertex_shells = 0;
+  const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(text, vertex_shells);
+  std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : text)};
+  return parse_and_read(source, vertex_shells, [&](STEPCAFControl_Reader& reader) {
+    return reader.ChangeReader().ReadStream(source.c_str(), stream);
+  });
 }
 
 // True when the file mentions a shell-based wireframe (read in blocks, so a
@@ -284,23 +292,7 @@ StepModel read_step(const std::filesystem::path& file) {
     return read_text(text.str(), source);
   }
 
-  detail::route_occt_messages_to_spdlog();
-  STEPCAFControl_Controller::Init();
-  STEPCAFControl_Reader reader;
-  configure(reader);
-  IFSelect_ReturnStatus read_status = IFSelect_RetFail;
-  detail::OcctFailureLog parser_log;
-  try {
-    read_status = reader.ReadFile(source.c_str());
-  } catch (const Standard_Failure& failure) {
-    fail(source, fmt::format("OCCT failed while parsing it ({}). {}", failure.GetMessageString(), export_advice));
-  }
-  if (read_status != IFSelect_RetDone) {
-    const std::string said = parser_log.summary();
-    fail(source, fmt::format("is not a readable STEP (ISO 10303-21) file: OCCT could not parse it{}. {}",
-                             said.empty() ? std::string() : " (" + said + ")", export_advice));
-  }
-  return read_parsed(reader, source, 0);
+  return parse_and_read(source, 0, [&](STEPCAFControl_Reader& reader) { return reader.ReadFile(source.c_str()); });
 }
 
 StepModel read_step_text(std::string_view step_text, std::string display_name) {
