@@ -1,5 +1,6 @@
 #include "stepframe/model_builder.hpp"
 
+#include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/errors.hpp"
 #include "stepframe/suggest.hpp"
 
@@ -7,6 +8,7 @@
 
 #include <algorithm>
 #include <cctype>
+#include <cmath>
 #include <map>
 #include <optional>
 #include <regex>
@@ -274,6 +276,21 @@ void add_member_load(const analysis::FrameModel& model, std::size_t m, const Mem
   }
 }
 
+/// The roll that turns an element's local z towards `target`: with the unrolled
+/// axes y0, z0 and v the target's offset normal to the element, z = -sin(r) y0 +
+/// cos(r) z0 (local_axes.hpp) is parallel to v when r = atan2(-v.y0, v.z0).
+double roll_towards(const analysis::FrameModel& model, const analysis::FrameElement& element,
+                    const Eigen::Vector3d& target, const Rule& rule, const geometry::SourceInfo& source) {
+  const Eigen::Vector3d a = model.nodes[element.nodes[0]], b = model.nodes[element.nodes[1]];
+  const Eigen::Matrix3d axes = analysis::local_axes(a, b, 0.0);
+  Eigen::Vector3d v = target - 0.5 * (a + b);
+  v -= v.dot(axes.row(0).transpose()) * axes.row(0).transpose();
+  if (v.norm() < 1e-9 * std::max(1.0, (b - a).norm()))
+    throw InputError(rule.where.origin.describe() + ": orient_to lies on the axis of member " + describe_member(source) +
+                     ", so it gives no direction; choose a point off the member's line");
+  return std::atan2(-v.dot(axes.row(1).transpose()), v.dot(axes.row(2).transpose()));
+}
+
 }  // namespace
 
 BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& wireframe) {
@@ -304,6 +321,8 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
   for (const auto& wm : wireframe.members) {
     std::optional<std::size_t> section, material;
     double roll = 0;
+    std::optional<Eigen::Vector3d> orient_to;
+    const Rule* orienting_rule = nullptr;
     std::array<std::array<bool, 6>, 2> release{};
     analysis::en1993::BucklingLengths buckling;
     std::optional<double> deflection_ratio;
@@ -312,7 +331,8 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
       if (!rule_selectors[r].matches(wm.source)) continue;
       if (rule.section) section = library.section(*rule.section, model);
       if (rule.material) material = library.material(*rule.material, model);
-      if (rule.roll) roll = *rule.roll;
+      if (rule.roll) roll = *rule.roll, orient_to.reset();
+      if (rule.orient_to) orient_to = rule.orient_to, orienting_rule = &rule;
       if (rule.release) release = *rule.release;
       if (rule.buckling_y) buckling.y = *rule.buckling_y;
       if (rule.buckling_z) buckling.z = *rule.buckling_z;
@@ -331,6 +351,7 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
     for (std::size_t k = 1; k < wm.nodes.size(); ++k) {
       member.elements.push_back(model.elements.size());
       model.elements.push_back({{wm.nodes[k - 1], wm.nodes[k]}, section.value_or(0), material.value_or(0), roll, {}});
+      if (orient_to) model.elements.back().roll = roll_towards(model, model.elements.back(), *orient_to, *orienting_rule, wm.source);
     }
     // Releases act at the member's ends: the start of its first element, the end of its last.
     if (!member.elements.empty()) {

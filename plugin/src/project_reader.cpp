@@ -444,13 +444,18 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
     r.expect_list(node, "rules");
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("rules", i);
-      r.check_keys(node[i], path, {"where", "section", "material", "roll", "release", "buckling", "deflection_ratio"});
+      r.check_keys(node[i], path,
+                   {"where", "section", "material", "roll", "orient_to", "release", "buckling", "deflection_ratio"});
       Rule rule;
       rule.where = read_member_selector(r, node[i]["where"], path + ".where");
       if (node[i]["section"]) rule.section = r.text(node[i]["section"], path + ".section");
       if (node[i]["material"]) rule.material = r.text(node[i]["material"], path + ".material");
       if (node[i]["roll"])
         rule.roll = r.number(node[i]["roll"], path + ".roll", dimension::none) * std::numbers::pi / 180.0;
+      if (node[i]["orient_to"]) {
+        if (node[i]["roll"]) r.fail(node[i], path, "use either roll or orient_to, not both");
+        rule.orient_to = r.vector3(node[i]["orient_to"], path + ".orient_to", dimension::length);
+      }
       if (const auto release = node[i]["release"]) {
         r.check_keys(release, path + ".release", {"start", "end"});
         std::array<std::array<bool, 6>, 2> ends{};
@@ -476,9 +481,10 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
         rule.deflection_ratio = r.number(node[i]["deflection_ratio"], path + ".deflection_ratio", dimension::none);
         if (!(*rule.deflection_ratio > 0)) r.fail(node[i]["deflection_ratio"], path + ".deflection_ratio", "must be positive, e.g. 250 for L/250");
       }
-      if (!rule.section && !rule.material && !rule.roll && !rule.release && !rule.buckling_y && !rule.buckling_z &&
+      if (!rule.section && !rule.material && !rule.roll && !rule.orient_to && !rule.release && !rule.buckling_y &&
+          !rule.buckling_z &&
           !rule.buckling_lt && !rule.deflection_ratio)
-        r.fail(node[i], path, "a rule sets at least one of section, material, roll, release, buckling, deflection_ratio");
+        r.fail(node[i], path, "a rule sets at least one of section, material, roll, orient_to, release, buckling, deflection_ratio");
       p.rules.push_back(std::move(rule));
     }
   }

@@ -1,6 +1,8 @@
 // Project-file reading: values in SI, and errors that name the file, the line and the key.
 
+#include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/errors.hpp"
+#include "stepframe/model_builder.hpp"
 #include "stepframe/project_reader.hpp"
 #include "test_helpers.hpp"
 
@@ -243,4 +245,33 @@ TEST_CASE("releases that make a member a mechanism are refused at the rule") {
   const auto e = error_of(dir, std::string(minimal) + "rules:\n  - where: {layer: TIES}\n    release: {start: [rx], end: [rx]}\n");
   CHECK_THAT(e, Contains("p.yaml:8") && Contains("rules[0].release") && Contains("rx at the start") &&
                     Contains("free to move"));
+}
+
+TEST_CASE("orient_to turns each member's local z towards a point") {
+  // Local axes convention (README, "Member axes"): a roll r gives z = -sin(r) y0 + cos(r) z0.
+  test::ScratchDir dir;
+  const auto p = read(dir, std::string(minimal) + "rules:\n  - where: {}\n    section: IPE300\n    material: S355\n"
+                                                  "    orient_to: [3000, 5000, 0]\n");
+  REQUIRE(p.rules[0].orient_to);
+  CHECK(p.rules[0].orient_to->isApprox(Eigen::Vector3d(3, 5, 0)));
+
+  geometry::Wireframe frame;
+  frame.nodes = {{0, 0, 0}, {6, 0, 0}, {6, 0, 4}};
+  frame.members = {{{0, 1}, {}, false}, {{1, 2}, {}, false}};
+  const auto built = build_frame_model(p, frame);
+  for (const auto& element : built.model.elements) {
+    const Eigen::Matrix3d axes = analysis::local_axes(built.model.nodes[element.nodes[0]],
+                                                      built.model.nodes[element.nodes[1]], element.roll);
+    // The beam along X at z = 0 points its z at +Y; the vertical column points its z at the
+    // point's offset from its axis, (-3, 5, 0) normalised.
+    const Eigen::Vector3d mid = 0.5 * (built.model.nodes[element.nodes[0]] + built.model.nodes[element.nodes[1]]);
+    Eigen::Vector3d v = Eigen::Vector3d(3, 5, 0) - mid;
+    v -= v.dot(axes.row(0).transpose()) * axes.row(0).transpose();
+    CHECK(axes.row(2).transpose().isApprox(v.normalized(), 1e-12));
+  }
+  CHECK(built.model.elements[0].roll == Approx(-std::numbers::pi / 2));
+
+  const auto on_axis = read(dir, std::string(minimal) + "rules:\n  - where: {}\n    section: IPE300\n    material: S355\n"
+                                                        "    orient_to: [9000, 0, 0]\n");
+  CHECK_THROWS_WITH(build_frame_model(on_axis, frame), Contains("p.yaml:7") && Contains("orient_to lies on the axis"));
 }

@@ -51,6 +51,8 @@ struct Rule {
   std::optional<std::string> section;
   std::optional<std::string> material;
   std::optional<double> roll;  ///< [rad]
+  /// A point [m] the section's local z axis points towards (`orient_to: [x, y, z]`); overrides roll.
+  std::optional<Eigen::Vector3d> orient_to{};
   /// End releases, local axes: [start, end] x (ux uy uz rx ry rz); set when the rule has `release:`.
   std::optional<std::array<std::array<bool, 6>, 2>> release{};
   /// Buckling lengths as factors of the member length (`buckling: {y: 1, z: 0.7, lt: 0.5}`).
