@@ -41,7 +41,7 @@ case "${1:-demo}" in
     echo "== running the demo: pump platform P2 (data/demo/platform.yaml)"
     status=0
     "$BUILD_DIR/plugin/stepframe" run data/demo/platform.yaml --out data/demo/platform-results || status=$?
-    echo "== results are in $(pwd)/data/demo/platform-results (results.json, vtk/*.vtu); exit status $status"
+    echo "== results are in $(pwd)/data/demo/platform-results (report.html, results.json, *.csv, frame.vtm, vtk/); exit status $status"
     ;;
   test)
     install_packages
