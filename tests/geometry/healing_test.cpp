@@ -6,6 +6,8 @@
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/geometry/wireframe.hpp"
 
+#include "test_support.hpp"
+
 #include <catch2/catch.hpp>
 
 #include <algorithm>
@@ -36,20 +38,8 @@ const sg::WireMember& member(const sg::Wireframe& frame, const std::string& enti
   return *it;
 }
 
-sg::WireEdge edge(Eigen::Vector3d a, Eigen::Vector3d b, std::string entity) {
-  sg::WireEdge e{a, b, {}, {}};
-  e.source.entity = std::move(entity);
-  return e;
-}
-
-sg::StepModel model_of(std::vector<sg::WireEdge> edges) {
-  sg::StepModel model;
-  model.file = "in-memory.stp";
-  model.length_unit = "m";
-  model.metres_per_unit = 1.0;
-  model.edges = std::move(edges);
-  return model;
-}
+using stepframe::geometry::test::edge;
+using stepframe::geometry::test::model_of;
 
 }  // namespace
 

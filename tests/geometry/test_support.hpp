@@ -3,6 +3,8 @@
 // look at the entities of an ISO 10303-21 file so a test can check what a
 // "#n" id points at without going through OCCT.
 
+#include "stepframe/geometry/step_reader.hpp"
+
 #include <Eigen/Core>
 
 #include <filesystem>
@@ -14,8 +16,26 @@
 #include <stdexcept>
 #include <string>
 #include <system_error>
+#include <vector>
 
 namespace stepframe::geometry::test {
+
+/// A straight edge in metres carrying only an entity id.
+inline WireEdge edge(Eigen::Vector3d a, Eigen::Vector3d b, std::string entity) {
+  WireEdge e{a, b, {}, {}};
+  e.source.entity = std::move(entity);
+  return e;
+}
+
+/// An in-memory model in metres holding `edges`.
+inline StepModel model_of(std::vector<WireEdge> edges) {
+  StepModel model;
+  model.file = "in-memory.stp";
+  model.length_unit = "m";
+  model.metres_per_unit = 1.0;
+  model.edges = std::move(edges);
+  return model;
+}
 
 /// A fresh folder under the system temporary folder, removed afterwards.
 class ScratchFolder {

@@ -4,6 +4,7 @@
 // value in the suite is computed from them with the published formula named
 // beside the check.
 
+#include "../analysis/frame_fixtures.hpp"
 #include "stepframe/analysis/frame_model.hpp"
 #include "stepframe/analysis/results.hpp"
 #include "stepframe/analysis/solve.hpp"
@@ -19,27 +20,9 @@ namespace stepframe::analysis::verification {
 inline constexpr double E = 210e9;  // Pa
 inline constexpr double G = 81e9;   // Pa
 
-inline Section beam_section() {
-  Section s;
-  s.designation = "VERIFY-I";
-  s.A = 5.0e-3;
-  s.Iy = 8.0e-5;
-  s.Iz = 6.0e-6;
-  s.J = 2.0e-7;
-  s.depth = 0.30;
-  s.width = 0.15;
-  return s;
-}
-
-inline Material steel() {
-  Material m;
-  m.name = "verification steel";
-  m.E = E;
-  m.G = G;
-  m.fy = 355e6;
-  m.density = 7850;
-  return m;
-}
+// The analysis tests' round-valued section and steel (E and G as above).
+inline Section beam_section() { return test::test_section(); }
+inline Material steel() { return test::test_steel(); }
 
 inline constexpr std::array<bool, 6> fixed{true, true, true, true, true, true};
 /// Pinned in the x-z plane, restrained out of plane and in torsion: a "simple support"
