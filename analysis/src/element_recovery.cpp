@@ -116,11 +116,13 @@ LineResult recover_element(const ElementState& s, std::size_t stations) {
   // end displacements up to rounding in first order; in second order the
   // element's P-delta makes them differ slightly, and the difference is spread
   // linearly so the deformed axis meets both nodes.
-  const Eigen::Vector3d closure = ends.u.segment<3>(6) - element_state_at(s.properties, d0, f0, s.loads, L).head<3>();
+  const Vector6d closure = ends.u.tail<6>() - element_state_at(s.properties, d0, f0, s.loads, L);
 
-  auto displacement_local = [&](double x) -> Eigen::Vector3d {
-    return element_state_at(s.properties, d0, f0, s.loads, x).head<3>() + (x / L) * closure;
+  // (u, v, w, rx, ry, rz) at x, local axes.
+  auto state_local = [&](double x) -> Vector6d {
+    return element_state_at(s.properties, d0, f0, s.loads, x) + (x / L) * closure;
   };
+  auto displacement_local = [&](double x) -> Eigen::Vector3d { return state_local(x).head<3>(); };
   auto forces_at = [&](double x) -> Vector6d {
     Vector6d f = internal_forces_at(f0, s.loads, x);
     if (s.second_order) {
@@ -142,7 +144,9 @@ LineResult recover_element(const ElementState& s, std::size_t stations) {
     st.x = x;
     st.position = s.origin + x * s.axes.row(0).transpose();
     st.forces = forces_at(x);
-    st.displacement = s.axes.transpose() * displacement_local(x);
+    const Vector6d state = state_local(x);
+    st.displacement = s.axes.transpose() * state.head<3>();
+    st.rotation = s.axes.transpose() * state.tail<3>();
     const SectionStress stress = section_stress(s.section, st.forces);
     st.max_abs_stress = stress.max_abs_normal;
     st.max_shear_stress = stress.shear;

@@ -112,6 +112,9 @@ TEST_CASE("cantilever, uniform load: Roark Table 8.1 case 2a (w_a = w_l)", "[ver
   for (const Station& s : r.elements[0].stations) {
     const double x = s.x;
     CHECK(s.displacement.z() == Approx(-w * x * x * (6 * L * L - 4 * L * x + x * x) / (24 * E * I)).margin(1e-12));
+    // Slope: the derivative, w x (3L^2 - 3Lx + x^2) / (6 E I), w L^3 / (6 E I) at the tip; a section
+    // dipping towards +x turns positively about +y (right-hand rule).
+    CHECK(s.rotation.y() == Approx(w * x * (3 * L * L - 3 * L * x + x * x) / (6 * E * I)).margin(1e-12));
   }
 }
 

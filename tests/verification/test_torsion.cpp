@@ -43,6 +43,11 @@ TEST_CASE("open I section: twist T L / (G J) and shear T t_max / J", "[verificat
   m.cases = {lc};
   const LoadResult r = solve_one(m);
   CHECK(r.displacements(6 + rx) == Approx(T * L / (G * section->J)).epsilon(1e-9));
+  // The twist grows linearly along the shaft: phi(x) = T x / (G J) at every station.
+  for (const Station& st : r.elements[0].stations) {
+    CHECK(st.rotation.x() == Approx(T * st.x / (G * section->J)).margin(1e-12));
+    CHECK(st.rotation.tail<2>().norm() == Approx(0).margin(1e-12));
+  }
   CHECK(r.elements[0].stations[5].max_shear_stress == Approx(T * section->t_max / section->J).epsilon(1e-9));
   // von Mises of pure shear: sqrt(3) tau (EN 1993-1-1 6.2.1(5)).
   CHECK(r.elements[0].stations[5].von_mises == Approx(std::sqrt(3.0) * T * section->t_max / section->J).epsilon(1e-9));

@@ -4,6 +4,7 @@
 #include "stepframe/analysis/member_line.hpp"
 #include "write_grid.hpp"
 
+#include <Eigen/Geometry>
 #include <vtkCellData.h>
 #include <vtkDoubleArray.h>
 #include <vtkFieldData.h>
@@ -63,12 +64,16 @@ void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameM
       const vtkIdType first = points->GetNumberOfPoints();
       for (const auto& st : stations)
         for (const auto& p : ring) {
-          const Eigen::Vector3d at = st.position + p.y * y + p.z * z;
+          const Eigen::Vector3d arm = p.y * y + p.z * z;  // from the axis to the outline point, global
+          const Eigen::Vector3d at = st.position + arm;
           points->InsertNextPoint(at.data());
           // sigma = N/A + My z / Iy - Mz y / Iz (results.hpp sign convention).
           stress->InsertNextValue(st.forces(0) / section.A + st.forces(4) * p.z / section.Iy -
                                   st.forces(5) * p.y / section.Iz);
-          displacement->InsertNextTuple(st.displacement.data());
+          // Plane sections stay plane (warping left out): the outline point moves with the axis and
+          // turns with the section, u_p = u + theta x arm to first order (small rotations).
+          const Eigen::Vector3d moved = st.displacement + st.rotation.cross(arm);
+          displacement->InsertNextTuple(moved.data());
         }
       for (std::size_t k = 0; k + 1 < stations.size(); ++k)
         for (vtkIdType i = 0; i < n; ++i) {

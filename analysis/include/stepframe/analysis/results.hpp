@@ -24,6 +24,8 @@ struct Station {
   Eigen::Vector3d position = Eigen::Vector3d::Zero();  ///< undeformed position of the axis point, global [m]
   Vector6d forces = Vector6d::Zero();  ///< N, Vy, Vz, T, My, Mz [N, N m]
   Eigen::Vector3d displacement = Eigen::Vector3d::Zero();  ///< translation of the member axis at x, global axes [m]
+  Eigen::Vector3d rotation = Eigen::Vector3d::Zero();  ///< small rotation of the section at x, global axes,
+                                                       ///< right-hand rule [rad]
   double max_abs_stress = 0;    ///< largest |sigma| over the section's stress points [Pa]
   double max_shear_stress = 0;  ///< shear from Vy, Vz (over the shear areas) plus torsion [Pa]
   double von_mises = 0;         ///< sqrt(sigma^2 + 3 tau^2) of the two maxima above (EN 1993-1-1 6.2.1(5)) [Pa]

@@ -15,7 +15,8 @@ namespace stepframe::viz {
 /// a depth x width rectangle when the section has none) placed in the local
 /// y-z plane, consecutive outlines joined by quads.
 /// Point data: "fibre_stress" (sigma = N/A + My z/Iy - Mz y/Iz at that outline
-/// point [Pa]; active scalars), "displacement" (translation of the axis [m]).
+/// point [Pa]; active scalars), "displacement" (of each outline point [m]: the axis translation plus
+/// the section's small rotation times the point's arm; warping left out).
 /// Cell data: "member_id", "element_id".
 /// Throws std::runtime_error naming the file on failure.
 void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
