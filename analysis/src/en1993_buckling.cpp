@@ -93,4 +93,65 @@ double cm_linear(double psi) {
   return std::max(0.6 + 0.4 * psi, 0.4);
 }
 
+double cm_span(double Mh, double psi, double Ms) {
+  // EN 1993-1-1 Annex B Table B.3, uniform-load column (from memory); every value at least 0.4.
+  if (std::abs(Ms) <= std::abs(Mh)) {
+    if (Mh == 0) return 1.0;  // no moment at all
+    const double alpha_s = Ms / Mh;
+    if (alpha_s >= 0) return std::max(0.2 + 0.8 * alpha_s, 0.4);
+    if (psi >= 0) return std::max(0.1 - 0.8 * alpha_s, 0.4);
+    return std::max(0.1 * (1 - psi) - 0.8 * alpha_s, 0.4);
+  }
+  const double alpha_h = Mh / Ms;
+  if (alpha_h >= 0 || psi >= 0) return 0.95 + 0.05 * alpha_h;
+  return 0.95 + 0.05 * alpha_h * (1 + 2 * psi);
+}
+
+namespace {
+
+/// i0^2 = iy^2 + iz^2 + y0^2 + z0^2: polar radius of gyration about the shear centre (EN 1993-1-3 6.2.3(5)).
+double polar_radius_squared(const Section& s) {
+  return (s.Iy + s.Iz) / s.A + s.shear_centre_y * s.shear_centre_y + s.shear_centre_z * s.shear_centre_z;
+}
+
+/// Lower root of i0^2 (N - Nf)(N - NT) - N^2 a^2 = 0, a flexural mode coupled with twist by the shear
+/// centre offset a: N = [(Nf + NT) - sqrt((Nf + NT)^2 - 4 beta Nf NT)] / (2 beta), beta = 1 - a^2 / i0^2
+/// (Timoshenko & Gere 1961, 5.3; the same as EN 1993-1-3 (6.35)).
+double coupled_pair(double Nf, double NT, double a, double i0sq) {
+  const double beta = 1 - a * a / i0sq;
+  const double sum = Nf + NT;
+  return (sum - std::sqrt(sum * sum - 4 * beta * Nf * NT)) / (2 * beta);
+}
+
+}  // namespace
+
+double torsional_critical_force(const Section& s, double E, double G, double lT) {
+  const double pi2 = std::numbers::pi * std::numbers::pi;
+  return (G * s.J + pi2 * E * s.Iw / (lT * lT)) / polar_radius_squared(s);  // EN 1993-1-3 (6.33a)
+}
+
+double torsional_flexural_critical_force(const Section& s, double E, double G, double Lcr_y, double Lcr_z, double lT) {
+  const double pi2 = std::numbers::pi * std::numbers::pi;
+  const double Ny = pi2 * E * s.Iy / (Lcr_y * Lcr_y), Nz = pi2 * E * s.Iz / (Lcr_z * Lcr_z);  // (6.50) Ncr
+  const double NT = torsional_critical_force(s, E, G, lT);
+  const double i0sq = polar_radius_squared(s);
+  const double y0 = s.shear_centre_y, z0 = s.shear_centre_z;
+  const double negligible = 1e-9 * std::sqrt(i0sq);
+  const bool off_y = std::abs(y0) > negligible, off_z = std::abs(z0) > negligible;
+  if (!off_y && !off_z) return NT;                       // twist alone
+  if (!off_z) return coupled_pair(Ny, NT, y0, i0sq);     // y0 couples twist with buckling about y
+  if (!off_y) return coupled_pair(Nz, NT, z0, i0sq);
+  // Both offsets: the lowest root of the cubic lies in (0, min(Ny, Nz, NT)], where the cubic goes from
+  // negative (-i0^2 Ny Nz NT at N = 0) to non-negative; bisection keeps the bracket.
+  auto cubic = [&](double N) {
+    return i0sq * (N - Ny) * (N - Nz) * (N - NT) - N * N * y0 * y0 * (N - Nz) - N * N * z0 * z0 * (N - Ny);
+  };
+  double lo = 0, hi = std::min({Ny, Nz, NT});
+  for (int k = 0; k < 200 && hi - lo > 1e-14 * hi; ++k) {
+    const double mid = 0.5 * (lo + hi);
+    (cubic(mid) < 0 ? lo : hi) = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
 }  // namespace stepframe::analysis::en1993

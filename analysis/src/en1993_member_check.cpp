@@ -16,10 +16,13 @@ namespace {
 constexpr double pi = std::numbers::pi;
 constexpr int N_ = 0, Vy_ = 1, Vz_ = 2, My_ = 4, Mz_ = 5;  // Station::forces components
 
-/// A moment diagram along the member: linear or not, its end ratio and peak.
+/// A moment diagram along the member: linear or not, its end moments, span moment and peak.
 struct Diagram {
   bool linear = true;
-  double psi = 1.0;  ///< smaller over larger end moment, signed (1 = uniform moment)
+  double Mh = 0;     ///< the larger end moment, signed [N m]
+  double psi = 1.0;  ///< the other end moment over Mh (1 = uniform moment)
+  double Ms = 0;     ///< span moment for Table B.3: the interior peak when it exceeds |Mh|, else the moment at
+                     ///< mid-length, signed [N m]
   double peak = 0;   ///< largest |M| [N m]
   std::size_t peak_station = 0;
 };
@@ -34,9 +37,28 @@ Diagram diagram(const LineResult& line, int component) {
     const double straight = m0 + (m1 - m0) * s.x / length;
     if (std::abs(s.forces(component) - straight) > 1e-3 * d.peak + 1e-9) d.linear = false;
   }
-  const double big = std::abs(m0) >= std::abs(m1) ? m0 : m1, small = std::abs(m0) >= std::abs(m1) ? m1 : m0;
-  d.psi = std::abs(big) > 1e-12 ? std::clamp(small / big, -1.0, 1.0) : 1.0;
+  d.Mh = std::abs(m0) >= std::abs(m1) ? m0 : m1;
+  const double other = std::abs(m0) >= std::abs(m1) ? m1 : m0;
+  d.psi = std::abs(d.Mh) > 1e-12 ? std::clamp(other / d.Mh, -1.0, 1.0) : 1.0;
+  const double peak_signed = st[d.peak_station].forces(component);
+  if (d.peak > std::abs(d.Mh)) {
+    d.Ms = peak_signed;
+  } else {
+    // Mid-length moment, interpolated between the two stations around it.
+    const auto after = std::lower_bound(st.begin(), st.end(), 0.5 * length,
+                                        [](const Station& s, double x) { return s.x < x; });
+    const auto before = after == st.begin() ? after : after - 1;
+    const double span = after->x - before->x, t = span > 0 ? (0.5 * length - before->x) / span : 0.0;
+    d.Ms = (1 - t) * before->forces(component) + t * after->forces(component);
+  }
   return d;
+}
+
+/// Cm of Table B.3 for one axis; a member that sways about that axis (buckling length factor above 1,
+/// which only a sway mode gives: common practice) takes Cm = 0.9 (Table B.3, last line; from memory).
+double equivalent_moment_factor(const Diagram& d, double length_factor) {
+  if (length_factor > 1.0) return 0.9;
+  return d.linear ? cm_linear(d.psi) : cm_span(d.Mh, d.psi, d.Ms);
 }
 
 /// Elastic or plastic modulus by class (6.2.5(2)): Wpl for classes 1 and 2, Wel for class 3 (and 4, see 5.5).
@@ -136,16 +158,33 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double NbRd = std::min(chi_y, chi_z) * NRk / f.gamma_M1;  // (6.47)
     out.push_back(result("6.3.1 flexural buckling",
                          fmt::format("EN 1993-1-1 6.3.1, curves {}/{} (y/z), chi_y = {:.3f}, chi_z = {:.3f}, "
-                                     "Lcr = {:.3g}/{:.3g} m; flexural buckling only",
+                                     "Lcr = {:.3g}/{:.3g} m",
                                      curve_name(curves.y), curve_name(curves.z), chi_y, chi_z, Ly, Lz),
                          line.stations[n_station].x, NEd, NbRd));
+  }
+
+  // 6.3.1.4: open sections can also buckle by twisting (torsional, or torsional-flexural when the shear
+  // centre is off the centroid); chi from the z-axis curve of Table 6.2 (6.3.1.4(2)).
+  double chi_t = 1.0;
+  const double lT = in.buckling.lt * L;
+  if (NEd > 0 && is_open(s.shape) && s.J > 0) {
+    const bool coupled = std::abs(s.shear_centre_y) + std::abs(s.shear_centre_z) > 1e-9 * std::sqrt(s.A);
+    const double Ncr = torsional_flexural_critical_force(s, E, G, Ly, Lz, lT);
+    const double lambda_t = std::sqrt(NRk / Ncr);  // (6.52)
+    chi_t = reduction_factor(lambda_t, curves.z);
+    out.push_back(result("6.3.1.4 torsional buckling",
+                         fmt::format("EN 1993-1-1 6.3.1.4, {} buckling, Ncr = {:.4g} kN (EN 1993-1-3 6.2.3), "
+                                     "curve {}, chi = {:.3f}, lT = {:.3g} m",
+                                     coupled ? "torsional-flexural" : "torsional", Ncr / 1e3, curve_name(curves.z),
+                                     chi_t, lT),
+                         line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1));
   }
 
   const int cls_member = classify(s, fy, -NEd, my.peak).section_class;
   const double Wy = modulus_y(s, cls_member), Wz = modulus_z(s, cls_member);
   double chi_lt = 1.0;
   if (has_lateral_torsional_buckling(s) && my.peak > 0) {
-    const double Llt = in.buckling.lt * L;
+    const double Llt = lT;
     // Linear diagram: C1 from psi, load effects at the shear centre. Otherwise the conservative default:
     // C1 = 1.0 with the load on the top flange (zg = h/2, C2 = 0.454 for a uniform load, from memory).
     const double C1 = my.linear ? c1_linear(my.psi) : 1.0;
@@ -168,11 +207,12 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
 
   if (NEd > 0) {
     // 6.3.3 (6.61), (6.62) with the interaction factors of Annex B (method 2).
-    const double Cmy = my.linear ? cm_linear(my.psi) : 1.0;  // Table B.3; 1.0 bounds the span-loaded cases
-    const double Cmz = mz.linear ? cm_linear(mz.psi) : 1.0;
+    const double Cmy = equivalent_moment_factor(my, in.buckling.y), Cmz = equivalent_moment_factor(mz, in.buckling.z);
     const double Cmlt = Cmy;
     const bool plastic = cls_member <= 2;
-    const double n_y = NEd / (chi_y * NRk / f.gamma_M1), n_z = NEd / (chi_z * NRk / f.gamma_M1);
+    // n_z takes the smaller of the flexural and the torsional chi (conservative: 6.3.3(4) names only
+    // the flexural one, but a section that twists first cannot reach it).
+    const double n_y = NEd / (chi_y * NRk / f.gamma_M1), n_z = NEd / (std::min(chi_z, chi_t) * NRk / f.gamma_M1);
     const bool i_section = s.shape == SectionShape::rolled_i || s.shape == SectionShape::welded_i;
     // Table B.1.
     const double kyy = plastic ? Cmy * (1 + std::min(lambda_y - 0.2, 0.8) * n_y) : Cmy * (1 + 0.6 * std::min(lambda_y, 1.0) * n_y);
@@ -192,8 +232,8 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double u62 = n_z + kzy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kzz * mz.peak / (MzRk / f.gamma_M1);
     out.push_back(result("6.3.3 interaction",
                          fmt::format("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
-                                     "kzz = {:.3f}, Cmy = {:.2f}",
-                                     u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy),
+                                     "kzz = {:.3f}, Cmy = {:.2f}, Cmz = {:.2f}",
+                                     u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy, Cmz),
                          line.stations[my.peak_station].x, std::max(u61, u62), 1.0));
   }
   for (auto& r : out) r.combination = combination, r.member = in.member;

@@ -2,13 +2,16 @@
 
 #include "frame_fixtures.hpp"
 #include "stepframe/analysis/en1993.hpp"
+#include "stepframe/analysis/section_shapes.hpp"
 #include "stepframe/analysis/solve.hpp"
 
 #include <catch2/catch.hpp>
+#include <unsupported/Eigen/Polynomials>
 
 #include <algorithm>
 #include <cmath>
 #include <numbers>
+#include <vector>
 
 using namespace stepframe::analysis;
 using namespace stepframe::analysis::en1993;
@@ -137,4 +140,138 @@ TEST_CASE("a pinned column through the full member checks") {
   CHECK_THAT(find("6.2 cross-section").clause, Contains("class 1"));
   CHECK(std::none_of(checks.begin(), checks.end(), [](const CheckResult& c) { return c.check == "5.5 classification"; }));
   CHECK(find("6.3.3 interaction").utilisation >= find("6.3.1 flexural buckling").utilisation - 1e-9);
+}
+
+TEST_CASE("equivalent uniform moment factors of EN 1993-1-1 Annex B Table B.3") {
+  // Table B.3 (from memory), uniform-load column.
+  CHECK(cm_span(0.0, 1.0, 100e3) == Approx(0.95));      // simply supported, uniform load: alpha_h = 0
+  CHECK(cm_span(-120e3, 1.0, 60e3) == Approx(0.5));     // both ends fixed: Mh = -wL^2/12, Ms = wL^2/24
+  CHECK(cm_span(-50e3, -0.5, 100e3) == Approx(0.95 + 0.05 * -0.5 * (1 + 2 * -0.5)));  // span governs, psi < 0
+  CHECK(cm_span(100e3, -0.5, -40e3) == Approx(0.1 * 1.5 + 0.8 * 0.4));  // alpha_s < 0, psi < 0
+  CHECK(cm_span(100e3, 0.5, -10e3) == Approx(0.4));     // floor 0.4
+  // The span rows agree with the linear row when the span moment is the mid-length value of a straight
+  // line, Ms = (1 + psi) / 2 Mh: 0.2 + 0.8 (1 + psi) / 2 = 0.6 + 0.4 psi (two rows of one table).
+  for (double psi : {1.0, 0.5, 0.0, -0.5, -1.0})
+    CHECK(cm_span(80e3, psi, 0.5 * (1 + psi) * 80e3) == Approx(cm_linear(psi)));
+}
+
+TEST_CASE("torsional and torsional-flexural critical forces (6.3.1.4)") {
+  const double E = 210e9, G = 81e9, pi = std::numbers::pi;
+  SECTION("doubly symmetric I: twist alone, EN 1993-1-3 (6.33a)") {
+    const auto ipe = find_catalogue_section("IPE200");
+    REQUIRE(ipe);
+    const Section& s = *ipe;
+    const double lT = 2.5, i0sq = (s.Iy + s.Iz) / s.A;
+    const double NT = (G * s.J + pi * pi * E * s.Iw / (lT * lT)) / i0sq;
+    CHECK(torsional_critical_force(s, E, G, lT) == Approx(NT).epsilon(1e-12));
+    CHECK(torsional_flexural_critical_force(s, E, G, 2.5, 2.5, lT) == Approx(NT).epsilon(1e-12));
+  }
+  SECTION("equal angle: one offset, EN 1993-1-3 6.2.3(7) eq. (6.35)") {
+    const auto angle = find_catalogue_section("L100x100x10");
+    REQUIRE(angle);
+    const Section& s = *angle;
+    REQUIRE(std::abs(s.shear_centre_y) > 0.02);  // the heel lies on the major principal axis
+    REQUIRE(std::abs(s.shear_centre_z) < 1e-9);
+    const double L = 1.2;
+    const double Ny = pi * pi * E * s.Iy / (L * L);
+    const double i0sq = (s.Iy + s.Iz) / s.A + s.shear_centre_y * s.shear_centre_y;
+    const double NT = (G * s.J + pi * pi * E * s.Iw / (L * L)) / i0sq;
+    const double beta = 1 - s.shear_centre_y * s.shear_centre_y / i0sq, r = NT / Ny;
+    // (6.35): Ncr,TF = Ncr,y / (2 beta) [1 + r - sqrt((1 - r)^2 + 4 (y0 / i0)^2 r)], r = Ncr,T / Ncr,y.
+    const double expected = Ny / (2 * beta) *
+                            (1 + r - std::sqrt((1 - r) * (1 - r) + 4 * s.shear_centre_y * s.shear_centre_y / i0sq * r));
+    CHECK(torsional_flexural_critical_force(s, E, G, L, L, L) == Approx(expected).epsilon(1e-10));
+    CHECK(expected < std::min(Ny, NT));  // coupling lowers both modes' forces
+  }
+  SECTION("unequal angle: both offsets, the lowest root of the cubic") {
+    const Section s = angle_section("L150x90x10", {0.150, 0.090, 0.010, 0.012, 0.006});
+    const double y0 = s.shear_centre_y, z0 = s.shear_centre_z;
+    REQUIRE(std::abs(y0) > 1e-3);
+    REQUIRE(std::abs(z0) > 1e-3);
+    const double L = 1.5;
+    const double Ny = pi * pi * E * s.Iy / (L * L), Nz = pi * pi * E * s.Iz / (L * L);
+    const double i0sq = (s.Iy + s.Iz) / s.A + y0 * y0 + z0 * z0;
+    const double NT = (G * s.J + pi * pi * E * s.Iw / (L * L)) / i0sq;
+    // Independent route: every root of the expanded cubic from Eigen's polynomial solver (companion-matrix
+    // eigenvalues), forces in units of Nz; coefficients lowest power first.
+    const double ny = Ny / Nz, nz = 1.0, nt = NT / Nz;
+    Eigen::Vector4d c;
+    c << -i0sq * ny * nz * nt, i0sq * (ny * nz + nz * nt + nt * ny), -i0sq * (ny + nz + nt) + y0 * y0 * nz + z0 * z0 * ny,
+        i0sq - y0 * y0 - z0 * z0;
+    Eigen::PolynomialSolver<double, 3> solver(c);
+    std::vector<double> roots;
+    solver.realRoots(roots);
+    REQUIRE(roots.size() == 3);
+    const double lowest = *std::min_element(roots.begin(), roots.end()) * Nz;
+    CHECK(torsional_flexural_critical_force(s, E, G, L, L, L) == Approx(lowest).epsilon(1e-9));
+    CHECK(lowest < std::min({Ny, Nz, NT}));
+  }
+}
+
+TEST_CASE("a short equal-angle strut is governed by torsional-flexural buckling") {
+  // A 0.8 m L100x100x10 strut in S355, pinned, twist held at both ends: flexural buckling about the
+  // minor axis is mild at this length, but the angle twists first (EN 1993-1-1 6.3.1.4 with Ncr,TF
+  // from EN 1993-1-3 (6.35); chi on the z-axis curve of Table 6.2, curve b for angles).
+  const auto angle = find_catalogue_section("L100x100x10");
+  REQUIRE(angle);
+  const Section& s = *angle;
+  const double L = 0.8, P = 150e3, fy = 355e6, E = 210e9, G = 81e9, pi = std::numbers::pi;
+  FrameModel model;
+  model.nodes = {{0, 0, 0}, {L, 0, 0}};
+  model.sections = {s};
+  model.materials = {*find_standard_material("S355")};
+  model.elements = {{{0, 1}, 0, 0, 0.0}};
+  model.supports = {test::support(0, {true, true, true, true, false, false}),
+                    test::support(1, {false, true, true, true, false, false})};
+  LoadCase lc;
+  lc.name = "P";
+  lc.node_loads = {{1, Eigen::Vector3d(-P, 0, 0), Eigen::Vector3d::Zero()}};
+  model.cases = {lc};
+  const auto results = solve(model);
+  const auto checks = check_members(model, {&results[0]}, {}, PartialFactors{});
+
+  const double y0 = s.shear_centre_y, i0sq = (s.Iy + s.Iz) / s.A + y0 * y0;
+  const double Ny = pi * pi * E * s.Iy / (L * L), NT = (G * s.J + pi * pi * E * s.Iw / (L * L)) / i0sq;
+  const double beta = 1 - y0 * y0 / i0sq, r = NT / Ny;
+  const double Ncr = Ny / (2 * beta) * (1 + r - std::sqrt((1 - r) * (1 - r) + 4 * y0 * y0 / i0sq * r));  // (6.35)
+  const double chi_t = reduction_factor(std::sqrt(s.A * fy / Ncr), Curve::b);
+  const double chi_z = reduction_factor(std::sqrt(s.A * fy / (pi * pi * E * s.Iz / (L * L))), Curve::b);
+  auto find = [&](const std::string& name) -> const CheckResult& {
+    for (const auto& c : checks)
+      if (c.check == name) return c;
+    FAIL("no check " << name);
+    return checks.front();
+  };
+  const CheckResult& tf = find("6.3.1.4 torsional buckling");
+  CHECK(tf.utilisation == Approx(P / (chi_t * s.A * fy)).epsilon(1e-6));
+  CHECK_THAT(tf.clause, Contains("torsional-flexural"));
+  CHECK(chi_t < chi_z);
+  CHECK(tf.utilisation > find("6.3.1 flexural buckling").utilisation);
+}
+
+TEST_CASE("a simply supported beam-column under uniform load takes Cm = 0.95") {
+  // Table B.3 (from memory): alpha_h = 0 with a uniform load gives Cmy = 0.95; previously the screening
+  // used the 1.0 bound for every span-loaded member.
+  const auto ipe = find_catalogue_section("IPE300");
+  REQUIRE(ipe);
+  FrameModel model;
+  const double L = 5.0;
+  model.nodes = {{0, 0, 0}, {L, 0, 0}};
+  model.sections = {*ipe};
+  model.materials = {*find_standard_material("S355")};
+  model.elements = {{{0, 1}, 0, 0, 0.0}};
+  model.supports = {test::support(0, {true, true, true, true, false, false}),
+                    test::support(1, {false, true, true, true, false, false})};
+  LoadCase lc;
+  lc.name = "wP";
+  lc.node_loads = {{1, Eigen::Vector3d(-200e3, 0, 0), Eigen::Vector3d::Zero()}};
+  ElementLoad w;
+  w.element = 0, w.a = 0.0, w.b = L, w.w_start = w.w_end = Eigen::Vector3d(0, 0, -10e3);
+  lc.partial_loads = {w};
+  model.cases = {lc};
+  const auto results = solve(model);
+  const auto checks = check_members(model, {&results[0]}, {}, PartialFactors{});
+  const auto it = std::find_if(checks.begin(), checks.end(), [](const CheckResult& c) { return c.check == "6.3.3 interaction"; });
+  REQUIRE(it != checks.end());
+  CHECK_THAT(it->clause, Contains("Cmy = 0.95"));
 }

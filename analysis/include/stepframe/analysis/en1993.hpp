@@ -1,7 +1,8 @@
 #pragma once
 // EN 1993-1-1 (2005) screening of steel members: cross-section class
 // (5.5, Table 5.2), cross-section resistance (6.2), flexural buckling
-// (6.3.1), lateral-torsional buckling (6.3.2) and bending with axial
+// (6.3.1), torsional and torsional-flexural buckling (6.3.1.4),
+// lateral-torsional buckling (6.3.2) and bending with axial
 // compression (6.3.3 with Annex B, method 2).
 //
 // Forces follow results.hpp (N > 0 tension; My about the strong axis y).
@@ -89,11 +90,35 @@ double c1_linear(double psi);
 /// diagram: 0.6 + 0.4 psi >= 0.4.
 double cm_linear(double psi);
 
+/// Equivalent uniform moment factor Cm of Annex B Table B.3 for a diagram
+/// with end moments Mh (the larger in size) and psi Mh and the span moment Ms
+/// (signed, same convention): alpha_s = Ms / Mh when |Ms| <= |Mh|, else
+/// alpha_h = Mh / Ms. The uniform-load column is used for every span load: it
+/// is never below the concentrated-load column (Table B.3, from memory).
+double cm_span(double Mh, double psi, double Ms);
+
+/// Elastic critical force of torsional buckling (6.3.1.4), as EN 1993-1-3
+/// 6.2.3(5) eq. (6.33a) gives it: Ncr,T = (G It + pi^2 E Iw / lT^2) / i0^2,
+/// i0^2 = iy^2 + iz^2 + y0^2 + z0^2 with (y0, z0) the shear centre from the centroid.
+double torsional_critical_force(const Section& section, double E, double G, double lT);
+
+/// Lowest elastic critical force of the buckling modes that twist the member
+/// (6.3.1.4): torsional buckling for sections whose shear centre is the
+/// centroid; otherwise the torsional-flexural mode, the lowest root of
+/// i0^2 (N - Ny)(N - Nz)(N - NT) - N^2 y0^2 (N - Nz) - N^2 z0^2 (N - Ny) = 0
+/// (Timoshenko & Gere, Theory of Elastic Stability, 2nd ed., 1961, 5.3), where
+/// an offset along an axis couples the twist with buckling about that axis.
+/// With one offset zero the uncoupled flexural mode is left to 6.3.1.2 and the
+/// coupled pair gives EN 1993-1-3 (6.35). Ny, Nz = pi^2 E I / Lcr^2.
+double torsional_flexural_critical_force(const Section& section, double E, double G, double Lcr_y, double Lcr_z,
+                                         double lT);
+
 /// Buckling lengths as factors of the member length.
 struct BucklingLengths {
   double y = 1.0;   ///< flexural buckling about y
   double z = 1.0;   ///< flexural buckling about z
-  double lt = 1.0;  ///< unrestrained length for lateral-torsional buckling
+  double lt = 1.0;  ///< unrestrained length for lateral-torsional buckling, also the torsional
+                    ///< buckling length lT of 6.3.1.4 (length between twist restraints)
 };
 
 /// One member as the checks see it.
@@ -116,7 +141,10 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
 /// CheckResult each: "5.5 classification" (only for a class 4 section: its
 /// c/t over the class 3 limit, failing), "6.2 cross-section" (N + My + Mz, eq. 6.2, with the
 /// shear reduction of 6.2.8), "6.2.6 shear", "6.3.1 flexural buckling",
-/// "6.3.2 lateral-torsional buckling", "6.3.3 interaction" (6.61, 6.62).
+/// "6.3.1.4 torsional buckling" (open sections in compression: torsional or
+/// torsional-flexural), "6.3.2 lateral-torsional buckling", "6.3.3 interaction"
+/// (6.61, 6.62; Cm of Table B.3 from each diagram, 0.9 for an axis whose
+/// buckling length factor exceeds 1, i.e. a sway mode).
 /// Checks that do not apply (no compression, closed sections for LTB) are
 /// left out. `combination` is copied into the results.
 std::vector<CheckResult> check_member(const MemberInput& member, const LineResult& line, const std::string& combination,
