@@ -1,14 +1,19 @@
 #pragma once
 // Pictures of a load result for reports: the frame seen from above one
-// corner, members drawn through their stations and coloured by stress.
-// Drawn with VTK's image canvas (no display or OpenGL needed, so it works on
-// build servers) and encoded as PNG by VTK.
+// corner, members drawn through their stations and coloured by stress, with a
+// colour bar. Rendered by VTK with OpenGL in an offscreen context (EGL without
+// a window system: Mesa's software renderer on servers, no display needed) on
+// a thread of its own, so a host application's current OpenGL context is left
+// alone. Where no such context can be created, the same picture is drawn
+// without OpenGL on VTK's image canvas (lines only, no colour bar). PNG
+// encoded by VTK.
 
 #include "stepframe/analysis/frame_model.hpp"
 #include "stepframe/analysis/results.hpp"
 
 #include <array>
 #include <cstdint>
+#include <string>
 #include <vector>
 
 namespace stepframe::viz {
@@ -18,6 +23,7 @@ struct PictureOptions {
   int height = 600;
   bool deformed = false;     ///< draw the deformed shape over a grey undeformed one
   double stress_max = 0;     ///< colour scale top [Pa]; 0 = the result's largest von Mises stress
+  bool opengl = true;        ///< false: draw on the image canvas even where OpenGL is available
 };
 
 /// What was drawn: the PNG and the colour scale used.
@@ -25,6 +31,7 @@ struct Picture {
   std::vector<std::uint8_t> png;
   double stress_max = 0;         ///< [Pa], the colour scale's top (its bottom is 0)
   double deformation_scale = 0;  ///< displacements were multiplied by this (deformed pictures)
+  std::string drawn_by;          ///< "OpenGL (offscreen)" or "image canvas"
 };
 
 /// Colour of a value in [0, 1] on the scale the pictures and the report share:

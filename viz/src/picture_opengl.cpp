@@ -1,0 +1,237 @@
+// Report pictures rendered by VTK with OpenGL in an offscreen EGL context.
+//
+// Debian's VTK 9.1 is built for X (GLX) only, so a window-system-free context
+// is made here with EGL on Mesa's surfaceless platform and handed to VTK's
+// generic OpenGL render window, which renders into its own framebuffer
+// object. GLEW's GLX half cannot start without an X display: glewInit loads
+// every OpenGL entry point first and only then fails on GLX with
+// GLEW_ERROR_NO_GLX_DISPLAY, which the window below accepts.
+
+#include "picture_scene.hpp"
+#include "png_bytes.hpp"
+#include "stepframe/viz/picture.hpp"
+
+// GLEW before any other OpenGL header.
+#include <GL/glew.h>
+//
+#include <EGL/egl.h>
+#include <Eigen/Geometry>
+#include <EGL/eglext.h>
+#include <vtkActor.h>
+#include <vtkAutoInit.h>
+#include <vtkCamera.h>
+#include <vtkCellArray.h>
+#include <vtkDoubleArray.h>
+#include <vtkGenericOpenGLRenderWindow.h>
+#include <vtkLookupTable.h>
+#include <vtkNew.h>
+#include <vtkObjectFactory.h>
+#include <vtkPointData.h>
+#include <vtkPoints.h>
+#include <vtkPolyData.h>
+#include <vtkPolyDataMapper.h>
+#include <vtkProperty.h>
+#include <vtkRenderer.h>
+#include <vtkScalarBarActor.h>
+#include <vtkTextProperty.h>
+#include <vtkWindowToImageFilter.h>
+
+#include <thread>
+
+VTK_MODULE_INIT(vtkRenderingOpenGL2);
+VTK_MODULE_INIT(vtkRenderingFreeType);
+
+namespace stepframe::viz::detail {
+namespace {
+
+/// A surfaceless EGL context, current on the calling thread while this lives.
+class OffscreenContext {
+ public:
+  /// Throws std::runtime_error saying what is missing.
+  OffscreenContext() {
+    auto platform_display =
+        reinterpret_cast<PFNEGLGETPLATFORMDISPLAYEXTPROC>(eglGetProcAddress("eglGetPlatformDisplayEXT"));
+    if (!platform_display) throw std::runtime_error("EGL has no eglGetPlatformDisplayEXT");
+    display_ = platform_display(EGL_PLATFORM_SURFACELESS_MESA, EGL_DEFAULT_DISPLAY, nullptr);
+    EGLint major = 0, minor = 0;
+    if (display_ == EGL_NO_DISPLAY || !eglInitialize(display_, &major, &minor))
+      throw std::runtime_error("no surfaceless EGL display (Mesa's EGL and DRI drivers are needed)");
+    if (!eglBindAPI(EGL_OPENGL_API)) throw std::runtime_error("EGL cannot bind desktop OpenGL");
+    // VTK needs OpenGL 3.2 core.
+    const EGLint attributes[] = {EGL_CONTEXT_MAJOR_VERSION, 3, EGL_CONTEXT_MINOR_VERSION, 2,
+                                 EGL_CONTEXT_OPENGL_PROFILE_MASK, EGL_CONTEXT_OPENGL_CORE_PROFILE_BIT, EGL_NONE};
+    context_ = eglCreateContext(display_, EGL_NO_CONFIG_KHR, EGL_NO_CONTEXT, attributes);
+    if (context_ == EGL_NO_CONTEXT) throw std::runtime_error("EGL cannot create an OpenGL 3.2 core context");
+    if (!eglMakeCurrent(display_, EGL_NO_SURFACE, EGL_NO_SURFACE, context_)) {
+      eglDestroyContext(display_, context_);
+      throw std::runtime_error("EGL cannot make the context current without a surface");
+    }
+  }
+  ~OffscreenContext() {
+    // The display stays initialised: terminating it would end any other user's contexts on it.
+    eglMakeCurrent(display_, EGL_NO_SURFACE, EGL_NO_SURFACE, EGL_NO_CONTEXT);
+    eglDestroyContext(display_, context_);
+  }
+  OffscreenContext(const OffscreenContext&) = delete;
+  OffscreenContext& operator=(const OffscreenContext&) = delete;
+
+ private:
+  EGLDisplay display_ = EGL_NO_DISPLAY;
+  EGLContext context_ = EGL_NO_CONTEXT;
+};
+
+/// VTK's generic render window on the current context, with OpenGL entry points loaded without GLX.
+class ContextWindow : public vtkGenericOpenGLRenderWindow {
+ public:
+  static ContextWindow* New();
+  vtkTypeMacro(ContextWindow, vtkGenericOpenGLRenderWindow)
+
+ protected:
+  void OpenGLInitContext() override {
+    if (!this->Initialized) {
+      glewExperimental = GL_TRUE;
+      const GLenum loaded = glewInit();
+      if (loaded != GLEW_OK && loaded != GLEW_ERROR_NO_GLX_DISPLAY) {
+        vtkErrorMacro("GLEW could not load the OpenGL entry points");
+        return;
+      }
+      if (!GLEW_VERSION_3_2) {
+        vtkErrorMacro("the offscreen context does not offer OpenGL 3.2");
+        return;
+      }
+      // What the base class does after glewInit: the line width range the hardware draws.
+      GLfloat range[2] = {1, 1};
+      glGetFloatv(GL_ALIASED_LINE_WIDTH_RANGE, range);
+      this->MaximumHardwareLineWidth = glGetError() == GL_NO_ERROR ? range[1] : 1.0f;
+      this->Initialized = true;  // the base class skips its glewInit (whose GLX half needs an X display)
+    }
+    vtkGenericOpenGLRenderWindow::OpenGLInitContext();
+  }
+};
+vtkStandardNewMacro(ContextWindow);
+
+/// The polylines as VTK poly data, stresses in MPa for the colour bar's labels.
+vtkSmartPointer<vtkPolyData> polylines(const std::vector<ScenePolyline>& lines) {
+  vtkNew<vtkPoints> points;
+  points->SetDataTypeToDouble();
+  vtkNew<vtkCellArray> cells;
+  vtkNew<vtkDoubleArray> stress;
+  stress->SetName("von Mises [MPa]");
+  for (const auto& line : lines) {
+    cells->InsertNextCell(static_cast<int>(line.size()));
+    for (const auto& p : line) {
+      cells->InsertCellPoint(points->InsertNextPoint(p.position.data()));
+      stress->InsertNextValue(p.stress / 1e6);  // Pa -> MPa, for people
+    }
+  }
+  auto data = vtkSmartPointer<vtkPolyData>::New();
+  data->SetPoints(points);
+  data->SetLines(cells);
+  data->GetPointData()->SetScalars(stress);
+  return data;
+}
+
+std::vector<std::uint8_t> render(const PictureScene& scene) {
+  const OffscreenContext context;
+  vtkNew<ContextWindow> window;
+  window->SetSize(scene.width, scene.height);
+  window->SetOwnContext(false);
+  window->SetIsCurrent(true);
+  window->SetReadyForRendering(true);
+  window->SetOffScreenRendering(true);
+  window->SetMultiSamples(0);
+  window->SetFrameBlitModeToNoBlit();
+
+  vtkNew<vtkRenderer> renderer;
+  renderer->SetBackground(1, 1, 1);
+  window->AddRenderer(renderer);
+
+  // The report's colour scale as a 256-entry table over [0, stress_max].
+  vtkNew<vtkLookupTable> table;
+  table->SetNumberOfTableValues(256);
+  table->SetTableRange(0, std::max(scene.stress_max / 1e6, 1e-9));
+  for (int i = 0; i < 256; ++i) {
+    const auto rgb = stress_colour(i / 255.0);
+    table->SetTableValue(i, rgb[0] / 255.0, rgb[1] / 255.0, rgb[2] / 255.0, 1.0);
+  }
+  table->Build();
+
+  auto add_lines = [&](const std::vector<ScenePolyline>& lines, bool coloured, float width) {
+    if (lines.empty()) return;
+    vtkNew<vtkPolyDataMapper> mapper;
+    mapper->SetInputData(polylines(lines));
+    mapper->SetScalarVisibility(coloured);
+    mapper->SetLookupTable(table);
+    mapper->UseLookupTableScalarRangeOn();
+    mapper->InterpolateScalarsBeforeMappingOn();
+    vtkNew<vtkActor> actor;
+    actor->SetMapper(mapper);
+    actor->GetProperty()->LightingOff();  // flat colours: the scale reads the same everywhere
+    actor->GetProperty()->SetLineWidth(width);
+    if (!coloured) actor->GetProperty()->SetColor(0.78, 0.78, 0.78);
+    renderer->AddActor(actor);
+  };
+  add_lines(scene.grey, false, 1.5f);
+  add_lines(scene.coloured, true, 4.0f);
+
+  // The colour bar in a strip of its own on the right.
+  vtkNew<vtkRenderer> strip;
+  strip->SetBackground(1, 1, 1);
+  strip->SetViewport(0.82, 0, 1, 1);
+  renderer->SetViewport(0, 0, 0.82, 1);
+  window->AddRenderer(strip);
+  vtkNew<vtkScalarBarActor> bar;
+  bar->SetLookupTable(table);
+  bar->SetTitle("MPa");
+  bar->SetNumberOfLabels(5);
+  bar->SetLabelFormat("%.0f");
+  bar->UnconstrainedFontSizeOn();
+  bar->SetPosition(0.15, 0.05);
+  bar->SetWidth(0.7);
+  bar->SetHeight(0.8);
+  bar->SetBarRatio(0.3);
+  for (vtkTextProperty* text : {bar->GetTitleTextProperty(), bar->GetLabelTextProperty()}) {
+    text->SetColor(0.1, 0.1, 0.1);
+    text->SetFontSize(14);
+    text->ShadowOff();
+    text->ItalicOff();
+    text->BoldOff();
+  }
+  strip->AddViewProp(bar);
+
+  // The view of the canvas pictures: orthographic, from above the (+X, -Y) corner.
+  vtkCamera* camera = renderer->GetActiveCamera();
+  camera->ParallelProjectionOn();
+  camera->SetFocalPoint(0, 0, 0);
+  camera->SetPosition(view_right.cross(view_up).data());
+  camera->SetViewUp(view_up.data());
+  renderer->ResetCamera();
+  camera->Zoom(0.95);
+
+  window->Render();
+  vtkNew<vtkWindowToImageFilter> grab;
+  grab->SetInput(window);
+  grab->SetInputBufferTypeToRGB();
+  grab->ReadFrontBufferOff();
+  grab->Update();
+  if (glGetError() != GL_NO_ERROR) throw std::runtime_error("OpenGL reported an error while rendering");
+  return png_bytes(grab->GetOutput());
+}
+
+}  // namespace
+
+std::optional<std::vector<std::uint8_t>> render_with_opengl(const PictureScene& scene, std::string& why_not) {
+  // A thread of its own: its OpenGL "current context" is its own, whatever the caller's thread has current.
+  std::optional<std::vector<std::uint8_t>> png;
+  std::thread worker([&] {
+    try {
+      png = render(scene);
+    } catch (const std::exception& e) {
+      why_not = e.what();
+    }
+  });
+  worker.join();
+  return png;
+}
+
+}  // namespace stepframe::viz::detail
