@@ -70,7 +70,7 @@ struct TableShape {
 };
 constexpr TableShape table_shapes[] = {
     {"rolled_i", "designation,h,b,tw,tf,r", SpecKind::rolled_i},
-    {"channel", "designation,h,b,tw,tf,r,r_toe,slope", SpecKind::channel},
+    {"channel", "designation,h,b,tw,tf,r,r_toe,slope,tf_at", SpecKind::channel},
     {"angle", "designation,h,b,t,r,r_toe", SpecKind::angle},
     {"rhs_hot", "designation,h,b,t", SpecKind::rhs_hot},
     {"rhs_cold", "designation,h,b,t", SpecKind::rhs_cold},
@@ -221,7 +221,9 @@ Section build_section(const ShapeSpec& spec) {
   Section s;
   switch (spec.kind) {
     case SpecKind::rolled_i: s = rolled_i_section(spec.designation, {v[0], v[1], v[2], v[3], v[4]}); break;
-    case SpecKind::channel: s = channel_section(spec.designation, {v[0], v[1], v[2], v[3], v[4], v[5], v[6]}); break;
+    case SpecKind::channel:
+      s = channel_section(spec.designation, {v[0], v[1], v[2], v[3], v[4], v[5], v[6], v[7]});
+      break;
     case SpecKind::angle: s = angle_section(spec.designation, {v[0], v[1], v[2], v[3], v[4]}); break;
     case SpecKind::rhs_hot:
       s = rhs_section(spec.designation, rhs_dimensions(v[0], v[1], v[2], HollowForming::hot_finished));

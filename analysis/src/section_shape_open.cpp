@@ -2,6 +2,7 @@
 
 #include "section_outline.hpp"
 #include "stepframe/analysis/section_shapes.hpp"
+#include "stepframe/analysis/thin_walled.hpp"
 
 #include <algorithm>
 #include <cmath>
@@ -12,11 +13,13 @@ namespace {
 
 // St Venant torsion contribution of an L junction (two plates t1, t2 meeting at
 // a corner with inner radius r) after El Darwish & Johnston, "Torsion of
-// structural shapes", J. Struct. Div. ASCE 91 (1965): alpha D^4 with
-// alpha = 0.07 + 0.076 r / t (t the thinner plate) and the inscribed circle
-// diameter D = 2 ((3 r + t1 + t2) - sqrt(2 (2 r + t1)(2 r + t2))). From memory.
+// structural shapes", J. Struct. Div. ASCE 91 (1965), as given in AISC Design
+// Guide 9 for channels and angles: alpha D^4 with alpha = (t/t')(0.07 + 0.076 r/t'),
+// t the thinner and t' the thicker plate, and the inscribed circle diameter
+// D = 2 ((3 r + t1 + t2) - sqrt(2 (2 r + t1)(2 r + t2))). From memory.
 double l_junction(double t1, double t2, double r) {
-  const double alpha = 0.07 + 0.076 * r / std::min(t1, t2);
+  const double thin = std::min(t1, t2), thick = std::max(t1, t2);
+  const double alpha = (thin / thick) * (0.07 + 0.076 * r / thick);
   const double D = 2 * ((3 * r + t1 + t2) - std::sqrt(2 * (2 * r + t1) * (2 * r + t2)));
   return alpha * std::pow(D, 4);
 }
@@ -28,10 +31,15 @@ double plate_torsion(double c, double t, int free_ends) { return c * t * t * t /
 
 Section channel_section(std::string designation, const ChannelDimensions& d) {
   const double h = d.h, b = d.b, tw = d.tw, tf = d.tf, r = d.r, r2 = d.r_toe, slope = d.flange_slope;
-  // Inner flange face through (b/2, -h/2 + tf) with the given slope, thicker towards the web.
-  const double z_root = -h / 2 + tf + slope * (b / 2 - tw), z_toe = -h / 2 + tf - slope * (b / 2);
+  detail::require(slope == 0 || (d.tf_at > tw && d.tf_at < b), "channel", designation,
+                  "a tapered flange needs tf_at, where tf is measured, between the web and the toe");
+  // Flange thickness at y from the back of the web: the inner face falls by
+  // `slope` per unit length towards the toe (elementary geometry).
+  const auto flange_t = [&](double y) { return tf + slope * (d.tf_at - y); };
+  const double t_root = flange_t(tw), t_toe = flange_t(b);
+  const double z_root = -h / 2 + t_root, z_toe = -h / 2 + t_toe;
   detail::require(h > 0 && b > tw && tw > 0 && tf > 0 && r >= 0 && r2 >= 0 && slope >= 0 && slope < 0.2 &&
-                      z_toe > -h / 2 && z_root + r < 0,
+                      t_toe > 0 && z_root + r < 0,
                   "channel", designation, "dimensions must satisfy b > tw > 0, tf > 0, r >= 0 and 2 (tf + r) < h");
   Section s;
   s.designation = std::move(designation);
@@ -43,18 +51,30 @@ Section channel_section(std::string designation, const ChannelDimensions& d) {
                                           n);
     (n == detail::fine_segments ? outline.fine : outline.display).push_back(ring);
   }
-  // Thin-walled channel on centre lines b' = b - tw/2, h' = h - tf (Timoshenko &
-  // Gere / Vlasov): shear centre e = 3 b'^2 tf / (6 b' tf + h' tw) behind the web's
-  // centre line; Iw = tf b'^3 h'^2 / 12 (3 b' tf + 2 h' tw) / (6 b' tf + h' tw).
-  const double bp = b - tw / 2, hp = h - tf;
-  const double e = 3 * bp * bp * tf / (6 * bp * tf + hp * tw);
-  outline.shear_centre = {tw / 2 - e, 0.0};
+  // Shear centre and warping constant by thin-walled theory on the walls'
+  // mid-thickness lines (thin_walled.hpp): the flanges run from the web's centre
+  // line to the toes, tapering and inclined as the inner faces are; the web joins
+  // the flanges' mid lines. For parallel flanges this is the closed form of
+  // Timoshenko & Gere (e = 3 b'^2 tf / (6 b' tf + h' tw), b' = b - tw/2, h' = h - tf).
+  const auto mid = [&](double y) { return SectionPoint{y, h / 2 - flange_t(y) / 2}; };
+  const SectionPoint toe = mid(b), junction = mid(tw / 2);
+  const ThinWalledWarping warping =
+      thin_walled_warping({{toe, junction, t_toe, flange_t(tw / 2)},
+                           {junction, {junction.y, -junction.z}, tw, tw},
+                           {{junction.y, -junction.z}, {toe.y, -toe.z}, flange_t(tw / 2), t_toe}});
+  outline.shear_centre = warping.shear_centre;
   detail::fill_from_outline(s, outline);
-  s.Iw = tf * bp * bp * bp * hp * hp / 12 * (3 * bp * tf + 2 * hp * tw) / (6 * bp * tf + hp * tw);
-  const double hw = h - 2 * tf;
-  s.J = 2 * plate_torsion(b, tf, 1) + hw * tw * tw * tw / 3 + 2 * l_junction(tw, tf, r);
+  s.Iw = warping.Iw;
+  // St Venant torsion after El Darwish & Johnston (channel: two flanges with one
+  // free end, the web between them, two L junctions), with a tapered flange
+  // replaced by the parallel one of equal integral of t^3 over the outstand
+  // (thin-walled torsion J = sum of t^3 ds / 3, Roark): for t linear from t_root
+  // to t_toe, t_eq^3 = (t_root + t_toe)(t_root^2 + t_toe^2) / 4.
+  const double t_eq = std::cbrt(0.25 * (t_root + t_toe) * (t_root * t_root + t_toe * t_toe));
+  s.J = 2 * plate_torsion(b, t_eq, 1) + (h - 2 * t_eq) * tw * tw * tw / 3 + 2 * l_junction(tw, t_eq, r);
   // EN 1993-1-1 6.2.6(3)(b): rolled channel loaded parallel to the web,
   // A - 2 b tf + (tw + r) tf; parallel to the flanges A - hw tw (6.2.6(3)(e)).
+  const double hw = h - 2 * tf;
   s.Avz = s.A - 2 * b * tf + (tw + r) * tf;
   s.Avy = s.A - hw * tw;
   s.parts = {{"web", PartKind::internal, h - 2 * tf - 2 * r, tw},

@@ -20,7 +20,7 @@ struct ShapeSpec {
   std::string standard;        ///< standard of the shape and its dimensions
   std::string alias;           ///< another accepted spelling, or empty
   SpecKind kind = SpecKind::rolled_i;
-  std::array<double, 7> v{};   ///< dimensions [m], in the order of the shape's struct
+  std::array<double, 8> v{};   ///< dimensions [m], in the order of the shape's struct
 };
 
 /// The Section of a spec (section_shapes.hpp functions), with family and standard set.

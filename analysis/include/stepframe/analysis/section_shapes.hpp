@@ -30,13 +30,17 @@ struct WeldedIDimensions {
 Section welded_i_section(std::string designation, const WeldedIDimensions& d);
 
 /// Channel: web on the -y side, flanges towards +y. `flange_slope` is the
-/// inner-face slope of a tapered flange (0.08 for UPN up to 300 mm), with tf
-/// measured half-way along the flange width b (DIN 1026-1 convention, from
-/// memory); 0 for parallel flanges (UPE, ASTM C shapes as parallel idealisation).
+/// inner-face slope of a tapered flange (0.08 for UPN up to 300 mm, 0.05 above,
+/// 1/6 for ASTM C shapes), 0 for parallel flanges (UPE). The flange thickness
+/// tf of a tapered flange is measured at `tf_at` from the back of the web: b/2
+/// for UPN up to 300 mm, (b + tw)/2 (half-way along the outstand) for larger UPN
+/// (DIN 1026-1 drawings, from memory) and for ASTM C shapes (the AISC Manual's
+/// average flange thickness, from memory); ignored for parallel flanges.
 struct ChannelDimensions {
   double h = 0, b = 0, tw = 0, tf = 0, r = 0;  ///< depth, flange width, web, flange, root radius
   double r_toe = 0;                            ///< radius at the flange toe (inner side)
   double flange_slope = 0;
+  double tf_at = 0;  ///< where tf is measured, from the back of the web (tapered flanges)
 };
 Section channel_section(std::string designation, const ChannelDimensions& d);
 
