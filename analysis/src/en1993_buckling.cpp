@@ -83,11 +83,6 @@ double critical_moment(double E, double G, double Iz, double Iw, double It, doub
   return C1 * pi2 * E * Iz / (L * L) * (std::sqrt(Iw / Iz + L * L * G * It / (pi2 * E * Iz) + c2zg * c2zg) - c2zg);
 }
 
-double c1_linear(double psi) {
-  // Common approximation for end moments M and psi M (from memory).
-  return std::min(1.88 - 1.40 * psi + 0.52 * psi * psi, 2.70);
-}
-
 double cm_linear(double psi) {
   // EN 1993-1-1 Annex B Table B.3, linear moment diagram.
   return std::max(0.6 + 0.4 * psi, 0.4);

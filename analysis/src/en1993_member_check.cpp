@@ -185,23 +185,35 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   double chi_lt = 1.0;
   if (has_lateral_torsional_buckling(s) && my.peak > 0) {
     const double Llt = lT;
-    // Linear diagram: C1 from psi, load effects at the shear centre. Otherwise the conservative default:
-    // C1 = 1.0 with the load on the top flange (zg = h/2, C2 = 0.454 for a uniform load, from memory).
-    const double C1 = my.linear ? c1_linear(my.psi) : 1.0;
-    const double C2 = my.linear ? 0.0 : 0.454, zg = my.linear ? 0.0 : 0.5 * s.depth;
-    const double Mcr = critical_moment(E, G, s.Iz, s.Iw, s.J, Llt, C1, C2, zg);
+    // Span loads (a curved diagram) are taken on the top flange, towards the shear centre: the conservative
+    // default when the model does not say where they act.
+    const double zg = my.linear ? 0.0 : 0.5 * s.depth;
+    double Mcr = 0;
+    std::string basis;
+    if (std::abs(in.buckling.lt - 1.0) < 1e-12) {
+      // Restrained at the member ends only: Mcr of the member's own moment diagram (energy method).
+      std::vector<DiagramPoint> points;
+      points.reserve(line.stations.size());
+      for (const Station& st : line.stations) points.push_back({st.x, st.forces(My_), st.forces(Vz_)});
+      Mcr = critical_moment_for_diagram({E, G, s.Iz, s.Iw, s.J}, points, zg);
+      basis = fmt::format("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and no "
+                          "restraint between{}",
+                          Llt, my.linear ? "" : "; span loads on the top flange (conservative default)");
+    } else {
+      // Restraints inside the member: the diagram between them is not known here, so uniform moment (C1 = 1,
+      // the lowest) over the unrestrained length is the conservative default.
+      Mcr = critical_moment(E, G, s.Iz, s.Iw, s.J, Llt, 1.0, my.linear ? 0.0 : 0.454, zg);
+      basis = fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", Llt,
+                          my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
+    }
     const double lambda_lt = std::sqrt(Wy * fy / Mcr);                     // (6.56)
     const Curve curve = lateral_torsional_curve(s);
     chi_lt = lambda_lt <= 0.2 ? 1.0 : reduction_factor(lambda_lt, curve);  // 6.3.2.2(4): lambda_LT,0 = 0.2
     const double MbRd = chi_lt * Wy * fy / f.gamma_M1;                     // (6.55)
     out.push_back(result(
         "6.3.2 lateral-torsional buckling",
-        fmt::format("EN 1993-1-1 6.3.2.2, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}, {}", curve_name(curve), Mcr / 1e3,
-                    chi_lt,
-                    my.linear ? fmt::format("linear moment, C1 = {:.2f}, unrestrained length {:.3g} m", C1, Llt)
-                              : fmt::format("conservative default: no restraint over {:.3g} m, C1 = 1.0, load on the "
-                                            "top flange",
-                                            Llt)),
+        fmt::format("EN 1993-1-1 6.3.2.2, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}; {}", curve_name(curve),
+                    Mcr / 1e3, chi_lt, basis),
         line.stations[my.peak_station].x, my.peak, MbRd));
   }
 

@@ -82,9 +82,29 @@ Curve lateral_torsional_curve(const Section& section);
 double critical_moment(double E, double G, double Iz, double Iw, double It, double L, double C1, double C2 = 0,
                        double zg = 0);
 
-/// C1 for a linear moment diagram with end-moment ratio psi (-1 <= psi <= 1):
-/// 1.88 - 1.40 psi + 0.52 psi^2 <= 2.70 (from memory; a common approximation).
-double c1_linear(double psi);
+/// Section and material stiffnesses that resist lateral-torsional buckling.
+struct LateralTorsionalStiffness {
+  double E = 0, G = 0;           ///< [Pa]
+  double Iz = 0, Iw = 0, It = 0;  ///< minor-axis second moment [m^4], warping constant [m^6], St Venant constant [m^4]
+};
+
+/// One point of a member's strong-axis moment diagram.
+struct DiagramPoint {
+  double x = 0;  ///< along the member [m]
+  double M = 0;  ///< My [N m]
+  double V = 0;  ///< Vz [N]; the drop of V between points is the transverse load on that interval
+};
+
+/// Elastic critical moment (largest |M| of the diagram at buckling) of a
+/// doubly symmetric member with fork supports at its ends and no restraint
+/// between them, under the moment diagram given by the points (any shape:
+/// end moments, span loads, point loads), by the energy method with `terms`
+/// sine terms each for lateral displacement and twist (Timoshenko & Gere,
+/// Theory of Elastic Stability, 2nd ed., 1961, 6.3). The transverse loads act
+/// `load_height` above the shear centre, towards it (destabilising; 0 = at the
+/// shear centre). Infinite when the diagram has no moment.
+double critical_moment_for_diagram(const LateralTorsionalStiffness& stiffness, const std::vector<DiagramPoint>& diagram,
+                                   double load_height = 0, int terms = 16);
 
 /// Equivalent uniform moment factor Cm of Annex B Table B.3 for a linear
 /// diagram: 0.6 + 0.4 psi >= 0.4.
