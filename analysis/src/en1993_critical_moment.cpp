@@ -38,10 +38,12 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
     K(n + i) = (k.G * k.It * w * w + k.E * k.Iw * std::pow(w, 4)) * L / 2;
   }
   Eigen::MatrixXd G = Eigen::MatrixXd::Zero(2 * n, 2 * n);
-  // Moment term: int M(x) (i pi / L)^2 sin_i sin_j dx, M linear between points, integrated by 3-point
-  // Gauss rule on sub-intervals fine enough for the highest sine term.
-  const int sub = std::max(4, terms);
+  // Moment term: int M(x) (i pi / L)^2 sin_i sin_j dx, M linear between points, integrated by the 3-point
+  // Gauss rule on sub-intervals: about three points per half-wave of the highest product sin_n sin_n.
+  const auto intervals = static_cast<int>(diagram.size() - 1);
+  const int sub = std::max(1, (2 * terms + intervals - 1) / intervals);
   const double gauss_x[3] = {-std::sqrt(0.6), 0.0, std::sqrt(0.6)}, gauss_w[3] = {5.0 / 9, 8.0 / 9, 5.0 / 9};
+  Eigen::VectorXd sines(n), bent(n);  // sin_i(x) and (i pi / L)^2 sin_i(x) at one point
   for (std::size_t p = 0; p + 1 < diagram.size(); ++p) {
     const double xa = diagram[p].x - x0, xb = diagram[p + 1].x - x0;
     if (xb - xa <= 0) continue;
@@ -52,27 +54,25 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
         const double t = (x - xa) / (xb - xa);
         const double M = (1 - t) * diagram[p].M + t * diagram[p + 1].M;
         for (Eigen::Index i = 0; i < n; ++i) {
-          const double wi = static_cast<double>(i + 1) * pi / L, si = std::sin(wi * x);
-          for (Eigen::Index j = 0; j < n; ++j) {
-            const double sj = std::sin(static_cast<double>(j + 1) * pi / L * x);
-            const double c = weight * M * wi * wi * si * sj;
-            G(i, n + j) += c;  // 1/2 x^T G x = sum a_i b_j c_ij
-            G(n + j, i) += c;
-          }
+          const double wi = static_cast<double>(i + 1) * pi / L;
+          sines(i) = std::sin(wi * x);
+          bent(i) = wi * wi * sines(i);
         }
+        // 1/2 x^T G x = sum a_i b_j c_ij, c_ij = int M (i pi / L)^2 sin_i sin_j dx.
+        G.topRightCorner(n, n).noalias() += (weight * M) * bent * sines.transpose();
       }
     }
   }
+  G.bottomLeftCorner(n, n) = G.topRightCorner(n, n).transpose();
   // Load-height term: the transverse load on each interval is the drop of the shear across it, taken at
   // its middle (a point load is the jump between two points at the same x).
   if (load_height != 0)
     for (std::size_t p = 0; p + 1 < diagram.size(); ++p) {
       const double Q = std::abs(diagram[p].V - diagram[p + 1].V);
+      if (Q == 0) continue;
       const double x = 0.5 * (diagram[p].x + diagram[p + 1].x) - x0;
-      for (Eigen::Index i = 0; i < n; ++i)
-        for (Eigen::Index j = 0; j < n; ++j)
-          G(n + i, n + j) += Q * load_height * std::sin(static_cast<double>(i + 1) * pi / L * x) *
-                             std::sin(static_cast<double>(j + 1) * pi / L * x);
+      for (Eigen::Index i = 0; i < n; ++i) sines(i) = std::sin(static_cast<double>(i + 1) * pi / L * x);
+      G.bottomRightCorner(n, n).noalias() += (Q * load_height) * sines * sines.transpose();
     }
   // G x = mu K x with K diagonal and positive: mu of K^-1/2 G K^-1/2; lambda = 1 / mu_max.
   const Eigen::VectorXd r = K.cwiseSqrt().cwiseInverse();
