@@ -17,6 +17,23 @@ using namespace stepframe::analysis;
 using namespace stepframe::analysis::en1993;
 using Catch::Matchers::Contains;
 
+namespace {
+
+/// One S355 member along x from the origin, pinned at both ends with twist held (fork supports): the
+/// start fixed in x, y, z and rx, the end in y, z and rx.
+FrameModel fork_supported_s355(const Section& section, double L) {
+  FrameModel model;
+  model.nodes = {{0, 0, 0}, {L, 0, 0}};
+  model.sections = {section};
+  model.materials = {*find_standard_material("S355")};
+  model.elements = {{{0, 1}, 0, 0, 0.0}};
+  model.supports = {test::support(0, {true, true, true, true, false, false}),
+                    test::support(1, {false, true, true, true, false, false})};
+  return model;
+}
+
+}  // namespace
+
 TEST_CASE("reduction factors follow the buckling curves of EN 1993-1-1 6.3.1.2") {
   // chi at lambda = 1.0 and 0.5 for each curve: values of the curves of EN 1993-1-1
   // Figure 6.4 as commonly tabulated (from memory), tolerance 1e-4.
@@ -213,13 +230,7 @@ TEST_CASE("a short equal-angle strut is governed by torsional-flexural buckling"
   REQUIRE(angle);
   const Section& s = *angle;
   const double L = 0.8, P = 150e3, fy = 355e6, E = 210e9, G = 81e9, pi = std::numbers::pi;
-  FrameModel model;
-  model.nodes = {{0, 0, 0}, {L, 0, 0}};
-  model.sections = {s};
-  model.materials = {*find_standard_material("S355")};
-  model.elements = {{{0, 1}, 0, 0, 0.0}};
-  model.supports = {test::support(0, {true, true, true, true, false, false}),
-                    test::support(1, {false, true, true, true, false, false})};
+  FrameModel model = fork_supported_s355(s, L);
   LoadCase lc;
   lc.name = "P";
   lc.node_loads = {{1, Eigen::Vector3d(-P, 0, 0), Eigen::Vector3d::Zero()}};
@@ -247,18 +258,11 @@ TEST_CASE("a short equal-angle strut is governed by torsional-flexural buckling"
 }
 
 TEST_CASE("a simply supported beam-column under uniform load takes Cm = 0.95") {
-  // Table B.3 (from memory): alpha_h = 0 with a uniform load gives Cmy = 0.95; previously the screening
-  // used the 1.0 bound for every span-loaded member.
+  // Table B.3 (from memory): alpha_h = 0 with a uniform load gives Cmy = 0.95.
   const auto ipe = find_catalogue_section("IPE300");
   REQUIRE(ipe);
-  FrameModel model;
   const double L = 5.0;
-  model.nodes = {{0, 0, 0}, {L, 0, 0}};
-  model.sections = {*ipe};
-  model.materials = {*find_standard_material("S355")};
-  model.elements = {{{0, 1}, 0, 0, 0.0}};
-  model.supports = {test::support(0, {true, true, true, true, false, false}),
-                    test::support(1, {false, true, true, true, false, false})};
+  FrameModel model = fork_supported_s355(*ipe, L);
   LoadCase lc;
   lc.name = "wP";
   lc.node_loads = {{1, Eigen::Vector3d(-200e3, 0, 0), Eigen::Vector3d::Zero()}};
@@ -342,13 +346,7 @@ TEST_CASE("a uniformly loaded beam with fork supports: Mcr from its own diagram,
   REQUIRE(ipe);
   const Section& s = *ipe;
   const double L = 6.0, w = 12e3, fy = 355e6, E = 210e9, G = 81e9;
-  FrameModel model;
-  model.nodes = {{0, 0, 0}, {L, 0, 0}};
-  model.sections = {s};
-  model.materials = {*find_standard_material("S355")};
-  model.elements = {{{0, 1}, 0, 0, 0.0}};
-  model.supports = {test::support(0, {true, true, true, true, false, false}),
-                    test::support(1, {false, true, true, true, false, false})};
+  FrameModel model = fork_supported_s355(s, L);
   LoadCase lc;
   lc.name = "w";
   ElementLoad load;
