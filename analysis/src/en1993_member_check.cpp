@@ -119,12 +119,17 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double VplZ = s.Avz * fy / std::sqrt(3.0) / f.gamma_M0, VplY = s.Avy * fy / std::sqrt(3.0) / f.gamma_M0;
     if (VplZ > 0 && Vz > 0.5 * VplZ) MyRd *= 1.0 - std::pow(std::min(2 * Vz / VplZ - 1, 1.0), 2);
     if (VplY > 0 && Vy > 0.5 * VplY) MzRd *= 1.0 - std::pow(std::min(2 * Vy / VplY - 1, 1.0), 2);
-    // (6.2): linear interaction, valid for every class 1 to 3 section.
-    const double u = std::abs(N) / NRd + std::abs(My) / MyRd + std::abs(Mz) / MzRd;
+    // Class 1 and 2 I and rectangular hollow sections: the plastic interaction of 6.2.9.1; otherwise the
+    // linear sum (6.2), valid for every class 1 to 3 section.
+    const std::optional<double> plastic =
+        cls.section_class <= 2 ? plastic_interaction(s, {NRd, MyRd, MzRd}, N, My, Mz) : std::nullopt;
+    const double u = plastic ? *plastic : std::abs(N) / NRd + std::abs(My) / MyRd + std::abs(Mz) / MzRd;
     if (u > worst_section) {
       worst_section = u;
       section_check = result("6.2 cross-section",
-                             fmt::format("EN 1993-1-1 6.2.1(7) eq. (6.2), N + My + Mz, with 6.2.8 shear; class {} ({})",
+                             fmt::format("EN 1993-1-1 {}, with 6.2.8 shear; class {} ({})",
+                                         plastic ? "6.2.9.1 (6.36)-(6.41), plastic N + My + Mz"
+                                                 : "6.2.1(7) eq. (6.2), N + My + Mz",
                                          cls.section_class, cls.governing_part),
                              st.x, u, 1.0);
     }

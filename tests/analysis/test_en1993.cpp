@@ -364,3 +364,47 @@ TEST_CASE("a uniformly loaded beam with fork supports: Mcr from its own diagram,
   CHECK(it->value == Approx(w * L * L / 8).epsilon(1e-6));
   CHECK(it->utilisation == Approx(w * L * L / 8 / (chi_lt * s.Wpl_y * fy)).epsilon(0.03));
 }
+
+TEST_CASE("bending and axial force on class 1 and 2 sections (6.2.9.1)") {
+  // The utilisation u is 1 / the proportional load factor: the actions divided by u meet (6.41) exactly.
+  const double fy = 355e6;
+  SECTION("IPE 300: a = (A - 2 b tf) / A with tf = 10.7 mm, (6.36), (6.38), alpha = 2, beta = 5 n") {
+    const auto s = find_catalogue_section("IPE300");
+    REQUIRE(s);
+    const PlasticResistances r{s->A * fy, s->Wpl_y * fy, s->Wpl_z * fy};
+    const double a = (s->A - 2 * 0.150 * 0.0107) / s->A;
+    CHECK(a == Approx(0.40).margin(0.01));
+    // Bending alone about y: (My / Mpl,y)^2 = 1 at My = Mpl,y, so u = My / Mpl,y.
+    CHECK(*plastic_interaction(*s, r, 0, 0.5 * r.My, 0) == Approx(0.5).epsilon(1e-9));
+    // About z alone (n = 0, beta = 1): u = Mz / Mpl,z.
+    CHECK(*plastic_interaction(*s, r, 0, 0, -0.7 * r.Mz) == Approx(0.7).epsilon(1e-9));
+    // Axial alone: u = n.
+    CHECK(*plastic_interaction(*s, r, -0.45 * r.N, 0, 0) == Approx(0.45).epsilon(1e-9));
+    // N with both moments: at the actions divided by u the left side of (6.41) is 1, worked with the
+    // clause's formulas here (n <= a: MN,z = Mpl,z; n > a: (6.38)).
+    const double N = -0.3 * r.N, My = 0.5 * r.My, Mz = 0.2 * r.Mz;
+    const auto u = plastic_interaction(*s, r, N, My, Mz);
+    REQUIRE(u);
+    const double n = 0.3 / *u;
+    const double MNy = std::min(r.My * (1 - n) / (1 - 0.5 * a), r.My);
+    const double MNz = n <= a ? r.Mz : r.Mz * (1 - std::pow((n - a) / (1 - a), 2));
+    CHECK(std::pow(My / *u / MNy, 2) + std::pow(Mz / *u / MNz, std::max(5 * n, 1.0)) == Approx(1).epsilon(1e-9));
+    CHECK(*u < 0.3 + 0.5 + 0.2);  // the linear sum (6.2) is the conservative bound
+    CHECK(*u > 0.5);
+  }
+  SECTION("SHS 200x200x10 hot finished: aw = af = (A - 2 b t) / A, alpha = beta = 1.66 / (1 - 1.13 n^2)") {
+    const auto s = find_catalogue_section("SHS 200x200x10 HF");
+    REQUIRE(s);
+    const PlasticResistances r{s->A * fy, s->Wpl_y * fy, s->Wpl_z * fy};
+    const double aw = (s->A - 2 * 0.2 * 0.010) / s->A;
+    const auto u = plastic_interaction(*s, r, 0.4 * r.N, 0.3 * r.My, 0.3 * r.Mz);
+    REQUIRE(u);
+    const double n = 0.4 / *u, MN = r.My * (1 - n) / (1 - 0.5 * aw), e = 1.66 / (1 - 1.13 * n * n);
+    CHECK(2 * std::pow(0.3 * r.My / *u / MN, e) == Approx(1).epsilon(1e-9));
+  }
+  SECTION("other shapes are left to the linear sum") {
+    const auto chs = find_catalogue_section("CHS 219.1x8");
+    REQUIRE(chs);
+    CHECK_FALSE(plastic_interaction(*chs, {1, 1, 1}, 0.1, 0.1, 0.1));
+  }
+}

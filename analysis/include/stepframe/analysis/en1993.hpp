@@ -15,6 +15,7 @@
 #include "stepframe/analysis/section.hpp"
 
 #include <array>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -62,6 +63,22 @@ struct Classification {
 /// stress state of a part is not computed). Sections without parts (given by
 /// properties) are taken as class 3 (elastic resistance).
 Classification classify(const Section& section, double fy, double N, double My);
+
+/// Design plastic resistances of a cross-section, shear reductions (6.2.8) included [N, N m].
+struct PlasticResistances {
+  double N = 0;   ///< Npl,Rd
+  double My = 0;  ///< Mpl,y,Rd
+  double Mz = 0;  ///< Mpl,z,Rd
+};
+
+/// Bending and axial force on a class 1 or 2 rolled I or H section or a
+/// rectangular hollow section (6.2.9.1): the reduced plastic moments (6.36)
+/// to (6.40) and the biaxial criterion (6.41) with alpha, beta of 6.2.9.1(6).
+/// Returns the utilisation as the linear sum (6.2) reads: the actions divided
+/// by it just meet (6.41) (1 / the proportional load factor; above 1 fails),
+/// or nothing for other shapes (the caller then uses the linear sum (6.2)).
+std::optional<double> plastic_interaction(const Section& section, const PlasticResistances& resistances, double N,
+                                          double My, double Mz);
 
 /// Flexural buckling curves about y and z (Table 6.2).
 struct FlexuralCurves {
@@ -159,7 +176,8 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
 
 /// The EN 1993-1-1 checks of one member under one load result, one
 /// CheckResult each: "5.5 classification" (only for a class 4 section: its
-/// c/t over the class 3 limit, failing), "6.2 cross-section" (N + My + Mz, eq. 6.2, with the
+/// c/t over the class 3 limit, failing), "6.2 cross-section" (N + My + Mz:
+/// 6.2.9.1 for class 1 and 2 I and RHS sections, else eq. 6.2; with the
 /// shear reduction of 6.2.8), "6.2.6 shear", "6.3.1 flexural buckling",
 /// "6.3.1.4 torsional buckling" (open sections in compression: torsional or
 /// torsional-flexural), "6.3.2 lateral-torsional buckling", "6.3.3 interaction"
