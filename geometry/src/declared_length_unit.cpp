@@ -1,5 +1,7 @@
 #include "declared_length_unit.hpp"
 
+#include "step_kind.hpp"
+
 #include "stepframe/geometry/length_unit.hpp"
 
 #include <STEPConstruct_UnitContext.hxx>
@@ -30,13 +32,13 @@ namespace {
 // The unit assignment of a representation context, whichever complex-entity
 // form OCCT read it into.
 Handle(StepRepr_GlobalUnitAssignedContext) unit_context_of(const Handle(Standard_Transient) & entity) {
-  if (auto plain = Handle(StepRepr_GlobalUnitAssignedContext)::DownCast(entity); !plain.IsNull())
+  if (auto plain = as_kind<StepRepr_GlobalUnitAssignedContext>(entity); !plain.IsNull())
     return plain;
   if (auto with_uncertainty =
-          Handle(StepGeom_GeomRepContextAndGlobUnitAssCtxAndGlobUncertaintyAssCtx)::DownCast(entity);
+          as_kind<StepGeom_GeomRepContextAndGlobUnitAssCtxAndGlobUncertaintyAssCtx>(entity);
       !with_uncertainty.IsNull())
     return with_uncertainty->GlobalUnitAssignedContext();
-  if (auto geometric = Handle(StepGeom_GeometricRepresentationContextAndGlobalUnitAssignedContext)::DownCast(entity);
+  if (auto geometric = as_kind<StepGeom_GeometricRepresentationContextAndGlobalUnitAssignedContext>(entity);
       !geometric.IsNull())
     return geometric->GlobalUnitAssignedContext();
   return nullptr;
@@ -45,9 +47,9 @@ Handle(StepRepr_GlobalUnitAssignedContext) unit_context_of(const Handle(Standard
 bool is_length_unit(const Handle(StepBasic_NamedUnit) & unit) {
   // SI_UNIT(.., .METRE.) is a length unit whatever complex form it came in;
   // a conversion based unit is a length unit when its factor is a length.
-  if (auto si = Handle(StepBasic_SiUnit)::DownCast(unit); !si.IsNull())
+  if (auto si = as_kind<StepBasic_SiUnit>(unit); !si.IsNull())
     return si->Name() == StepBasic_sunMetre;
-  if (auto converted = Handle(StepBasic_ConversionBasedUnit)::DownCast(unit); !converted.IsNull()) {
+  if (auto converted = as_kind<StepBasic_ConversionBasedUnit>(unit); !converted.IsNull()) {
     const Handle(StepBasic_MeasureWithUnit)& factor = converted->ConversionFactor();
     if (factor.IsNull()) return false;
     const Handle(StepBasic_NamedUnit) base = factor->UnitComponent().NamedUnit();
@@ -59,7 +61,7 @@ bool is_length_unit(const Handle(StepBasic_NamedUnit) & unit) {
 // Size of a length unit in metres; nullopt when it cannot be worked out.
 std::optional<DeclaredLengthUnit> describe(const Handle(StepBasic_NamedUnit) & unit, int depth = 0) {
   if (unit.IsNull() || depth > 4) return std::nullopt;
-  if (auto si = Handle(StepBasic_SiUnit)::DownCast(unit); !si.IsNull()) {
+  if (auto si = as_kind<StepBasic_SiUnit>(unit); !si.IsNull()) {
     if (si->Name() != StepBasic_sunMetre) return std::nullopt;
     // SI prefixes, ISO 80000-1: milli = 1e-3 etc.
     const double prefix = si->HasPrefix() ? STEPConstruct_UnitContext::ConvertSiPrefix(si->Prefix()) : 1.0;
@@ -72,7 +74,7 @@ std::optional<DeclaredLengthUnit> describe(const Handle(StepBasic_NamedUnit) & u
     if (out.name.empty()) out.name = fmt::format("{:g} m", prefix);
     return out;
   }
-  if (auto converted = Handle(StepBasic_ConversionBasedUnit)::DownCast(unit); !converted.IsNull()) {
+  if (auto converted = as_kind<StepBasic_ConversionBasedUnit>(unit); !converted.IsNull()) {
     const Handle(StepBasic_MeasureWithUnit)& factor = converted->ConversionFactor();
     if (factor.IsNull()) return std::nullopt;
     const auto base = describe(factor->UnitComponent().NamedUnit(), depth + 1);

@@ -1,5 +1,7 @@
 #include "edge_entities.hpp"
 
+#include "step_kind.hpp"
+
 #include <StepGeom_Curve.hxx>
 #include <StepShape_ConnectedEdgeSet.hxx>
 #include <StepShape_Edge.hxx>
@@ -18,40 +20,25 @@
 #include <TransferBRep.hxx>
 
 #include <cstddef>
-#include <limits>
 #include <vector>
 
 namespace stepframe::geometry::detail {
 
 namespace {
 
-// Ranks who made an edge: a curve or an edge entity beats a set holding it,
-// and among sets the one that produced fewer edges is the nearer.
-struct Candidate {
-  Handle(Standard_Transient) entity;
-  bool is_curve_or_edge = false;
-  std::size_t granularity = std::numeric_limits<std::size_t>::max();  // edges the entity produced
-
-  bool better_than(const Candidate& other) const {
-    if (is_curve_or_edge != other.is_curve_or_edge) return is_curve_or_edge;
-    return granularity < other.granularity;
-  }
-};
-
 bool is_curve_or_edge(const Handle(Standard_Transient) & entity) {
   return entity->IsKind(STANDARD_TYPE(StepGeom_Curve)) || entity->IsKind(STANDARD_TYPE(StepShape_Edge));
 }
 
-void offer(std::unordered_map<const TopoDS_TShape*, Candidate>& best, const TopoDS_Shape& edge,
-           const Candidate& offered) {
-  Candidate& slot = best[edge.TShape().get()];
-  if (offered.better_than(slot)) slot = offered;
+void offer(EdgeEntityMap& best, const TopoDS_TShape* edge, const EdgeMaker& offered) {
+  const auto [slot, fresh] = best.try_emplace(edge, offered);
+  if (!fresh && offered.better_than(slot->second)) slot->second = offered;
 }
 
 // OCCT binds an edge-based wireframe model as a whole; its edges come out in
 // the order of the connected edge sets and their edges (StepToTopoDS_Builder).
 // Pair them up when the counts agree, so each edge names its EDGE_CURVE.
-void offer_wireframe_edges(std::unordered_map<const TopoDS_TShape*, Candidate>& best,
+void offer_wireframe_edges(EdgeEntityMap& best,
                            const Handle(StepShape_EdgeBasedWireframeModel) & model, const TopoDS_Shape& result) {
   std::vector<Handle(Standard_Transient)> step_edges;
   const Handle(StepShape_HArray1OfConnectedEdgeSet) sets = model->EbwmBoundary();
@@ -62,7 +49,7 @@ void offer_wireframe_edges(std::unordered_map<const TopoDS_TShape*, Candidate>& 
     const Handle(StepShape_HArray1OfEdge) edges = set->CesEdges();
     for (Standard_Integer k = edges->Lower(); k <= edges->Upper(); ++k) {
       Handle(Standard_Transient) edge(edges->Value(k));
-      if (auto oriented = Handle(StepShape_OrientedEdge)::DownCast(edge); !oriented.IsNull())
+      if (auto oriented = as_kind<StepShape_OrientedEdge>(edge); !oriented.IsNull())
         edge = oriented->EdgeElement();
       step_edges.push_back(edge);
     }
@@ -71,14 +58,16 @@ void offer_wireframe_edges(std::unordered_map<const TopoDS_TShape*, Candidate>& 
   for (TopExp_Explorer it(result, TopAbs_EDGE); it.More(); it.Next()) occt_edges.push_back(it.Current());
   if (occt_edges.size() != step_edges.size()) return;  // an edge failed to translate: keep the coarser map
   for (std::size_t i = 0; i < occt_edges.size(); ++i)
-    offer(best, occt_edges[i], Candidate{step_edges[i], is_curve_or_edge(step_edges[i]), 1});
+    offer(best, occt_edges[i].TShape().get(), EdgeMaker{step_edges[i], is_curve_or_edge(step_edges[i]), 1});
 }
 
 }  // namespace
 
 EdgeEntityMap map_edges_to_entities(const Handle(Transfer_TransientProcess) & process) {
-  std::unordered_map<const TopoDS_TShape*, Candidate> best;
-  if (process.IsNull()) return {};
+  EdgeEntityMap best;
+  if (process.IsNull()) return best;
+  best.reserve(static_cast<std::size_t>(process->NbMapped()));
+  std::vector<const TopoDS_TShape*> made;
   for (Standard_Integer i = 1; i <= process->NbMapped(); ++i) {
     const Handle(Standard_Transient)& entity = process->Mapped(i);
     const Handle(Transfer_Binder) binder = process->MapItem(i);
@@ -89,22 +78,19 @@ EdgeEntityMap map_edges_to_entities(const Handle(Transfer_TransientProcess) & pr
     if (result.ShapeType() == TopAbs_EDGE || result.ShapeType() == TopAbs_VERTEX) {
       // A curve or edge made into one edge; a point of a curve set bound on
       // its own to the vertex made from it.
-      offer(best, result, Candidate{entity, fine, 1});
+      offer(best, result.TShape().get(), EdgeMaker{entity, fine, 1});
       continue;
     }
     // A set, model or representation made into many edges: count them, then
     // offer each (an edge met twice in a compound is offered twice, harmlessly).
-    std::size_t count = 0;
-    for (TopExp_Explorer it(result, TopAbs_EDGE); it.More(); it.Next()) ++count;
-    const Candidate offered{entity, fine, count};
-    for (TopExp_Explorer it(result, TopAbs_EDGE); it.More(); it.Next()) offer(best, it.Current(), offered);
-    if (auto wireframe = Handle(StepShape_EdgeBasedWireframeModel)::DownCast(entity); !wireframe.IsNull())
+    made.clear();
+    for (TopExp_Explorer it(result, TopAbs_EDGE); it.More(); it.Next()) made.push_back(it.Current().TShape().get());
+    const EdgeMaker offered{entity, fine, made.size()};
+    for (const TopoDS_TShape* edge : made) offer(best, edge, offered);
+    if (auto wireframe = as_kind<StepShape_EdgeBasedWireframeModel>(entity); !wireframe.IsNull())
       offer_wireframe_edges(best, wireframe, result);
   }
-  EdgeEntityMap map;
-  map.reserve(best.size());
-  for (auto& [tshape, candidate] : best) map.emplace(tshape, candidate.entity);
-  return map;
+  return best;
 }
 
 }  // namespace stepframe::geometry::detail

@@ -67,8 +67,10 @@ void add_label(Harvest& harvest, const Eigen::Vector3d& at, const std::optional<
                const SourceInfo& owner) {
   if (!label) return;
   // A vertex shared by several edges, or met both as a vertex and as a
-  // trimming point, is one labelled point.
-  if (!harvest.labelled.insert({label->entity, {at.x(), at.y(), at.z()}}).second) return;
+  // trimming point, is one labelled point, wherever rounding put each copy.
+  const auto micrometres = [](double metres) { return std::llround(metres * 1e6); };
+  if (!harvest.labelled.insert({label->entity, {micrometres(at.x()), micrometres(at.y()), micrometres(at.z())}}).second)
+    return;
   SourceInfo source = *label;
   if (!owner.product.empty()) source.product = owner.product;
   source.assembly_path = owner.assembly_path;
@@ -142,15 +144,16 @@ void harvest_edge(const TopoDS_Edge& edge, const std::string& product, const std
   for (std::size_t i = 0; i < labels.at.size() && i < points.size(); ++i)
     add_label(harvest, to_metres(points[i], scale), labels.at[i], source);
   for (std::size_t i = 0; i + 1 < points.size(); ++i) {
-    WireEdge piece{to_metres(points[i], scale), to_metres(points[i + 1], scale), source, {}};
-    if ((piece.end - piece.start).norm() <= shortest) {
+    const Eigen::Vector3d start = to_metres(points[i], scale), end = to_metres(points[i + 1], scale);
+    if ((end - start).norm() <= shortest) {
       diagnostics.push_back({Severity::warning, "zero-length-edge",
                              fmt::format("{} has zero length at ({:.6g}, {:.6g}, {:.6g}) m; it was dropped",
-                                         who(source), piece.start.x(), piece.start.y(), piece.start.z()),
-                             {source.entity}, piece.start});
+                                         who(source), start.x(), start.y(), start.z()),
+                             {source.entity}, start});
       continue;
     }
-    harvest.model.edges.push_back(std::move(piece));
+    // The last piece takes the attributes over; the others copy them.
+    harvest.model.edges.push_back({start, end, i + 2 == points.size() ? std::move(source) : source, {}});
   }
 }
 

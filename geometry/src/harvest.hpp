@@ -57,7 +57,8 @@ struct Harvest {
   double metres_per_model_unit;  ///< the shapes' length unit in metres
   StepModel& model;
   std::unordered_set<const Standard_Transient*> reached;  ///< entities met, edge or not
-  std::set<std::pair<std::string, std::array<double, 3>>> labelled;  ///< (entity, place) of points already kept
+  /// (entity, place in micrometres) of the points already kept.
+  std::set<std::pair<std::string, std::array<long long, 3>>> labelled;
   std::size_t bodies = 0;
   std::size_t edges_seen = 0;
   std::size_t without_entity = 0;

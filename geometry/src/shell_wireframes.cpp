@@ -47,6 +47,13 @@ std::vector<std::string> split_args(std::string_view s) {
   return out;
 }
 
+// {"a", "b"} -> "a,b".
+std::string joined(const std::vector<std::string>& items) {
+  std::string out;
+  for (std::size_t k = 0; k < items.size(); ++k) out += (k ? "," : "") + items[k];
+  return out;
+}
+
 // "(#1,#2)" -> {"#1", "#2"}.
 std::vector<std::string> list_items(const std::string& list) {
   if (list.size() < 2 || list.front() != '(' || list.back() != ')') return {};
@@ -115,49 +122,66 @@ bool mentions_shell_wireframes(std::string_view step_text) {
   return step_text.find("SHELL_BASED_WIREFRAME") != std::string_view::npos;
 }
 
-std::optional<std::string> rewrite_shell_wireframes(std::string_view step_text, std::size_t& vertex_shells) {
-  vertex_shells = 0;
+std::optional<std::string> rewrite_shell_wireframes(std::string_view step_text) {
   if (!mentions_shell_wireframes(step_text)) return std::nullopt;
   const std::map<std::string, Instance> instances = scan(step_text);
   auto type_of = [&](const std::string& id) -> const Instance* {
     const auto it = instances.find(id);
     return it == instances.end() ? nullptr : &it->second;
   };
+  // Argument `index` of instance `id` when it is of `type`, else "".
+  auto argument = [&](const std::string& id, const char* type, std::size_t index) -> std::string {
+    const Instance* i = type_of(id);
+    return i != nullptr && i->type == type && i->args.size() > index ? i->args[index] : std::string();
+  };
   // Replacements of right-hand sides, by position in the text.
   std::map<std::size_t, std::pair<std::size_t, std::string>> edits;
+  // The vertex shells of each shell-based model, rewritten as point sets.
+  std::map<std::string, std::vector<std::string>> point_sets_of;
   for (const auto& [id, instance] : instances) {
-    if (instance.type == "SHELL_BASED_WIREFRAME_SHAPE_REPRESENTATION") {
-      std::string rhs = "EDGE_BASED_WIREFRAME_SHAPE_REPRESENTATION(";
-      for (std::size_t k = 0; k < instance.args.size(); ++k) rhs += (k ? "," : "") + instance.args[k];
-      edits[instance.begin] = {instance.end, rhs + ")"};
-    } else if (instance.type == "SHELL_BASED_WIREFRAME_MODEL" && instance.args.size() == 2) {
-      std::string shells;
-      for (const std::string& shell : list_items(instance.args[1])) {
-        const Instance* s = type_of(shell);
-        if (s == nullptr) continue;
-        if (s->type == "VERTEX_SHELL") {
-          ++vertex_shells;
-          continue;
-        }
-        if (s->type != "WIRE_SHELL" || s->args.size() != 2) continue;
-        // The shell's loops' oriented edges, by their edge elements.
-        std::string edges;
-        for (const std::string& loop : list_items(s->args[1])) {
-          const Instance* l = type_of(loop);
-          if (l == nullptr || l->type != "EDGE_LOOP" || l->args.size() != 2) continue;
-          for (const std::string& oriented : list_items(l->args[1])) {
-            const Instance* o = type_of(oriented);
-            // ORIENTED_EDGE(name, *, *, edge_element, orientation)
-            const std::string edge = o != nullptr && o->type == "ORIENTED_EDGE" && o->args.size() == 5 ? o->args[3]
-                                                                                                      : oriented;
-            edges += (edges.empty() ? "" : ",") + edge;
-          }
-        }
-        edits[s->begin] = {s->end, "CONNECTED_EDGE_SET(" + s->args[0] + ",(" + edges + "))"};
-        shells += (shells.empty() ? "" : ",") + shell;
+    if (instance.type != "SHELL_BASED_WIREFRAME_MODEL" || instance.args.size() != 2) continue;
+    std::string shells;
+    for (const std::string& shell : list_items(instance.args[1])) {
+      const Instance* s = type_of(shell);
+      if (s == nullptr) continue;
+      if (s->type == "VERTEX_SHELL" && s->args.size() == 2) {
+        // VERTEX_SHELL(name, VERTEX_LOOP(name, VERTEX_POINT(name, point)))
+        const std::string point = argument(argument(s->args[1], "VERTEX_LOOP", 1), "VERTEX_POINT", 1);
+        if (point.empty()) continue;
+        edits[s->begin] = {s->end, "GEOMETRIC_SET(" + s->args[0] + ",(" + point + "))"};
+        point_sets_of[id].push_back(shell);
+        continue;
       }
-      edits[instance.begin] = {instance.end, "EDGE_BASED_WIREFRAME_MODEL(" + instance.args[0] + ",(" + shells + "))"};
+      if (s->type != "WIRE_SHELL" || s->args.size() != 2) continue;
+      // The shell's loops' oriented edges, by their edge elements.
+      std::string edges;
+      for (const std::string& loop : list_items(s->args[1])) {
+        const Instance* l = type_of(loop);
+        if (l == nullptr || l->type != "EDGE_LOOP" || l->args.size() != 2) continue;
+        for (const std::string& oriented : list_items(l->args[1])) {
+          const Instance* o = type_of(oriented);
+          // ORIENTED_EDGE(name, *, *, edge_element, orientation)
+          const std::string edge = o != nullptr && o->type == "ORIENTED_EDGE" && o->args.size() == 5 ? o->args[3]
+                                                                                                    : oriented;
+          edges += (edges.empty() ? "" : ",") + edge;
+        }
+      }
+      edits[s->begin] = {s->end, "CONNECTED_EDGE_SET(" + s->args[0] + ",(" + edges + "))"};
+      shells += (shells.empty() ? "" : ",") + shell;
     }
+    edits[instance.begin] = {instance.end, "EDGE_BASED_WIREFRAME_MODEL(" + instance.args[0] + ",(" + shells + "))"};
+  }
+  for (const auto& [id, instance] : instances) {
+    if (instance.type != "SHELL_BASED_WIREFRAME_SHAPE_REPRESENTATION") continue;
+    std::vector<std::string> args = instance.args;
+    if (args.size() == 3) {
+      std::vector<std::string> items = list_items(args[1]);
+      for (std::size_t k = 0, n = items.size(); k < n; ++k)
+        if (const auto sets = point_sets_of.find(items[k]); sets != point_sets_of.end())
+          items.insert(items.end(), sets->second.begin(), sets->second.end());
+      args[1] = "(" + joined(items) + ")";
+    }
+    edits[instance.begin] = {instance.end, "EDGE_BASED_WIREFRAME_SHAPE_REPRESENTATION(" + joined(args) + ")"};
   }
   std::string out;
   out.reserve(step_text.size());

@@ -1,5 +1,7 @@
 #include "step_attributes.hpp"
 
+#include "step_kind.hpp"
+
 #include <Interface_EntityIterator.hxx>
 #include <Interface_Graph.hxx>
 #include <Quantity_Color.hxx>
@@ -17,6 +19,7 @@
 #include <StepGeom_CartesianPoint.hxx>
 #include <StepGeom_Point.hxx>
 #include <StepShape_HArray1OfGeometricSetSelect.hxx>
+#include <StepShape_VertexLoop.hxx>
 #include <StepShape_VertexPoint.hxx>
 #include <StepVisual_Colour.hxx>
 #include <StepVisual_HArray1OfLayeredItem.hxx>
@@ -48,11 +51,15 @@ std::string text_of(const Handle(TCollection_HAsciiString) & text) {
 }
 
 std::string own_name(const Handle(Standard_Transient) & entity) {
-  if (auto item = Handle(StepRepr_RepresentationItem)::DownCast(entity); !item.IsNull())
+  if (auto item = as_kind<StepRepr_RepresentationItem>(entity); !item.IsNull())
     return text_of(item->Name());
-  if (auto representation = Handle(StepRepr_Representation)::DownCast(entity); !representation.IsNull())
+  if (auto representation = as_kind<StepRepr_Representation>(entity); !representation.IsNull())
     return text_of(representation->Name());
   return {};
+}
+
+bool is_point(const Handle(Standard_Transient) & entity) {
+  return entity->IsKind(STANDARD_TYPE(StepGeom_CartesianPoint)) || entity->IsKind(STANDARD_TYPE(StepShape_VertexPoint));
 }
 
 std::string hex_colour(const Quantity_Color& colour) {
@@ -66,7 +73,7 @@ std::string hex_colour(const Quantity_Color& colour) {
 }  // namespace
 
 StepAttributes::StepAttributes(const Handle(XSControl_WorkSession) & session)
-    : session_(session), model_(Handle(StepData_StepModel)::DownCast(session->Model())) {
+    : session_(session), model_(as_kind<StepData_StepModel>(session->Model())) {
   if (model_.IsNull()) return;
   const STEPConstruct_Styles styles(session_);
   std::vector<Handle(StepShape_GeometricSet)> sets;
@@ -78,37 +85,45 @@ StepAttributes::StepAttributes(const Handle(XSControl_WorkSession) & session)
       auto& list = parents_[child.get()];
       if (std::find(list.begin(), list.end(), entity) == list.end()) list.push_back(entity);
     };
-    if (auto set = Handle(StepShape_GeometricSet)::DownCast(entity); !set.IsNull()) {
+    if (auto set = as_kind<StepShape_GeometricSet>(entity); !set.IsNull()) {
       sets.push_back(set);
       if (!set->Elements().IsNull())
         for (Standard_Integer k = 1; k <= set->NbElements(); ++k) adopt(set->ElementsValue(k).Value());
       continue;
     }
-    if (auto edges = Handle(StepShape_ConnectedEdgeSet)::DownCast(entity); !edges.IsNull()) {
+    if (auto edges = as_kind<StepShape_ConnectedEdgeSet>(entity); !edges.IsNull()) {
       if (!edges->CesEdges().IsNull())
         for (Standard_Integer k = edges->CesEdges()->Lower(); k <= edges->CesEdges()->Upper(); ++k)
           adopt(edges->CesEdges()->Value(k));
       continue;
     }
-    if (auto wireframe = Handle(StepShape_EdgeBasedWireframeModel)::DownCast(entity); !wireframe.IsNull()) {
+    if (auto wireframe = as_kind<StepShape_EdgeBasedWireframeModel>(entity); !wireframe.IsNull()) {
       if (!wireframe->EbwmBoundary().IsNull())
         for (Standard_Integer k = wireframe->EbwmBoundary()->Lower(); k <= wireframe->EbwmBoundary()->Upper(); ++k)
           adopt(wireframe->EbwmBoundary()->Value(k));
       continue;
     }
-    if (auto representation = Handle(StepRepr_Representation)::DownCast(entity); !representation.IsNull()) {
+    if (auto representation = as_kind<StepRepr_Representation>(entity); !representation.IsNull()) {
       if (!representation->Items().IsNull())
         for (Standard_Integer k = 1; k <= representation->NbItems(); ++k) adopt(representation->ItemsValue(k));
       continue;
     }
-    if (auto composite = Handle(StepGeom_CompositeCurve)::DownCast(entity); !composite.IsNull()) {
+    // A vertex loop (of a vertex shell, ISO 10303-42) holds a vertex point;
+    // OCCT makes a vertex of its cartesian point, which then stands for it.
+    if (auto loop = as_kind<StepShape_VertexLoop>(entity); !loop.IsNull()) {
+      adopt(loop->LoopVertex());
+      if (auto vertex = as_kind<StepShape_VertexPoint>(loop->LoopVertex()); !vertex.IsNull())
+        if (!vertex->VertexGeometry().IsNull()) vertex_of_point_.try_emplace(vertex->VertexGeometry().get(), vertex);
+      continue;
+    }
+    if (auto composite = as_kind<StepGeom_CompositeCurve>(entity); !composite.IsNull()) {
       if (!composite->Segments().IsNull())
         for (Standard_Integer k = 1; k <= composite->NbSegments(); ++k)
           if (!composite->SegmentsValue(k).IsNull()) adopt(composite->SegmentsValue(k)->ParentCurve());
       continue;
     }
 
-    if (auto layer = Handle(StepVisual_PresentationLayerAssignment)::DownCast(entity); !layer.IsNull()) {
+    if (auto layer = as_kind<StepVisual_PresentationLayerAssignment>(entity); !layer.IsNull()) {
       const std::string name = text_of(layer->Name());
       if (name.empty() || layer->AssignedItems().IsNull()) continue;
       for (Standard_Integer k = 1; k <= layer->NbAssignedItems(); ++k) {
@@ -120,7 +135,12 @@ StepAttributes::StepAttributes(const Handle(XSControl_WorkSession) & session)
       continue;
     }
 
-    if (auto styled = Handle(StepVisual_StyledItem)::DownCast(entity); !styled.IsNull()) {
+    if (!may_label_points_ && is_point(entity) && !own_name(entity).empty()) {
+      may_label_points_ = true;
+      continue;
+    }
+
+    if (auto styled = as_kind<StepVisual_StyledItem>(entity); !styled.IsNull()) {
       const Handle(Standard_Transient) target = styled->ItemAP242().Value();
       if (target.IsNull()) continue;
       Handle(StepVisual_Colour) surface, boundary, curve, render;
@@ -138,28 +158,39 @@ StepAttributes::StepAttributes(const Handle(XSControl_WorkSession) & session)
       }
     }
   }
-  // Points of a layered geometric set are on its layers.
+  // Points of a layered geometric set are on its layers. A set holding the
+  // point of a vertex loop's vertex (a vertex shell, as the reader rewrites
+  // it) holds that vertex: it passes down its name as well.
   for (const Handle(StepShape_GeometricSet)& set : sets) {
+    if (set->Elements().IsNull()) continue;
     const auto layers = layers_.find(set.get());
-    if (layers == layers_.end() || set->Elements().IsNull()) continue;
     for (Standard_Integer k = 1; k <= set->NbElements(); ++k) {
       const Handle(Standard_Transient) element = set->ElementsValue(k).Value();
-      if (!element.IsNull() && element->IsKind(STANDARD_TYPE(StepGeom_CartesianPoint)))
-        add_layers(set_layers_of_point_[element.get()], layers->second);
+      if (element.IsNull() || !element->IsKind(STANDARD_TYPE(StepGeom_CartesianPoint))) continue;
+      if (layers != layers_.end()) add_layers(set_layers_of_point_[element.get()], layers->second);
+      if (auto vertex = vertex_of_point_.find(element.get()); vertex != vertex_of_point_.end())
+        parents_[vertex->second.get()].push_back(set);
     }
   }
+  may_label_points_ = may_label_points_ || !set_layers_of_point_.empty() || !vertex_of_point_.empty() ||
+                      std::any_of(layers_.begin(), layers_.end(), [](const auto& entry) {
+                        return entry.first->IsKind(STANDARD_TYPE(StepGeom_CartesianPoint)) ||
+                               entry.first->IsKind(STANDARD_TYPE(StepShape_VertexPoint));
+                      });
 }
 
 std::string StepAttributes::entity_id(const Handle(Standard_Transient) & entity) const {
   if (entity.IsNull() || model_.IsNull()) return {};
   Standard_Integer label = model_->IdentLabel(entity);
   if (label <= 0) label = model_->Number(entity);
-  return label > 0 ? fmt::format("#{}", label) : std::string();
+  return label > 0 ? "#" + std::to_string(label) : std::string();
 }
 
-std::vector<Handle(Standard_Transient)> StepAttributes::containers_of(const Handle(Standard_Transient) & entity) const {
+const std::vector<Handle(Standard_Transient)>& StepAttributes::containers_of(
+    const Handle(Standard_Transient) & entity) const {
+  static const std::vector<Handle(Standard_Transient)> none;
   if (auto it = parents_.find(entity.get()); it != parents_.end()) return it->second;
-  return {};
+  return none;
 }
 
 const SourceInfo& StepAttributes::inherited_from(const Handle(Standard_Transient) & container) const {
@@ -198,11 +229,14 @@ SourceInfo StepAttributes::attributes_of(const Handle(Standard_Transient) & enti
 }
 
 std::optional<SourceInfo> StepAttributes::point_attributes(const Handle(Standard_Transient) & point) const {
-  if (point.IsNull()) return std::nullopt;
+  if (point.IsNull() || !may_label_points_) return std::nullopt;
+  // The cartesian point of a vertex shell's vertex stands for that vertex.
+  Handle(Standard_Transient) subject = point;
+  if (auto it = vertex_of_point_.find(point.get()); it != vertex_of_point_.end()) subject = it->second;
   // The point itself and, for a vertex, its cartesian point: their own names,
   // their own layers, and the layers of geometric sets holding them.
-  Handle(Standard_Transient) own[2] = {point, nullptr};
-  if (auto vertex = Handle(StepShape_VertexPoint)::DownCast(point); !vertex.IsNull()) own[1] = vertex->VertexGeometry();
+  Handle(Standard_Transient) own[2] = {subject, nullptr};
+  if (auto vertex = as_kind<StepShape_VertexPoint>(subject); !vertex.IsNull()) own[1] = vertex->VertexGeometry();
   SourceInfo info;
   for (const Handle(Standard_Transient)& entity : own) {
     if (entity.IsNull()) continue;
@@ -211,8 +245,14 @@ std::optional<SourceInfo> StepAttributes::point_attributes(const Handle(Standard
     if (auto it = set_layers_of_point_.find(entity.get()); it != set_layers_of_point_.end())
       add_layers(info.layers, it->second);
   }
+  // A vertex also takes the names and layers of the vertex loops and vertex
+  // shells that hold it (their own, not those of the representation above).
+  for (const Handle(Standard_Transient)& container : containers_of(subject)) {
+    if (info.name.empty()) info.name = own_name(container);
+    if (auto it = layers_.find(container.get()); it != layers_.end()) add_layers(info.layers, it->second);
+  }
   if (info.name.empty() && info.layers.empty()) return std::nullopt;
-  info.entity = entity_id(point);
+  info.entity = entity_id(subject);
   return info;
 }
 

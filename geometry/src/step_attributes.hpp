@@ -34,15 +34,22 @@ class StepAttributes {
 
   /// Attributes of a point (CARTESIAN_POINT or VERTEX_POINT) when it carries a
   /// name of its own or a layer (its own, its vertex's or point's, or a
-  /// container's); nullopt for an unlabelled point.
+  /// container's); nullopt for an unlabelled point. A vertex takes name and
+  /// layers from the vertex loops and shells holding it too, and the cartesian
+  /// point of a vertex shell's vertex is reported as that vertex.
   std::optional<SourceInfo> point_attributes(const Handle(Standard_Transient) & point) const;
+
+  /// False when no point of the file can be labelled (no point or vertex has a
+  /// name or a layer, no layered set holds a point, no vertex shell): then
+  /// point_attributes is nullopt for every point, and callers may skip asking.
+  bool may_label_points() const { return may_label_points_; }
 
  private:
   /// Name, colour and layers a container passes down to what it holds (its
   /// own, then its containers'), worked out once per container.
   const SourceInfo& inherited_from(const Handle(Standard_Transient) & container) const;
   /// The containers that hold `entity` directly.
-  std::vector<Handle(Standard_Transient)> containers_of(const Handle(Standard_Transient) & entity) const;
+  const std::vector<Handle(Standard_Transient)>& containers_of(const Handle(Standard_Transient) & entity) const;
 
   Handle(XSControl_WorkSession) session_;
   Handle(StepData_StepModel) model_;
@@ -50,6 +57,9 @@ class StepAttributes {
   std::unordered_map<const Standard_Transient*, std::string> colours_;
   /// Layers of the geometric sets that hold a point as one of their elements.
   std::unordered_map<const Standard_Transient*, std::vector<std::string>> set_layers_of_point_;
+  /// Cartesian point -> the vertex point of a vertex loop that stands on it.
+  std::unordered_map<const Standard_Transient*, Handle(Standard_Transient)> vertex_of_point_;
+  bool may_label_points_ = false;
   mutable std::unordered_map<const Standard_Transient*, SourceInfo> inherited_;
   /// Child -> the containers that list it (sets, edge sets, wireframe models,
   /// representations, composite curves), read once from the model.

@@ -6,6 +6,7 @@
 #include "occt_messages.hpp"
 #include "shell_wireframes.hpp"
 #include "step_attributes.hpp"
+#include "step_kind.hpp"
 #include "step_origins.hpp"
 #include "xde_document.hpp"
 
@@ -103,7 +104,7 @@ void report_untranslated(const Handle(StepData_StepModel) & model, const detail:
   auto report = [&](const Handle(Standard_Transient) & item) {
     if (item.IsNull() || reached.count(item.get()) != 0) return;
     const std::string id = attributes.entity_id(item);
-    if (auto trimmed = Handle(StepGeom_TrimmedCurve)::DownCast(item); !trimmed.IsNull() && coincident_trims(trimmed)) {
+    if (auto trimmed = detail::as_kind<StepGeom_TrimmedCurve>(item); !trimmed.IsNull() && coincident_trims(trimmed)) {
       diagnostics.push_back({Severity::warning, "zero-length-edge",
                              fmt::format("{} (TRIMMED_CURVE) starts and ends at the same place; it was dropped", id),
                              {id}, std::nullopt});
@@ -117,13 +118,13 @@ void report_untranslated(const Handle(StepData_StepModel) & model, const detail:
   };
   for (Standard_Integer i = 1; i <= model->NbEntities(); ++i) {
     const Handle(Standard_Transient)& entity = model->Value(i);
-    if (auto set = Handle(StepShape_GeometricSet)::DownCast(entity); !set.IsNull()) {
+    if (auto set = detail::as_kind<StepShape_GeometricSet>(entity); !set.IsNull()) {
       if (set->Elements().IsNull()) continue;
       for (Standard_Integer k = 1; k <= set->NbElements(); ++k) {
         const Handle(Standard_Transient) element = set->ElementsValue(k).Value();
         if (!element.IsNull() && element->IsKind(STANDARD_TYPE(StepGeom_Curve))) report(element);
       }
-    } else if (auto wireframe = Handle(StepShape_EdgeBasedWireframeModel)::DownCast(entity); !wireframe.IsNull()) {
+    } else if (auto wireframe = detail::as_kind<StepShape_EdgeBasedWireframeModel>(entity); !wireframe.IsNull()) {
       const Handle(StepShape_HArray1OfConnectedEdgeSet) sets = wireframe->EbwmBoundary();
       if (sets.IsNull()) continue;
       for (Standard_Integer s = sets->Lower(); s <= sets->Upper(); ++s) {
@@ -138,7 +139,7 @@ void report_untranslated(const Handle(StepData_StepModel) & model, const detail:
 
 // Everything after the parse: transfer into an XDE document, units,
 // attributes, the walk over the assembly tree and the findings.
-StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source, std::size_t vertex_shells) {
+StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source) {
   const Handle(XSControl_WorkSession) session = reader.Reader().WS();
   const Handle(StepData_StepModel) step_model = reader.Reader().StepModel();
   if (step_model.IsNull() || step_model->NbEntities() == 0)
@@ -185,14 +186,6 @@ StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source, 
            {}, std::nullopt});
     }
   }
-  if (vertex_shells > 0)
-    model.diagnostics.push_back(
-        {Severity::info, "vertex-shells-ignored",
-         fmt::format("{} VERTEX_SHELLs of shell-based wireframes were left out; put points that select nodes in a "
-                     "geometric curve set instead",
-                     vertex_shells),
-         {}, std::nullopt});
-
   const Handle(Transfer_TransientProcess) process = session->TransferReader()->TransientProcess();
   const detail::EdgeEntityMap edge_entities = detail::map_edges_to_entities(process);
   const detail::StepAttributes attributes(session);
@@ -210,9 +203,13 @@ StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source, 
 void configure(STEPCAFControl_Reader& reader) {
   detail::route_occt_messages_to_spdlog();
   STEPCAFControl_Controller::Init();
+  // XDE gives the names of products and instances (the assembly tree). Layers
+  // and colours are read from the entity graph (StepAttributes), which also
+  // reaches items XDE's labels do not; asking XDE for them as well would only
+  // label every edge a second time.
   reader.SetNameMode(Standard_True);
-  reader.SetLayerMode(Standard_True);
-  reader.SetColorMode(Standard_True);
+  reader.SetLayerMode(Standard_False);
+  reader.SetColorMode(Standard_False);
   reader.SetPropsMode(Standard_False);
   reader.SetGDTMode(Standard_False);
   reader.SetMatMode(Standard_False);
@@ -222,7 +219,7 @@ void configure(STEPCAFControl_Reader& reader) {
 // Parses with OCCT (`read` calls the reader's ReadFile or ReadStream) and reads the
 // parsed model; an unparsable input is a StepReadError naming `source`.
 template <class Read>
-StepModel parse_and_read(const std::string& source, std::size_t vertex_shells, Read read) {
+StepModel parse_and_read(const std::string& source, Read read) {
   detail::route_occt_messages_to_spdlog();
   STEPCAFControl_Controller::Init();
   STEPCAFControl_Reader reader;
@@ -239,15 +236,14 @@ StepModel parse_and_read(const std::string& source, std::size_t vertex_shells, R
     fail(source, fmt::format("is not a readable STEP (ISO 10303-21) file: OCCT could not parse it{}. {}",
                              said.empty() ? std::string() : " (" + said + ")", export_advice));
   }
-  return read_parsed(reader, source, vertex_shells);
+  return read_parsed(reader, source);
 }
 
 // Parses the text (shell-based wireframes rewritten first) through OCCT's stream reader.
 StepModel read_text(std::string_view text, const std::string& source) {
-  std::size_t vertex_shells = 0;
-  const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(text, vertex_shells);
+  const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(text);
   std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : text)};
-  return parse_and_read(source, vertex_shells, [&](STEPCAFControl_Reader& reader) {
+  return parse_and_read(source, [&](STEPCAFControl_Reader& reader) {
     return reader.ChangeReader().ReadStream(source.c_str(), stream);
   });
 }
@@ -256,7 +252,10 @@ StepModel read_text(std::string_view text, const std::string& source) {
 // large file costs one pass and no copy).
 bool file_mentions_shell_wireframes(const std::filesystem::path& file) {
   std::ifstream in(file, std::ios::binary);
-  constexpr std::size_t block = 1 << 20;
+  // Below glibc's initial mmap threshold (128 KiB): freeing a larger block
+  // raises the threshold for the rest of the process (mallopt(3), "dynamic
+  // mmap threshold"), which measurably slows OCCT's parse that follows.
+  constexpr std::size_t block = 1 << 16;
   constexpr std::size_t overlap = 32;  // longer than the keyword
   std::string buffer(block + overlap, '\0');
   std::size_t kept = 0;
@@ -292,7 +291,7 @@ StepModel read_step(const std::filesystem::path& file) {
     return read_text(text.str(), source);
   }
 
-  return parse_and_read(source, 0, [&](STEPCAFControl_Reader& reader) { return reader.ReadFile(source.c_str()); });
+  return parse_and_read(source, [&](STEPCAFControl_Reader& reader) { return reader.ReadFile(source.c_str()); });
 }
 
 StepModel read_step_text(std::string_view step_text, std::string display_name) {

@@ -1,5 +1,6 @@
 #include "stepframe/geometry/wireframe.hpp"
 
+#include "crossings.hpp"
 #include "spatial_grid.hpp"
 
 #include <spdlog/fmt/fmt.h>
@@ -217,6 +218,79 @@ void divide_curve(const Track& t, double from, double to, double max_turn, NodeG
     previous = index;
     const std::size_t node = grid.merge(t.point(index), nodes);
     if (node != path.back()) path.push_back(node);
+  }
+}
+
+// True when both tracks already have a node within `tol` of `at` among their
+// stops (a third member ends there and has split both).
+bool joined_at(const Track& one, const Track& two, const Eigen::Vector3d& at, double tol,
+               const std::vector<Eigen::Vector3d>& nodes) {
+  for (const Stop& a : one.stops)
+    for (const Stop& b : two.stops)
+      if (a.node == b.node && (nodes[a.node] - at).norm() <= tol) return true;
+  return false;
+}
+
+// Members that cross away from their ends (crossed bracing): one finding per
+// pair of members, and with `join` a node at each crossing that splits both.
+void cross_members(std::vector<Track>& tracks, bool join, double tol, NodeGrid& grid, Wireframe& frame) {
+  std::vector<detail::PathSegment> segments;
+  segments.reserve(tracks.size());
+  for (std::size_t t = 0; t < tracks.size(); ++t) {
+    const Track& track = tracks[t];
+    for (std::size_t s = 0; s + 1 < track.size(); ++s)
+      segments.push_back({track.point(s), track.point(s + 1), static_cast<std::uint32_t>(t),
+                          static_cast<std::uint32_t>(s), s == 0, s + 2 == track.size()});
+  }
+  const std::vector<detail::Crossing> crossings = detail::find_crossings(segments, tol);
+  auto near_end = [&](const Track& track, const Eigen::Vector3d& at) {
+    return (frame.nodes[track.first] - at).norm() <= tol || (frame.nodes[track.last] - at).norm() <= tol;
+  };
+  std::vector<const detail::Crossing*> places;
+  for (std::size_t begin = 0; begin < crossings.size();) {
+    const detail::Crossing& head = crossings[begin];
+    std::size_t end = begin;
+    while (end < crossings.size() && crossings[end].first_path == head.first_path &&
+           crossings[end].second_path == head.second_path)
+      ++end;
+    Track& one = tracks[head.first_path];
+    Track& two = tracks[head.second_path];
+    places.clear();
+    for (std::size_t k = begin; k < end; ++k) {
+      const detail::Crossing& c = crossings[k];
+      // A curved member's first sample may lie within the tolerance of its end.
+      if (near_end(one, c.at) || near_end(two, c.at) || joined_at(one, two, c.at, tol, frame.nodes)) continue;
+      // Found again where a curve's segments meet.
+      if (!places.empty() && (places.back()->at - c.at).norm() <= tol) continue;
+      places.push_back(&c);
+    }
+    begin = end;
+    if (places.empty()) continue;
+    const std::string more =
+        places.size() > 1 ? fmt::format(" and at {} more places", places.size() - 1) : std::string();
+    const SourceInfo& a = one.edge->source;
+    const SourceInfo& b = two.edge->source;
+    if (join) {
+      for (const detail::Crossing* c : places) {
+        const std::size_t node = grid.merge(c->at, frame.nodes);
+        one.stops.push_back({c->first_position, node});
+        two.stops.push_back({c->second_position, node});
+      }
+      frame.diagnostics.push_back(
+          {Severity::info, "crossing-joined",
+           fmt::format("{} and {} cross at {}{}; both are split and joined there (join_crossings)", describe(a),
+                       describe(b), xyz(places.front()->at), more),
+           {a.entity, b.entity},
+           places.front()->at});
+    } else {
+      frame.diagnostics.push_back(
+          {Severity::info, "members-cross",
+           fmt::format("{} and {} cross at {}{} but are not joined there, as neither ends at the crossing (crossed "
+                       "bracing often passes by). If they are connected, set join_crossings: true in the project.",
+                       describe(a), describe(b), xyz(places.front()->at), more),
+           {a.entity, b.entity},
+           places.front()->at});
+    }
   }
 }
 
@@ -442,6 +516,9 @@ Wireframe build_wireframe(const StepModel& model, const WireframeOptions& option
            p});
     }
   }
+
+  // 2b. Members crossing away from their ends: reported, or joined on request.
+  cross_members(tracks, options.join_crossings, tol, grid, frame);
 
   // 3. Named and layered points label a node, making one on a member if needed.
   for (const LabelledPoint& point : model.points) {

@@ -24,22 +24,10 @@ const std::filesystem::path data = STEPFRAME_TEST_DATA;
 
 bool close(const Eigen::Vector3d& a, const Eigen::Vector3d& b) { return (a - b).norm() <= 1e-9 * std::max(1.0, b.norm()); }
 
-std::vector<const sg::Diagnostic*> with_code(const sg::Wireframe& frame, const std::string& code) {
-  std::vector<const sg::Diagnostic*> found;
-  for (const auto& d : frame.diagnostics)
-    if (d.code == code) found.push_back(&d);
-  return found;
-}
-
-const sg::WireMember& member(const sg::Wireframe& frame, const std::string& entity) {
-  const auto it = std::find_if(frame.members.begin(), frame.members.end(),
-                               [&](const sg::WireMember& m) { return m.source.entity == entity; });
-  REQUIRE(it != frame.members.end());
-  return *it;
-}
-
 using stepframe::geometry::test::edge;
+using stepframe::geometry::test::member;
 using stepframe::geometry::test::model_of;
+using stepframe::geometry::test::with_code;
 
 }  // namespace
 
@@ -133,6 +121,11 @@ TEST_CASE("crossing members are not joined; a member ending on another splits it
     CHECK(frame.members[1].nodes.size() == 2);
     CHECK(with_code(frame, "member-split").empty());
     CHECK(with_code(frame, "near-miss-gap").empty());
+    // The crossing is reported once, at (2, 0, 2).
+    const auto crossings = with_code(frame, "members-cross");
+    REQUIRE(crossings.size() == 1);
+    CHECK(crossings[0]->entities == std::vector<std::string>{"#1", "#2"});
+    CHECK(close(*crossings[0]->at, {2, 0, 2}));
   }
   SECTION("an end within the tolerance of a member's middle splits it there") {
     // #2 ends 0.6 tolerance beside #1 at x = 1.5: within tolerance, so joined.

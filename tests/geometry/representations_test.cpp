@@ -207,11 +207,107 @@ TEST_CASE("a shell-based wireframe keeps its edges, names and layers", "[step][s
     CHECK(model.edges[i].source.layers == std::vector<std::string>{"S-TRUSS"});
     CHECK(model.edges[i].source.product == "TRUSS-T1");
   }
-  // The vertex shell is reported as left out.
-  REQUIRE(count_code(model.diagnostics, "vertex-shells-ignored") == 1);
+  // The vertex shell 'apex' marks vertex #67 at (2, 0, 3): a labelled point
+  // with the shell's name, known by the vertex's entity.
+  REQUIRE(model.points.size() == 1);
+  CHECK(model.points[0].source.entity == "#67");
+  CHECK(model.points[0].source.name == "apex");
+  CHECK(close(model.points[0].at, {2, 0, 3}));
+  CHECK(model.diagnostics.empty());
   const sg::Wireframe frame = sg::build_wireframe(model, 1e-3);
   CHECK(frame.nodes.size() == 3);
   CHECK(frame.members.size() == 3);
+  REQUIRE(frame.labels.size() == 1);
+  CHECK(close(frame.nodes[frame.labels[0].node], {2, 0, 3}));
+}
+
+// ring_edge_m.stp (one closed EDGE_CURVE on a circle of radius 5 m about
+// (0, 0, 4)) and ring_trimmed_m.stp (a circle of radius 3 m about (20, 0, 6)
+// trimmed from 0 to 2 pi): each ring is one curved member closing on itself.
+TEST_CASE("a closed circle is one curved member whose nodes close on themselves", "[step][curves][rings]") {
+  struct Ring {
+    const char* file;
+    const char* entity;
+    double radius;
+    Eigen::Vector3d centre;
+  };
+  for (const Ring& ring : {Ring{"ring_edge_m.stp", "#70", 5.0, {0, 0, 4}}, Ring{"ring_trimmed_m.stp", "#101", 3.0, {20, 0, 6}}}) {
+    CAPTURE(ring.file);
+    const sg::StepModel model = sg::read_step(data / ring.file);
+    REQUIRE(model.edges.size() == 1);
+    CHECK(model.edges[0].curved());
+    CHECK(model.edges[0].source.entity == ring.entity);
+    CHECK(model.diagnostics.empty());
+    const sg::Wireframe frame = sg::build_wireframe(model, 1e-3);
+    REQUIRE(frame.members.size() == 1);
+    const sg::WireMember& m = frame.members[0];
+    CHECK(m.curved);
+    // 360 degrees at most 5 degrees per element: 72 elements, 72 distinct nodes.
+    REQUIRE(m.nodes.size() == 73);
+    CHECK(m.nodes.front() == m.nodes.back());
+    CHECK(frame.nodes.size() == 72);
+    CHECK(close(frame.nodes[m.nodes.front()], ring.centre + Eigen::Vector3d(ring.radius, 0, 0)));
+    for (const std::size_t n : m.nodes) CHECK(std::abs((frame.nodes[n] - ring.centre).norm() - ring.radius) < 1e-9);
+    // Elements of 5 degrees: 72 chords of 2 R sin(2.5 deg) (chord of a circular
+    // arc, elementary geometry), 0.03 % short of 2 pi R. Nodes sit on the curve
+    // sample nearest each 5-degree mark (samples about 0.25 degree apart), which
+    // changes the sum of the chords only in the second order: 1e-6 here.
+    const double chord = 2.0 * ring.radius * std::sin(2.5 * std::numbers::pi / 180.0);
+    CHECK(sg::path_length(frame, m) == Approx(72.0 * chord).epsilon(1e-6));
+    CHECK(sg::path_length(frame, m) == Approx(2.0 * std::numbers::pi * ring.radius).epsilon(5e-4));
+    CHECK(frame.diagnostics.empty());
+  }
+}
+
+// mixed_units_assembly.stp: an assembly in mm places a mm part and an inch part.
+TEST_CASE("parts declaring different length units in one assembly land in metres", "[step][assembly][units]") {
+  const sg::StepModel model = sg::read_step(data / "mixed_units_assembly.stp");
+  REQUIRE(model.edges.size() == 2);
+  // The column: 3000 mm; the rafter: (100, 0, 50) in at 25.4 mm per inch (the
+  // inch as defined in 1959, and in the file), placed 3000 mm along x.
+  const sg::WireEdge& column = model.edges[0].source.product == "COLUMN" ? model.edges[0] : model.edges[1];
+  const sg::WireEdge& rafter = model.edges[0].source.product == "RAFTER" ? model.edges[0] : model.edges[1];
+  CHECK(close(column.start, {0, 0, 0}));
+  CHECK(close(column.end, {0, 0, 3}));
+  CHECK(close(rafter.start, {3, 0, 0}));
+  CHECK(close(rafter.end, {3 + 100 * 0.0254, 0, 50 * 0.0254}));
+  CHECK(column.source.assembly_path == "LEAN-TO / column");
+  CHECK(rafter.source.assembly_path == "LEAN-TO / rafter");
+  CHECK(rafter.source.name == "IPE 200");
+  // The first unit declared is the file's; the mix is noted.
+  CHECK(model.length_unit == "mm");
+  CHECK(count_code(model.diagnostics, "mixed-length-units") == 1);
+}
+
+// bay_vertex_shells_mm.stp: vertex shells of a shell-based wireframe name
+// column bases, by the vertex point's name or the shell's; one has no label.
+TEST_CASE("named or layered vertex shells become labelled points", "[step][shell][points]") {
+  const sg::StepModel model = sg::read_step(data / "bay_vertex_shells_mm.stp");
+  REQUIRE(model.edges.size() == 4);
+  CHECK(model.diagnostics.empty());
+  REQUIRE(model.points.size() == 2);
+  auto point = [&](const std::string& entity) -> const sg::LabelledPoint& {
+    const auto it = std::find_if(model.points.begin(), model.points.end(),
+                                 [&](const sg::LabelledPoint& p) { return p.source.entity == entity; });
+    REQUIRE(it != model.points.end());
+    return *it;
+  };
+  // Vertex point #66 carries the name and the layer itself.
+  CHECK(point("#66").source.name == "BASE-A");
+  CHECK(point("#66").source.layers == std::vector<std::string>{"ANCHORS"});
+  CHECK(close(point("#66").at, {0, 0, 0}));
+  // Vertex #67 takes both from its vertex shell #53; 5000 mm = 5 m.
+  CHECK(point("#67").source.name == "BASE-B");
+  CHECK(point("#67").source.layers == std::vector<std::string>{"ANCHORS"});
+  CHECK(point("#67").source.product == "PLANT-BAY");
+  CHECK(close(point("#67").at, {5, 0, 0}));
+  // The frame's nodes carry the labels.
+  const sg::Wireframe frame = sg::build_wireframe(model, 1e-3);
+  CHECK(frame.members.size() == 4);
+  REQUIRE(frame.labels.size() == 2);
+  for (const sg::NodeLabel& label : frame.labels)
+    CHECK(close(frame.nodes[label.node], label.source.name == "BASE-A" ? Eigen::Vector3d(0, 0, 0)
+                                                                        : Eigen::Vector3d(5, 0, 0)));
 }
 
 // yard_nested_assembly_mm.stp: YARD places BAY twice, BAY places FRAME twice.

@@ -4,9 +4,11 @@
 // "#n" id points at without going through OCCT.
 
 #include "stepframe/geometry/step_reader.hpp"
+#include "stepframe/geometry/wireframe.hpp"
 
 #include <Eigen/Core>
 
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
 #include <map>
@@ -35,6 +37,22 @@ inline StepModel model_of(std::vector<WireEdge> edges) {
   model.metres_per_unit = 1.0;
   model.edges = std::move(edges);
   return model;
+}
+
+/// The wireframe's findings with `code`, in order.
+inline std::vector<const Diagnostic*> with_code(const Wireframe& frame, const std::string& code) {
+  std::vector<const Diagnostic*> found;
+  for (const auto& d : frame.diagnostics)
+    if (d.code == code) found.push_back(&d);
+  return found;
+}
+
+/// The member made from STEP entity `entity`; throws when there is none.
+inline const WireMember& member(const Wireframe& frame, const std::string& entity) {
+  const auto it = std::find_if(frame.members.begin(), frame.members.end(),
+                               [&](const WireMember& m) { return m.source.entity == entity; });
+  if (it == frame.members.end()) throw std::runtime_error("no member made from " + entity);
+  return *it;
 }
 
 /// A fresh folder under the system temporary folder, removed afterwards.

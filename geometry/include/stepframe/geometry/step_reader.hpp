@@ -37,7 +37,8 @@ struct WireEdge {
 };
 
 /// A point the file names or puts on a layer: a cartesian point of a curve
-/// set, a vertex of an edge, a trimming point or a polyline corner. Points
+/// set, a vertex of an edge, a trimming point, a polyline corner or the vertex
+/// of a vertex shell (named on the vertex, its point or the shell). Points
 /// select nodes in a project (`where: {point_name: ...}`).
 struct LabelledPoint {
   Eigen::Vector3d at;   ///< metres, global axes

@@ -47,6 +47,11 @@ struct WireframeOptions {
   /// An end point farther than the tolerance but within this many tolerances
   /// of a node or a member is reported as a near-miss gap.
   double gap_factor = 50.0;
+  /// Members whose centrelines cross (or pass within the tolerance) away from
+  /// the ends of both: false leaves them apart and reports each pair (crossed
+  /// bracing often passes by); true joins them there, splitting both at one
+  /// new node (each stays one member).
+  bool join_crossings = false;
 };
 
 /// Length of a member along its path of nodes [m] (its cut length when straight).
@@ -60,7 +65,9 @@ double path_length(const Wireframe& frame, const WireMember& member);
 ///   tie). Nodes are numbered in order of first appearance; members keep edge order.
 /// - A member is split into elements where another member's end point, or a
 ///   named point, lies on it within tolerance (a T-junction). Members that
-///   cross without an end point at the crossing are not joined.
+///   cross without an end point at the crossing (centrelines within the
+///   tolerance, away from the ends of both) are joined only with
+///   `join_crossings`; found through a grid, never by testing all pairs.
 /// - A curved edge becomes one member whose elements turn by at most
 ///   `curve_max_turn` each (between split points).
 /// - Named and layered points label the node they sit on (`labels`).
@@ -75,6 +82,9 @@ double path_length(const Wireframe& frame, const WireMember& member);
 ///     with its member count and bounding box;
 ///   "point-off-frame" a named point on no node and no member;
 ///   "member-split" (info) a member split at a T-junction;
+///   "members-cross" (info) two members cross and are not joined, with the
+///     crossing point (one per pair of members);
+///   "crossing-joined" (info) the same when `join_crossings` joined them;
 ///   "endpoints-merged" (info) end points moved to merge, with the largest move.
 /// Throws std::invalid_argument for a tolerance that is not a positive length,
 /// one so small that coordinates / tolerance exceeds 1e15, or a curve turn
