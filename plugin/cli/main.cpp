@@ -12,6 +12,7 @@
 #include <spdlog/spdlog.h>
 
 #include <cstdio>
+#include <optional>
 #include <iostream>
 
 namespace {
@@ -44,13 +45,21 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   return status;
 }
 
-int inspect_command(const std::filesystem::path& model, double tolerance_mm, bool json) {
+// `input` is a STEP file or a project file; a tolerance given on the command
+// line overrides the project's.
+int inspect_command(const std::filesystem::path& input, std::optional<double> tolerance_mm, bool json) {
   try {
-    const auto inspection = stepframe::inspect_step(model, tolerance_mm * 1e-3);
+    const auto inspection =
+        stepframe::is_project_file(input)
+            ? stepframe::inspect_project(input, tolerance_mm ? std::optional<double>(*tolerance_mm * 1e-3) : std::nullopt)
+            : stepframe::inspect_step(input, tolerance_mm.value_or(1.0) * 1e-3);
     if (json) std::cout << stepframe::inspection_json(inspection).dump(1) << '\n';
-    else std::cout << stepframe::inspection_text(inspection);
+    else std::cout << stepframe::inspection_text(inspection) << "\n" << stepframe::caution << "\n";
     return 0;
   } catch (const stepframe::geometry::StepReadError& e) {
+    spdlog::error("{}", e.what());
+    return static_cast<int>(stepframe::ExitStatus::bad_input);
+  } catch (const stepframe::InputError& e) {
     spdlog::error("{}", e.what());
     return static_cast<int>(stepframe::ExitStatus::bad_input);
   }
@@ -82,12 +91,15 @@ int main(int argc, char** argv) {
   bool no_progress = false;
   run->add_flag("--no-progress", no_progress, "No progress line (it is shown only when stderr is a terminal anyway)");
 
-  auto* inspect = app.add_subcommand("inspect", "Show what a STEP file holds: unit, extent, attributes, diagnostics");
+  auto* inspect = app.add_subcommand("inspect", "Show what a STEP file holds: unit, extent, attributes, diagnostics; "
+                                                "through a project file also the members its rules leave without "
+                                                "section or material");
   std::filesystem::path model;
-  double tolerance_mm = 1.0;
+  std::optional<double> tolerance_mm;
   bool inspect_json = false;
-  inspect->add_option("MODEL", model, "STEP file")->required();
-  inspect->add_option("--tolerance", tolerance_mm, "Merge tolerance for end points, in mm")->capture_default_str();
+  inspect->add_option("MODEL", model, "STEP file, or project file (.yaml, .yml)")->required();
+  inspect->add_option("--tolerance", tolerance_mm,
+                      "Merge tolerance for end points, in mm (default: the project's, else 1 mm)");
   inspect->add_flag("--json", inspect_json, "Print JSON (results.json shapes) instead of tables");
 
   auto* init = app.add_subcommand("init", "Write a starter project file for a STEP file: its layers, parts and names "

@@ -41,10 +41,7 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   Analysis a;
   a.project = std::move(project);
   a.file_length_unit = step.length_unit;
-  geometry::WireframeOptions wireframe_options;
-  wireframe_options.merge_tolerance = a.project.merge_tolerance;
-  wireframe_options.curve_max_turn = a.project.curve_max_turn;
-  a.wireframe = geometry::build_wireframe(step, wireframe_options);
+  a.wireframe = geometry::build_wireframe(step, wireframe_options(a.project));
   spdlog::info("{}: {} members, {} nodes (file unit {})", a.project.model.string(), a.wireframe.members.size(),
                a.wireframe.nodes.size(), step.length_unit);
   for (const auto& d : a.wireframe.diagnostics)

@@ -2,10 +2,12 @@
 
 #include "json_shapes.hpp"
 #include "stepframe/geometry/step_reader.hpp"
+#include "stepframe/project_reader.hpp"
 
 #include <fmt/format.h>
 
 #include <algorithm>
+#include <cctype>
 
 namespace stepframe {
 namespace {
@@ -17,16 +19,14 @@ std::pair<Eigen::Vector3d, Eigen::Vector3d> bounding_box(const std::vector<Eigen
   return {low, high};
 }
 
-}  // namespace
-
-Inspection inspect_step(const std::filesystem::path& file, double merge_tolerance) {
+// What the read file holds, merged into a wireframe with `options`.
+Inspection inspect_read(const geometry::StepModel& step, const geometry::WireframeOptions& options) {
   Inspection inspection;
-  const auto step = geometry::read_step(file);
-  inspection.file = file;
+  inspection.file = step.file;
   inspection.length_unit = step.length_unit;
   inspection.metres_per_unit = step.metres_per_unit;
-  inspection.merge_tolerance = merge_tolerance;
-  inspection.wireframe = geometry::build_wireframe(step, merge_tolerance);
+  inspection.merge_tolerance = options.merge_tolerance;
+  inspection.wireframe = geometry::build_wireframe(step, options);
   auto& counts = inspection.attribute_counts;
   for (const auto& m : inspection.wireframe.members) {
     if (!m.source.name.empty()) ++counts["name"][m.source.name];
@@ -35,6 +35,37 @@ Inspection inspect_step(const std::filesystem::path& file, double merge_toleranc
     for (const auto& layer : m.source.layers) ++counts["layer"][layer];
   }
   return inspection;
+}
+
+std::vector<std::string> missing(const UnassignedMember& u) {
+  std::vector<std::string> out;
+  if (u.no_section) out.push_back("section");
+  if (u.no_material) out.push_back("material");
+  return out;
+}
+
+}  // namespace
+
+Inspection inspect_step(const std::filesystem::path& file, double merge_tolerance) {
+  geometry::WireframeOptions options;
+  options.merge_tolerance = merge_tolerance;
+  return inspect_read(geometry::read_step(file), options);
+}
+
+Inspection inspect_project(const std::filesystem::path& project_file, std::optional<double> merge_tolerance) {
+  Project project = read_project(project_file);
+  if (merge_tolerance) project.merge_tolerance = *merge_tolerance;
+  Inspection inspection = inspect_read(geometry::read_step(project.model), wireframe_options(project));
+  inspection.project = project_file;
+  inspection.unassigned = members_without_properties(project, inspection.wireframe);
+  return inspection;
+}
+
+bool is_project_file(const std::filesystem::path& path) {
+  std::string extension = path.extension().string();
+  std::transform(extension.begin(), extension.end(), extension.begin(),
+                 [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
+  return extension == ".yaml" || extension == ".yml";
 }
 
 nlohmann::json inspection_json(const Inspection& in) {
@@ -63,14 +94,23 @@ nlohmann::json inspection_json(const Inspection& in) {
                       {"source", json_shapes::source(label.source)}});
   auto& diagnostics = j["diagnostics"] = nlohmann::json::array();
   for (const auto& d : wf.diagnostics) diagnostics.push_back(json_shapes::diagnostic(d));
+  if (!in.project.empty()) {
+    j["project"] = in.project.string();
+    auto& unassigned = j["unassigned_members"] = nlohmann::json::array();
+    for (const auto& u : in.unassigned)
+      unassigned.push_back({{"id", u.member},
+                            {"source", json_shapes::source(wf.members[u.member].source)},
+                            {"missing", missing(u)}});
+  }
   return j;
 }
 
 std::string inspection_text(const Inspection& in) {
   const auto& wf = in.wireframe;
   const auto [low, high] = bounding_box(wf.nodes);
-  std::string out = fmt::format("{}\n  length unit   {} (1 {} = {} m)\n", in.file.string(), in.length_unit,
-                                in.length_unit, in.metres_per_unit);
+  std::string out = in.project.empty() ? std::string() : fmt::format("project {}\n", in.project.string());
+  out += fmt::format("{}\n  length unit   {} (1 {} = {} m)\n", in.file.string(), in.length_unit, in.length_unit,
+                     in.metres_per_unit);
   out += fmt::format("  bounding box  x {:.3f} .. {:.3f}  y {:.3f} .. {:.3f}  z {:.3f} .. {:.3f} m\n", low[0], high[0],
                      low[1], high[1], low[2], high[2]);
   out += fmt::format("  members       {}\n  nodes         {} (merge tolerance {} mm)\n", wf.members.size(),
@@ -86,6 +126,20 @@ std::string inspection_text(const Inspection& in) {
       out += fmt::format("  {:<24} {:<20} {:>6}  {:<28} {}\n", label.source.name.empty() ? "-" : label.source.name,
                          label.source.layers.empty() ? "-" : fmt::format("{}", fmt::join(label.source.layers, ", ")),
                          label.node, fmt::format("({:.3f}, {:.3f}, {:.3f})", p[0], p[1], p[2]), label.source.entity);
+    }
+  }
+  if (!in.project.empty()) {
+    out += fmt::format("\n  members without section or material: {}{}\n", in.unassigned.size(),
+                       in.unassigned.empty() ? "" : " (`run` refuses them; add rules that match them)");
+    if (!in.unassigned.empty())
+      out += fmt::format("  {:>6}  {:<10} {:<24} {:<20} {:<20} {}\n", "member", "entity", "name", "layers", "product",
+                         "missing");
+    for (const auto& u : in.unassigned) {
+      const auto& src = wf.members[u.member].source;
+      out += fmt::format("  {:>6}  {:<10} {:<24} {:<20} {:<20} {}\n", u.member, src.entity.empty() ? "-" : src.entity,
+                         src.name.empty() ? "-" : src.name,
+                         src.layers.empty() ? "-" : fmt::format("{}", fmt::join(src.layers, ", ")),
+                         src.product.empty() ? "-" : src.product, fmt::format("{}", fmt::join(missing(u), ", ")));
     }
   }
   std::size_t counts[3] = {0, 0, 0};

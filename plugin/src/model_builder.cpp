@@ -291,17 +291,8 @@ double roll_towards(const analysis::FrameModel& model, const analysis::FrameElem
   return std::atan2(-v.dot(axes.row(1).transpose()), v.dot(axes.row(2).transpose()));
 }
 
-}  // namespace
-
-BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& wireframe) {
-  BuiltModel built;
-  auto& model = built.model;
-  model.settings.shear_deformation = project.shear_deformation;
-  model.settings.second_order = project.second_order;
-  model.nodes = wireframe.nodes;
-  Library library(project);
-
-  // Rules name sections and materials that must exist, whether or not they match.
+// Rules name sections and materials that must exist, whether or not they match.
+void check_rule_names(const Project& project, Library& library, analysis::FrameModel& model) {
   for (const auto& rule : project.rules) {
     if (rule.section && !library.section(*rule.section, model))
       throw InputError(rule.where.origin.describe() + ": unknown section '" + *rule.section + "'" +
@@ -313,24 +304,90 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
                        " Define it under 'materials:' or use a standard grade (`stepframe sections` lists sections; "
                        "grades: S235, S275, S355, S460, S355H, A992, A36, A572 Gr. 50, A500 Gr. B/C).");
   }
+}
 
-  std::vector<CompiledSelector> rule_selectors;
-  for (const auto& rule : project.rules) rule_selectors.emplace_back(rule.where);
+struct Assignment {
+  std::optional<std::size_t> section, material;  ///< indices into the model's sections and materials
+};
+
+// The rules whose selectors match a member, in the project's order.
+std::vector<const Rule*> matching_rules(const geometry::SourceInfo& source, const Project& project,
+                                        const std::vector<CompiledSelector>& rule_selectors) {
+  std::vector<const Rule*> matching;
+  for (std::size_t r = 0; r < project.rules.size(); ++r)
+    if (rule_selectors[r].matches(source)) matching.push_back(&project.rules[r]);
+  return matching;
+}
+
+// A member's section is the last matching rule's, else the first designation
+// found in its attributes; its material likewise.
+Assignment assign(const geometry::SourceInfo& source, const std::vector<const Rule*>& matching, Library& library,
+                  analysis::FrameModel& model) {
+  Assignment a;
+  for (const Rule* rule : matching) {
+    if (rule->section) a.section = library.section(*rule->section, model);
+    if (rule->material) a.material = library.material(*rule->material, model);
+  }
+  if (!a.section)
+    a.section = library.from_attributes(source, [&](const std::string& s) { return library.section(s, model); });
+  if (!a.material)
+    a.material = library.from_attributes(source, [&](const std::string& s) { return library.material(s, model); });
+  return a;
+}
+
+std::vector<CompiledSelector> rule_selectors_of(const Project& project) {
+  std::vector<CompiledSelector> selectors;
+  for (const auto& rule : project.rules) selectors.emplace_back(rule.where);
+  return selectors;
+}
+
+}  // namespace
+
+geometry::WireframeOptions wireframe_options(const Project& project) {
+  geometry::WireframeOptions options;
+  options.merge_tolerance = project.merge_tolerance;
+  options.curve_max_turn = project.curve_max_turn;
+  options.join_crossings = project.join_crossings;
+  return options;
+}
+
+std::vector<UnassignedMember> members_without_properties(const Project& project,
+                                                         const geometry::Wireframe& wireframe) {
+  analysis::FrameModel scratch;
+  Library library(project);
+  check_rule_names(project, library, scratch);
+  const std::vector<CompiledSelector> rule_selectors = rule_selectors_of(project);
+  std::vector<UnassignedMember> unassigned;
+  for (std::size_t m = 0; m < wireframe.members.size(); ++m) {
+    const auto& source = wireframe.members[m].source;
+    const Assignment a = assign(source, matching_rules(source, project, rule_selectors), library, scratch);
+    if (!a.section || !a.material) unassigned.push_back({m, !a.section, !a.material});
+  }
+  return unassigned;
+}
+
+BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& wireframe) {
+  BuiltModel built;
+  auto& model = built.model;
+  model.settings.shear_deformation = project.shear_deformation;
+  model.settings.second_order = project.second_order;
+  model.nodes = wireframe.nodes;
+  Library library(project);
+  check_rule_names(project, library, model);
+  const std::vector<CompiledSelector> rule_selectors = rule_selectors_of(project);
 
   std::vector<std::string> without_section, without_material;
   for (const auto& wm : wireframe.members) {
-    std::optional<std::size_t> section, material;
+    const std::vector<const Rule*> matching = matching_rules(wm.source, project, rule_selectors);
+    const auto [section, material] = assign(wm.source, matching, library, model);
     double roll = 0;
     std::optional<Eigen::Vector3d> orient_to;
     const Rule* orienting_rule = nullptr;
     std::array<std::array<bool, 6>, 2> release{};
     analysis::en1993::BucklingLengths buckling;
     std::optional<double> deflection_ratio;
-    for (std::size_t r = 0; r < project.rules.size(); ++r) {
-      const auto& rule = project.rules[r];
-      if (!rule_selectors[r].matches(wm.source)) continue;
-      if (rule.section) section = library.section(*rule.section, model);
-      if (rule.material) material = library.material(*rule.material, model);
+    for (const Rule* matched : matching) {
+      const Rule& rule = *matched;
       if (rule.roll) roll = *rule.roll, orient_to.reset();
       if (rule.orient_to) orient_to = rule.orient_to, orienting_rule = &rule;
       if (rule.release) release = *rule.release;
@@ -339,10 +396,6 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
       if (rule.buckling_lt) buckling.lt = *rule.buckling_lt;
       if (rule.deflection_ratio) deflection_ratio = rule.deflection_ratio;
     }
-    if (!section)
-      section = library.from_attributes(wm.source, [&](const std::string& s) { return library.section(s, model); });
-    if (!material)
-      material = library.from_attributes(wm.source, [&](const std::string& s) { return library.material(s, model); });
     if (!section) without_section.push_back(describe_member(wm.source));
     if (!material) without_material.push_back(describe_member(wm.source));
 

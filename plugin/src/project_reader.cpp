@@ -402,8 +402,8 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
                           const std::filesystem::path& base_dir) {
   Reader r(file);
   if (!root.IsMap()) throw InputError(file.string() + ": a project file is a YAML mapping with at least 'model:'");
-  r.check_keys(root, "", {"model", "units", "merge_tolerance", "curve_max_turn", "materials", "sections", "rules", "supports", "cases",
-                          "combinations", "checks", "analysis"});
+  r.check_keys(root, "", {"model", "units", "merge_tolerance", "curve_max_turn", "join_crossings", "materials", "sections",
+                          "rules", "supports", "cases", "combinations", "checks", "analysis"});
   r.units_ = read_units(r, root["units"]);
 
   Project p;
@@ -424,6 +424,7 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
       r.fail(root["curve_max_turn"], "curve_max_turn", "must be an angle in degrees above 0 and at most 90, e.g. 5");
     p.curve_max_turn = degrees * std::numbers::pi / 180.0;
   }
+  if (root["join_crossings"]) p.join_crossings = r.boolean(root["join_crossings"], "join_crossings");
 
   if (const auto node = root["materials"]) {
     r.expect_map(node, "materials");

@@ -43,10 +43,7 @@ Built build(const std::string& yaml) {
   Built b;
   b.project = read_project_text(yaml, data, "portal.yaml");
   const auto step = geometry::read_step(b.project.model);
-  geometry::WireframeOptions options;
-  options.merge_tolerance = b.project.merge_tolerance;
-  options.curve_max_turn = b.project.curve_max_turn;
-  b.wireframe = geometry::build_wireframe(step, options);
+  b.wireframe = geometry::build_wireframe(step, wireframe_options(b.project));
   b.built = build_frame_model(b.project, b.wireframe);
   return b;
 }
@@ -116,4 +113,25 @@ TEST_CASE("point selectors and curve_max_turn are checked when the project is re
     CHECK_THROWS_WITH(read_project_text(base + "curve_max_turn: 0\n", data, "p.yaml"),
                       Contains("p.yaml:3") && Contains("curve_max_turn") && Contains("degrees"));
   }
+}
+
+TEST_CASE("point selectors reach the vertex shells of a shell-based wireframe", "[points][shell]") {
+  // bay_vertex_shells_mm.stp: vertex shells name the column bases BASE-A at
+  // (0, 0, 0) and BASE-B at (5, 0, 0) m, both on layer ANCHORS.
+  const std::string yaml = "model: " + (data / "bay_vertex_shells_mm.stp").string() + "\n"
+                           "units: {length: m, force: kN}\n"
+                           "rules:\n  - where: {}\n    section: IPE300\n    material: S355\n"
+                           "supports:\n  - where: {point_name: 'BASE-B'}\n    fix: fixed\n"
+                           "cases:\n  - name: H\n    node_loads:\n      - where: {point_layer: anchors}\n"
+                           "        force: [0, 0, -2]\n";
+  const Built b = build(yaml);
+  REQUIRE(b.built.model.supports.size() == 1);
+  CHECK(b.built.model.supports[0].node == node_at(b.wireframe, {5, 0, 0}));
+  const auto& loads = b.built.model.cases.at(0).node_loads;
+  REQUIRE(loads.size() == 2);
+  std::vector<std::size_t> loaded{loads[0].node, loads[1].node};
+  std::sort(loaded.begin(), loaded.end());
+  std::vector<std::size_t> bases{node_at(b.wireframe, {0, 0, 0}), node_at(b.wireframe, {5, 0, 0})};
+  std::sort(bases.begin(), bases.end());
+  CHECK(loaded == bases);
 }

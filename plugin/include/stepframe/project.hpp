@@ -149,6 +149,7 @@ struct Project {
   std::string force_unit = "kN";
   double merge_tolerance = 1e-3;     ///< [m]
   double curve_max_turn = 5.0 * std::numbers::pi / 180.0;  ///< [rad] largest turn per element of a curved member
+  bool join_crossings = false;       ///< join members whose centrelines cross away from their ends
   std::map<std::string, analysis::Material> materials;  ///< custom, by name
   std::map<std::string, analysis::Section> sections;    ///< custom, by name
   std::vector<Rule> rules;

@@ -1,0 +1,127 @@
+// `stepframe inspect` through a project file: the members its rules leave
+// without a section or material (which `run` refuses), and the project's
+// wireframe keys (join_crossings) applied as `run` applies them.
+
+#include "stepframe/geometry/step_writer.hpp"
+#include "stepframe/inspect.hpp"
+#include "stepframe/project_reader.hpp"
+#include "test_helpers.hpp"
+
+#include <catch2/catch.hpp>
+#include <nlohmann/json.hpp>
+
+#include <string>
+#include <vector>
+
+using namespace stepframe;
+using Catch::Matchers::Contains;
+
+namespace {
+
+const std::filesystem::path data = STEPFRAME_TEST_DATA;
+
+// A 6 m beam named "IPE 300" (its section comes from its name) and a 4 m
+// brace named "brace" on layer BRACING (no designation anywhere), in mm.
+void write_beam_and_brace(const test::ScratchDir& dir) {
+  geometry::LineToWrite beam{{0, 0, 0}, {6, 0, 0}, {}};
+  beam.attributes.name = "IPE 300";
+  beam.attributes.layers = {"BEAMS"};
+  beam.attributes.product = "SHED";
+  geometry::LineToWrite brace{{0, 0, 0}, {0, 0, 4}, {}};
+  brace.attributes.name = "brace";
+  brace.attributes.layers = {"BRACING"};
+  brace.attributes.product = "SHED";
+  geometry::write_step_wireframe(dir / "shed.stp", {beam, brace}, "mm");
+}
+
+const std::string shed_project =
+    "model: shed.stp\n"
+    "units: {length: m, force: kN}\n"
+    "rules:\n  - where: {}\n    material: S355\n"
+    "supports:\n  - where: {z: 0}\n    fix: fixed\n"
+    "cases:\n  - name: G\n    self_weight: true\n";
+
+}  // namespace
+
+TEST_CASE("inspect through a project lists the members left without a section", "[inspect]") {
+  test::ScratchDir dir;
+  write_beam_and_brace(dir);
+  test::write_text(dir / "shed.yaml", shed_project);
+
+  auto r = test::run_stepframe("inspect \"" + (dir / "shed.yaml").string() + "\" --json", dir);
+  INFO(r.out << r.err);
+  REQUIRE(r.status == 0);
+  const auto j = nlohmann::json::parse(r.out);
+  CHECK(j["member_count"] == 2);
+  CHECK(j["project"].get<std::string>() == (dir / "shed.yaml").string());
+  REQUIRE(j["unassigned_members"].size() == 1);
+  const auto& brace = j["unassigned_members"][0];
+  CHECK(brace["source"]["name"] == "brace");
+  CHECK(brace["missing"] == std::vector<std::string>{"section"});
+  // It names the brace's own STEP entity, as the member list does.
+  const std::size_t id = brace["id"].get<std::size_t>();
+  const std::string entity = brace["source"]["entity"].get<std::string>();
+  CHECK(entity.rfind('#', 0) == 0);
+  CHECK(j["members"][id]["source"]["entity"] == entity);
+
+  r = test::run_stepframe("inspect \"" + (dir / "shed.yaml").string() + "\"", dir);
+  REQUIRE(r.status == 0);
+  CHECK_THAT(r.out, Contains("members without section or material: 1") && Contains(entity) && Contains("brace") &&
+                        Contains("BRACING") && Contains("competent engineer"));
+
+  // `run` refuses the same member, by the same entity.
+  r = test::run_stepframe("run \"" + (dir / "shed.yaml").string() + "\" --out \"" + (dir / "out").string() + "\"", dir);
+  CHECK(r.status == 2);
+  CHECK_THAT(r.err, Contains("1 member(s) have no section") && Contains(entity));
+
+  // A rule for the brace leaves nothing unassigned.
+  const std::string fixed = shed_project.substr(0, shed_project.find("supports:")) +
+                            "  - where: {layer: BRACING}\n    section: IPE100\n" +
+                            shed_project.substr(shed_project.find("supports:"));
+  test::write_text(dir / "shed.yaml", fixed);
+  r = test::run_stepframe("inspect \"" + (dir / "shed.yaml").string() + "\" --json", dir);
+  REQUIRE(r.status == 0);
+  CHECK(nlohmann::json::parse(r.out)["unassigned_members"].empty());
+}
+
+TEST_CASE("inspect through a project: bad input is exit status 2 with the file named", "[inspect][errors]") {
+  test::ScratchDir dir;
+  write_beam_and_brace(dir);
+  test::write_text(dir / "shed.yaml", shed_project.substr(0, shed_project.find("supports:")) +
+                                          "  - where: {layer: BRACING}\n    section: NOPE123\n" +
+                                          shed_project.substr(shed_project.find("supports:")));
+  auto r = test::run_stepframe("inspect \"" + (dir / "shed.yaml").string() + "\"", dir);
+  CHECK(r.status == 2);
+  CHECK_THAT(r.err, Contains("shed.yaml") && Contains("NOPE123"));
+  test::write_text(dir / "missing.yaml", "model: nowhere.stp\ncases: [{name: G, self_weight: true}]\n");
+  r = test::run_stepframe("inspect \"" + (dir / "missing.yaml").string() + "\"", dir);
+  CHECK(r.status == 2);
+  CHECK_THAT(r.err, Contains("nowhere.stp"));
+}
+
+TEST_CASE("the project's join_crossings key joins crossed braces", "[inspect][crossings]") {
+  // x_braced_wall_mm.stp: two bays of crossed braces (the file's header).
+  const std::string base =
+      "model: " + (data / "x_braced_wall_mm.stp").string() + "\ncases: [{name: G, self_weight: true}]\n";
+  auto inspect = [&](const std::string& extra) {
+    test::ScratchDir dir;
+    test::write_text(dir / "wall.yaml", base + extra);
+    return inspect_project(dir / "wall.yaml");
+  };
+  auto count = [](const Inspection& in, const std::string& code) {
+    std::size_t n = 0;
+    for (const auto& d : in.wireframe.diagnostics) n += d.code == code;
+    return n;
+  };
+  const Inspection apart = inspect("");
+  CHECK(apart.wireframe.nodes.size() == 6);
+  CHECK(count(apart, "members-cross") == 2);
+  const Inspection joined = inspect("join_crossings: true\n");
+  CHECK(joined.wireframe.members.size() == 9);
+  CHECK(joined.wireframe.nodes.size() == 8);
+  CHECK(count(joined, "crossing-joined") == 2);
+  CHECK(count(joined, "members-cross") == 0);
+  // The key is a yes/no; anything else names the line.
+  CHECK_THROWS_WITH(read_project_text(base + "join_crossings: sometimes\n", data, "wall.yaml"),
+                    Contains("wall.yaml:3") && Contains("join_crossings"));
+}
