@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <numbers>
 
 namespace stepframe {
 namespace {
@@ -28,6 +29,16 @@ ProjectBuilder& ProjectBuilder::model(std::filesystem::path step_file) {
 
 ProjectBuilder& ProjectBuilder::merge_tolerance(double metres) {
   project_.merge_tolerance = metres;
+  return *this;
+}
+
+ProjectBuilder& ProjectBuilder::curve_max_turn(double radians) {
+  project_.curve_max_turn = radians;
+  return *this;
+}
+
+ProjectBuilder& ProjectBuilder::join_crossings(bool join) {
+  project_.join_crossings = join;
   return *this;
 }
 
@@ -121,6 +132,8 @@ Project ProjectBuilder::build() const {
 
   if (!(project_.merge_tolerance > 0) || !std::isfinite(project_.merge_tolerance))
     fail("merge_tolerance must be a positive length in metres");
+  if (!(project_.curve_max_turn > 0 && project_.curve_max_turn <= std::numbers::pi / 2))
+    fail("curve_max_turn must be an angle in radians above 0 and at most pi/2, e.g. 5 degrees = 0.0873");
   for (std::size_t i = 0; i < project_.rules.size(); ++i) {
     const auto& r = project_.rules[i];
     if (!r.section && !r.material && !r.roll && !r.release && !r.buckling_y && !r.buckling_z && !r.buckling_lt &&

@@ -175,6 +175,10 @@ TEST_CASE("the project builder validates names as the project reader does") {
   CHECK_THAT(error_of(ProjectBuilder("p").load_case("G", true).rule({}, std::nullopt)),
              Contains("rules[0] sets none of section, material, roll"));
   CHECK_THAT(error_of(ProjectBuilder("p").load_case("G", true).merge_tolerance(0)), Contains("merge_tolerance"));
+  CHECK_THAT(error_of(ProjectBuilder("p").load_case("G", true).curve_max_turn(2.0)), Contains("curve_max_turn"));
+  const auto geometry = ProjectBuilder("p").load_case("G", true).curve_max_turn(0.05).join_crossings(true).build();
+  CHECK(geometry.curve_max_turn == Approx(0.05));
+  CHECK(geometry.join_crossings);
 
   // Without checks: stresses under every combination, as in a project file.
   const auto p = ProjectBuilder("p").load_case("G", true).load_case("Q", false).combination("ULS", {{"G", 1.35}, {"Q", 1.5}}).build();

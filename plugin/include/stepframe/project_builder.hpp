@@ -37,6 +37,10 @@ class ProjectBuilder {
   /// a run from another model source ignores it).
   ProjectBuilder& model(std::filesystem::path step_file);
   ProjectBuilder& merge_tolerance(double metres);
+  /// Largest tangent turn per element of a curved member [rad] (default 5 degrees; above 0, at most pi/2).
+  ProjectBuilder& curve_max_turn(double radians);
+  /// Join members whose centrelines cross away from their ends (default: not joined, a note each).
+  ProjectBuilder& join_crossings(bool join);
   /// Units for people: the ones reports use when they convert back.
   ProjectBuilder& display_units(std::string length, std::string force);
   ProjectBuilder& material(analysis::Material material);   ///< custom, by its name
