@@ -233,7 +233,8 @@ bool joined_at(const Track& one, const Track& two, const Eigen::Vector3d& at, do
 
 // Members that cross away from their ends (crossed bracing): one finding per
 // pair of members, and with `join` a node at each crossing that splits both.
-void cross_members(std::vector<Track>& tracks, bool join, double tol, NodeGrid& grid, Wireframe& frame) {
+void cross_members(std::vector<Track>& tracks, const WireframeOptions& options, double tol, NodeGrid& grid,
+                   Wireframe& frame) {
   std::vector<detail::PathSegment> segments;
   segments.reserve(tracks.size());
   for (std::size_t t = 0; t < tracks.size(); ++t) {
@@ -270,7 +271,8 @@ void cross_members(std::vector<Track>& tracks, bool join, double tol, NodeGrid& 
         places.size() > 1 ? fmt::format(" and at {} more places", places.size() - 1) : std::string();
     const SourceInfo& a = one.edge->source;
     const SourceInfo& b = two.edge->source;
-    if (join) {
+    const bool by_rule = options.joins_crossings && options.joins_crossings(a) && options.joins_crossings(b);
+    if (options.join_crossings || by_rule) {
       for (const detail::Crossing* c : places) {
         const std::size_t node = grid.merge(c->at, frame.nodes);
         one.stops.push_back({c->first_position, node});
@@ -278,15 +280,16 @@ void cross_members(std::vector<Track>& tracks, bool join, double tol, NodeGrid& 
       }
       frame.diagnostics.push_back(
           {Severity::info, "crossing-joined",
-           fmt::format("{} and {} cross at {}{}; both are split and joined there (join_crossings)", describe(a),
-                       describe(b), xyz(places.front()->at), more),
+           fmt::format("{} and {} cross at {}{}; both are split and joined there (join_crossings{})", describe(a),
+                       describe(b), xyz(places.front()->at), more, options.join_crossings ? "" : " of a rule"),
            {a.entity, b.entity},
            places.front()->at});
     } else {
       frame.diagnostics.push_back(
           {Severity::info, "members-cross",
            fmt::format("{} and {} cross at {}{} but are not joined there, as neither ends at the crossing (crossed "
-                       "bracing often passes by). If they are connected, set join_crossings: true in the project.",
+                       "bracing often passes by). If they are connected, set join_crossings: true in the project or in a rule "
+                       "that selects both.",
                        describe(a), describe(b), xyz(places.front()->at), more),
            {a.entity, b.entity},
            places.front()->at});
@@ -518,7 +521,7 @@ Wireframe build_wireframe(const StepModel& model, const WireframeOptions& option
   }
 
   // 2b. Members crossing away from their ends: reported, or joined on request.
-  cross_members(tracks, options.join_crossings, tol, grid, frame);
+  cross_members(tracks, options, tol, grid, frame);
 
   // 3. Named and layered points label a node, making one on a member if needed.
   for (const LabelledPoint& point : model.points) {

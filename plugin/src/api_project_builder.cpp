@@ -137,7 +137,7 @@ Project ProjectBuilder::build() const {
   for (std::size_t i = 0; i < project_.rules.size(); ++i) {
     const auto& r = project_.rules[i];
     if (!r.section && !r.material && !r.roll && !r.release && !r.buckling_y && !r.buckling_z && !r.buckling_lt &&
-        !r.deflection_ratio)
+        !r.deflection_ratio && !r.join_crossings)
       fail("rules[" + std::to_string(i) +
            "] sets none of section, material, roll, release, buckling, deflection_ratio");
   }

@@ -10,6 +10,7 @@
 #include <cctype>
 #include <cmath>
 #include <map>
+#include <memory>
 #include <optional>
 #include <regex>
 
@@ -348,6 +349,14 @@ geometry::WireframeOptions wireframe_options(const Project& project) {
   options.merge_tolerance = project.merge_tolerance;
   options.curve_max_turn = project.curve_max_turn;
   options.join_crossings = project.join_crossings;
+  // Rules with join_crossings: a member any of them selects is joined where it crosses another such member.
+  auto joiners = std::make_shared<std::vector<CompiledSelector>>();
+  for (const auto& rule : project.rules)
+    if (rule.join_crossings) joiners->emplace_back(rule.where);
+  if (!joiners->empty())
+    options.joins_crossings = [joiners](const geometry::SourceInfo& source) {
+      return std::any_of(joiners->begin(), joiners->end(), [&](const CompiledSelector& s) { return s.matches(source); });
+    };
   return options;
 }
 

@@ -446,7 +446,8 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("rules", i);
       r.check_keys(node[i], path,
-                   {"where", "section", "material", "roll", "orient_to", "release", "buckling", "deflection_ratio"});
+                   {"where", "section", "material", "roll", "orient_to", "release", "buckling", "deflection_ratio",
+                    "join_crossings"});
       Rule rule;
       rule.where = read_member_selector(r, node[i]["where"], path + ".where");
       if (node[i]["section"]) rule.section = r.text(node[i]["section"], path + ".section");
@@ -482,10 +483,13 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
         rule.deflection_ratio = r.number(node[i]["deflection_ratio"], path + ".deflection_ratio", dimension::none);
         if (!(*rule.deflection_ratio > 0)) r.fail(node[i]["deflection_ratio"], path + ".deflection_ratio", "must be positive, e.g. 250 for L/250");
       }
+      if (node[i]["join_crossings"])
+        rule.join_crossings = r.boolean(node[i]["join_crossings"], path + ".join_crossings");
       if (!rule.section && !rule.material && !rule.roll && !rule.orient_to && !rule.release && !rule.buckling_y &&
-          !rule.buckling_z &&
-          !rule.buckling_lt && !rule.deflection_ratio)
-        r.fail(node[i], path, "a rule sets at least one of section, material, roll, orient_to, release, buckling, deflection_ratio");
+          !rule.buckling_z && !rule.buckling_lt && !rule.deflection_ratio && !rule.join_crossings)
+        r.fail(node[i], path,
+               "a rule sets at least one of section, material, roll, orient_to, release, buckling, deflection_ratio, "
+               "join_crossings");
       p.rules.push_back(std::move(rule));
     }
   }

@@ -124,4 +124,18 @@ TEST_CASE("the project's join_crossings key joins crossed braces", "[inspect][cr
   // The key is a yes/no; anything else names the line.
   CHECK_THROWS_WITH(read_project_text(base + "join_crossings: sometimes\n", data, "wall.yaml"),
                     Contains("wall.yaml:3") && Contains("join_crossings"));
+
+  // A rule joins only the crossings of the members it selects: bay 1's braces, not bay 2's.
+  const Inspection by_rule = inspect("rules:\n  - where: {name: 'brace 1.*'}\n    join_crossings: true\n");
+  CHECK(count(by_rule, "crossing-joined") == 1);
+  CHECK(count(by_rule, "members-cross") == 1);
+  CHECK(by_rule.wireframe.nodes.size() == 7);
+  CHECK(by_rule.wireframe.members.size() == 9);
+  // One brace of the pair is not enough.
+  const Inspection one_side = inspect("rules:\n  - where: {name: 'brace 1 up'}\n    join_crossings: true\n");
+  CHECK(count(one_side, "crossing-joined") == 0);
+  CHECK(count(one_side, "members-cross") == 2);
+  CHECK_THROWS_WITH(
+      read_project_text(base + "rules:\n  - where: {layer: BRACING}\n    join_crossings: often\n", data, "wall.yaml"),
+      Contains("wall.yaml:5") && Contains("rules[0].join_crossings"));
 }

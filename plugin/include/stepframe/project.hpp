@@ -59,6 +59,8 @@ struct Rule {
   std::optional<double> buckling_y{}, buckling_z{}, buckling_lt{};
   /// Deflection limit span/ratio for the members matched (`deflection_ratio: 250`).
   std::optional<double> deflection_ratio{};
+  /// Members matched are joined where they cross each other (`join_crossings: true`).
+  bool join_crossings = false;
 };
 
 struct SupportSpec {

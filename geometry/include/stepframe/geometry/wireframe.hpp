@@ -9,6 +9,7 @@
 #include <Eigen/Core>
 
 #include <cstddef>
+#include <functional>
 #include <numbers>
 #include <vector>
 
@@ -52,6 +53,10 @@ struct WireframeOptions {
   /// bracing often passes by); true joins them there, splitting both at one
   /// new node (each stays one member).
   bool join_crossings = false;
+  /// Members this accepts are joined where they cross each other (both of the
+  /// pair must be accepted), as if join_crossings held for them alone. Empty:
+  /// none (the choice of a project's rules, made from the members' attributes).
+  std::function<bool(const SourceInfo&)> joins_crossings{};
 };
 
 /// Length of a member along its path of nodes [m] (its cut length when straight).
