@@ -10,6 +10,7 @@
 
 #include <pybind11/functional.h>
 #include <pybind11/pybind11.h>
+#include <pybind11/stl.h>
 #include <spdlog/sinks/base_sink.h>
 
 #include <filesystem>
@@ -157,14 +158,21 @@ py::dict run(const py::object& project, const py::object& out_dir, const py::obj
   return to_dict(*results);
 }
 
-py::object inspect(const py::object& model, double tolerance_mm) {
+py::object inspect(const py::object& model, const std::optional<double>& tolerance_mm) {
   const std::string path = py::str(model).cast<std::string>();
   nlohmann::json j;
   {
     py::gil_scoped_release release;
     try {
-      j = stepframe::inspection_json(stepframe::inspect_step(path, tolerance_mm * 1e-3));
+      // A project file is inspected with its own settings and rules (as `stepframe inspect X.yaml`).
+      const auto inspection =
+          stepframe::is_project_file(path)
+              ? stepframe::inspect_project(path, tolerance_mm ? std::optional<double>(*tolerance_mm * 1e-3) : std::nullopt)
+              : stepframe::inspect_step(path, tolerance_mm.value_or(1.0) * 1e-3);
+      j = stepframe::inspection_json(inspection);
     } catch (const stepframe::geometry::StepReadError& e) {
+      j = nlohmann::json{{"error", e.what()}};
+    } catch (const stepframe::InputError& e) {
       j = nlohmann::json{{"error", e.what()}};
     }
   }
@@ -202,7 +210,9 @@ log       callable(level: str, message: str) receiving the run's log instead of 
 Returns a dict: exit_status (0 pass, 1 a check fails, 2 bad input, 3 unstable, 5 cancelled),
 message (what went wrong, else ''), results (the results.json document as dicts and lists,
 or {'status': 'error', ...}), files (written paths), summary (the text `stepframe run` prints).)");
-  m.def("inspect", &inspect, py::arg("model"), py::arg("tolerance_mm") = 1.0,
-        "What a STEP file holds, as `stepframe inspect --json` prints it. Raises ValueError when "
-        "the file cannot be read.");
+  m.def("inspect", &inspect, py::arg("model"), py::arg("tolerance_mm") = py::none(),
+        "What a STEP file holds, as `stepframe inspect --json` prints it; given a project file (.yaml, .yml),\n"
+        "the wireframe its settings build and the members its rules leave without a section or material\n"
+        "('unassigned_members'). tolerance_mm: the merge tolerance (default 1 mm, or the project's).\n"
+        "Raises ValueError when a file cannot be read.");
 }

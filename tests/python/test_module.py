@@ -136,6 +136,22 @@ class InspectTest(unittest.TestCase):
         with self.assertRaises(ValueError):
             stepframe.inspect(DATA / "no-such-file.stp")
 
+    def test_inspect_project(self):
+        # The rules give the beam a section but no material: inspect names the member's STEP entity.
+        with tempfile.TemporaryDirectory() as scratch:
+            project = pathlib.Path(scratch) / "beam.yaml"
+            project.write_text(
+                f"model: {BEAM}\n"
+                "rules:\n  - where: {layer: BEAMS}\n    section: IPE 300\n"
+                "cases: [{name: G, self_weight: true}]\n")
+            info = stepframe.inspect(project)
+            self.assertEqual(info["member_count"], 1)
+            self.assertEqual(len(info["unassigned_members"]), 1)
+            self.assertEqual(info["unassigned_members"][0]["missing"], ["material"])
+            project.write_text("model: nowhere.stp\ncases: [{name: G, self_weight: true}]\n")
+            with self.assertRaises(ValueError):
+                stepframe.inspect(project)
+
     def test_version(self):
         self.assertRegex(stepframe.__version__, r"^\d+\.\d+\.\d+$")
 
