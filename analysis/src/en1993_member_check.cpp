@@ -189,7 +189,6 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   const double Wy = modulus_y(s, cls_member), Wz = modulus_z(s, cls_member);
   double chi_lt = 1.0;
   if (has_lateral_torsional_buckling(s) && my.peak > 0) {
-    const double Llt = lT;
     // Span loads (a curved diagram) are taken on the top flange, towards the shear centre: the conservative
     // default when the model does not say where they act.
     const double zg = my.linear ? 0.0 : 0.5 * s.depth;
@@ -203,12 +202,12 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
       Mcr = critical_moment_for_diagram({E, G, s.Iz, s.Iw, s.J}, points, zg);
       basis = fmt::format("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and no "
                           "restraint between{}",
-                          Llt, my.linear ? "" : "; span loads on the top flange (conservative default)");
+                          lT, my.linear ? "" : "; span loads on the top flange (conservative default)");
     } else {
       // Restraints inside the member: the diagram between them is not known here, so uniform moment (C1 = 1,
       // the lowest) over the unrestrained length is the conservative default.
-      Mcr = critical_moment(E, G, s.Iz, s.Iw, s.J, Llt, 1.0, my.linear ? 0.0 : 0.454, zg);
-      basis = fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", Llt,
+      Mcr = critical_moment(E, G, s.Iz, s.Iw, s.J, lT, 1.0, my.linear ? 0.0 : 0.454, zg);
+      basis = fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", lT,
                           my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
     }
     const double lambda_lt = std::sqrt(Wy * fy / Mcr);                     // (6.56)
