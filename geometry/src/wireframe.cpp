@@ -271,8 +271,7 @@ void cross_members(std::vector<Track>& tracks, const WireframeOptions& options, 
         places.size() > 1 ? fmt::format(" and at {} more places", places.size() - 1) : std::string();
     const SourceInfo& a = one.edge->source;
     const SourceInfo& b = two.edge->source;
-    const bool by_rule = options.joins_crossings && options.joins_crossings(a) && options.joins_crossings(b);
-    if (options.join_crossings || by_rule) {
+    if (options.join_crossings && options.join_crossings(a) && options.join_crossings(b)) {
       for (const detail::Crossing* c : places) {
         const std::size_t node = grid.merge(c->at, frame.nodes);
         one.stops.push_back({c->first_position, node});
@@ -280,8 +279,8 @@ void cross_members(std::vector<Track>& tracks, const WireframeOptions& options, 
       }
       frame.diagnostics.push_back(
           {Severity::info, "crossing-joined",
-           fmt::format("{} and {} cross at {}{}; both are split and joined there (join_crossings{})", describe(a),
-                       describe(b), xyz(places.front()->at), more, options.join_crossings ? "" : " of a rule"),
+           fmt::format("{} and {} cross at {}{}; both are split and joined there (join_crossings)", describe(a),
+                       describe(b), xyz(places.front()->at), more),
            {a.entity, b.entity},
            places.front()->at});
     } else {

@@ -348,13 +348,14 @@ geometry::WireframeOptions wireframe_options(const Project& project) {
   geometry::WireframeOptions options;
   options.merge_tolerance = project.merge_tolerance;
   options.curve_max_turn = project.curve_max_turn;
-  options.join_crossings = project.join_crossings;
-  // Rules with join_crossings: a member any of them selects is joined where it crosses another such member.
+  // The project's key joins every crossing; rules with join_crossings join those between members they select.
   auto joiners = std::make_shared<std::vector<CompiledSelector>>();
   for (const auto& rule : project.rules)
     if (rule.join_crossings) joiners->emplace_back(rule.where);
-  if (!joiners->empty())
-    options.joins_crossings = [joiners](const geometry::SourceInfo& source) {
+  if (project.join_crossings)
+    options.join_crossings = geometry::join_all_crossings;
+  else if (!joiners->empty())
+    options.join_crossings = [joiners](const geometry::SourceInfo& source) {
       return std::any_of(joiners->begin(), joiners->end(), [&](const CompiledSelector& s) { return s.matches(source); });
     };
   return options;

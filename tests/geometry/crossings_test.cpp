@@ -30,7 +30,7 @@ const std::filesystem::path data = STEPFRAME_TEST_DATA;
 sg::Wireframe wall(double tolerance, bool join) {
   sg::WireframeOptions options;
   options.merge_tolerance = tolerance;
-  options.join_crossings = join;
+  if (join) options.join_crossings = sg::join_all_crossings;
   return sg::build_wireframe(sg::read_step(data / "x_braced_wall_mm.stp"), options);
 }
 
@@ -137,7 +137,7 @@ TEST_CASE("a grid of long members finds every crossing, once", "[wireframe][cros
   const auto reported = sg::build_wireframe(model_of(edges), options);
   // One finding per pair of members: each x member crosses each y member once.
   CHECK(with_code(reported, "members-cross").size() == 225);
-  options.join_crossings = true;
+  options.join_crossings = sg::join_all_crossings;
   const auto joined = sg::build_wireframe(model_of(edges), options);
   CHECK(with_code(joined, "crossing-joined").size() == 225);
   CHECK(joined.members.size() == 70);

@@ -49,15 +49,16 @@ struct WireframeOptions {
   /// of a node or a member is reported as a near-miss gap.
   double gap_factor = 50.0;
   /// Members whose centrelines cross (or pass within the tolerance) away from
-  /// the ends of both: false leaves them apart and reports each pair (crossed
-  /// bracing often passes by); true joins them there, splitting both at one
-  /// new node (each stays one member).
-  bool join_crossings = false;
-  /// Members this accepts are joined where they cross each other (both of the
-  /// pair must be accepted), as if join_crossings held for them alone. Empty:
-  /// none (the choice of a project's rules, made from the members' attributes).
-  std::function<bool(const SourceInfo&)> joins_crossings{};
+  /// the ends of both are left apart and each pair reported (crossed bracing
+  /// often passes by), or joined there, both split at one new node (each stays
+  /// one member). Empty (the default) leaves every crossing apart; otherwise two
+  /// crossing members are joined when this accepts both (`join_all_crossings`, or a
+  /// choice made from the members' attributes, as a project's rules make it).
+  std::function<bool(const SourceInfo&)> join_crossings{};
 };
+
+/// A WireframeOptions::join_crossings that joins every crossing.
+inline bool join_all_crossings(const SourceInfo&) { return true; }
 
 /// Length of a member along its path of nodes [m] (its cut length when straight).
 double path_length(const Wireframe& frame, const WireMember& member);
@@ -71,8 +72,8 @@ double path_length(const Wireframe& frame, const WireMember& member);
 /// - A member is split into elements where another member's end point, or a
 ///   named point, lies on it within tolerance (a T-junction). Members that
 ///   cross without an end point at the crossing (centrelines within the
-///   tolerance, away from the ends of both) are joined only with
-///   `join_crossings`; found through a grid, never by testing all pairs.
+///   tolerance, away from the ends of both) are joined only where
+///   `join_crossings` accepts both; found through a grid, never by testing all pairs.
 /// - A curved edge becomes one member whose elements turn by at most
 ///   `curve_max_turn` each (between split points).
 /// - Named and layered points label the node they sit on (`labels`).
