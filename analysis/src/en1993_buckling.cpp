@@ -118,7 +118,14 @@ double coupled_pair(double Nf, double NT, double a, double i0sq) {
   return (sum - std::sqrt(sum * sum - 4 * beta * Nf * NT)) / (2 * beta);
 }
 
+/// A shear centre offset beyond rounding (a billionth of the polar radius of gyration).
+bool off_axis(double offset, const Section& s) { return std::abs(offset) > 1e-9 * std::sqrt(polar_radius_squared(s)); }
+
 }  // namespace
+
+bool shear_centre_off_centroid(const Section& s) {
+  return off_axis(s.shear_centre_y, s) || off_axis(s.shear_centre_z, s);
+}
 
 double torsional_critical_force(const Section& s, double E, double G, double lT) {
   const double pi2 = std::numbers::pi * std::numbers::pi;
@@ -131,8 +138,7 @@ double torsional_flexural_critical_force(const Section& s, double E, double G, d
   const double NT = torsional_critical_force(s, E, G, lT);
   const double i0sq = polar_radius_squared(s);
   const double y0 = s.shear_centre_y, z0 = s.shear_centre_z;
-  const double negligible = 1e-9 * std::sqrt(i0sq);
-  const bool off_y = std::abs(y0) > negligible, off_z = std::abs(z0) > negligible;
+  const bool off_y = off_axis(y0, s), off_z = off_axis(z0, s);
   if (!off_y && !off_z) return NT;                       // twist alone
   if (!off_z) return coupled_pair(Ny, NT, y0, i0sq);     // y0 couples twist with buckling about y
   if (!off_y) return coupled_pair(Nz, NT, z0, i0sq);

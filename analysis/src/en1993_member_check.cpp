@@ -120,10 +120,13 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     if (VplZ > 0 && Vz > 0.5 * VplZ) MyRd *= 1.0 - std::pow(std::min(2 * Vz / VplZ - 1, 1.0), 2);
     if (VplY > 0 && Vy > 0.5 * VplY) MzRd *= 1.0 - std::pow(std::min(2 * Vy / VplY - 1, 1.0), 2);
     // Class 1 and 2 I and rectangular hollow sections: the plastic interaction of 6.2.9.1; otherwise the
-    // linear sum (6.2), valid for every class 1 to 3 section.
-    const std::optional<double> plastic =
-        cls.section_class <= 2 ? plastic_interaction(s, {NRd, MyRd, MzRd}, N, My, Mz) : std::nullopt;
-    const double u = plastic ? *plastic : std::abs(N) / NRd + std::abs(My) / MyRd + std::abs(Mz) / MzRd;
+    // linear sum (6.2), valid for every class 1 to 3 section. The linear sum bounds the plastic
+    // utilisation from above, so a station where it cannot beat the worst so far needs no plastic solve.
+    const double linear = std::abs(N) / NRd + std::abs(My) / MyRd + std::abs(Mz) / MzRd;
+    const std::optional<double> plastic = cls.section_class <= 2 && linear > worst_section
+                                              ? plastic_interaction(s, {NRd, MyRd, MzRd}, N, My, Mz)
+                                              : std::nullopt;
+    const double u = plastic ? *plastic : linear;
     if (u > worst_section) {
       worst_section = u;
       section_check = result("6.2 cross-section",
@@ -173,14 +176,13 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   double chi_t = 1.0;
   const double lT = in.buckling.lt * L;
   if (NEd > 0 && is_open(s.shape) && s.J > 0) {
-    const bool coupled = std::abs(s.shear_centre_y) + std::abs(s.shear_centre_z) > 1e-9 * std::sqrt(s.A);
     const double Ncr = torsional_flexural_critical_force(s, E, G, Ly, Lz, lT);
     const double lambda_t = std::sqrt(NRk / Ncr);  // (6.52)
     chi_t = reduction_factor(lambda_t, curves.z);
     out.push_back(result("6.3.1.4 torsional buckling",
                          fmt::format("EN 1993-1-1 6.3.1.4, {} buckling, Ncr = {:.4g} kN (EN 1993-1-3 6.2.3), "
                                      "curve {}, chi = {:.3f}, lT = {:.3g} m",
-                                     coupled ? "torsional-flexural" : "torsional", Ncr / 1e3, curve_name(curves.z),
+                                     shear_centre_off_centroid(s) ? "torsional-flexural" : "torsional", Ncr / 1e3, curve_name(curves.z),
                                      chi_t, lT),
                          line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1));
   }

@@ -49,9 +49,12 @@ std::optional<double> plastic_interaction(const Section& s, const PlasticResista
   if (N == 0 && My == 0 && Mz == 0) return 0.0;
   // The criterion grows with lambda; the utilisation is 1 / lambda* where it reaches 1 (proportional
   // loading), so that it reads like the linear sum (6.2): the actions divided by it just meet (6.41).
-  double lo = 0, hi = 1;
+  // The linear sum (6.2) bounds it from above, and n from below: lambda* lies in [1 / linear, 1 / n].
+  const double linear = std::abs(N) / r.N + std::abs(My) / r.My + std::abs(Mz) / r.Mz;
+  double lo = 1 / linear, hi = 2 * lo;
+  if (criterion(lo) > 1) hi = lo, lo = 0;  // never expected; keeps the bracket honest
   while (criterion(hi) <= 1) lo = hi, hi *= 2;
-  for (int k = 0; k < 100 && hi - lo > 1e-12 * hi; ++k) {
+  for (int k = 0; k < 100 && hi - lo > 1e-10 * hi; ++k) {
     const double mid = 0.5 * (lo + hi);
     (criterion(mid) <= 1 ? lo : hi) = mid;
   }

@@ -139,6 +139,10 @@ double cm_span(double Mh, double psi, double Ms);
 /// i0^2 = iy^2 + iz^2 + y0^2 + z0^2 with (y0, z0) the shear centre from the centroid.
 double torsional_critical_force(const Section& section, double E, double G, double lT);
 
+/// True when the shear centre lies off the centroid (beyond rounding): twist
+/// then couples with flexural buckling (torsional-flexural rather than torsional).
+bool shear_centre_off_centroid(const Section& section);
+
 /// Lowest elastic critical force of the buckling modes that twist the member
 /// (6.3.1.4): torsional buckling for sections whose shear centre is the
 /// centroid; otherwise the torsional-flexural mode, the lowest root of
