@@ -137,7 +137,7 @@ class InspectTest(unittest.TestCase):
             stepframe.inspect(DATA / "no-such-file.stp")
 
     def test_inspect_project(self):
-        # The rules give the beam a section but no material: inspect names the member's STEP entity.
+        # The rules give the beam a section but no material: inspect lists the member as unassigned.
         with tempfile.TemporaryDirectory() as scratch:
             project = pathlib.Path(scratch) / "beam.yaml"
             project.write_text(
