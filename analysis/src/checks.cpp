@@ -16,9 +16,9 @@ void keep_worst(std::vector<CheckResult>& worst, CheckResult candidate) {
   if (slot.combination.empty() || candidate.utilisation > slot.utilisation) slot = std::move(candidate);
 }
 
-// Runs `check(member index, member chain, member result)` for every member of
-// every result and keeps the worst per member; `check` may return a result
-// with an empty `check` name to skip a member.
+// Runs `check(member index, member chain, member summary, result)` for every
+// member of every result and keeps the worst per member; `check` may return a
+// result with an empty `check` name to skip a member.
 template <class Check>
 std::vector<CheckResult> worst_over(const FrameModel& model, const std::vector<const LoadResult*>& results, Check check) {
   if (results.empty()) return {};
@@ -26,7 +26,7 @@ std::vector<CheckResult> worst_over(const FrameModel& model, const std::vector<c
   std::vector<CheckResult> worst(chains.size());
   for (const LoadResult* result : results)
     for (std::size_t m = 0; m < chains.size(); ++m) {
-      CheckResult r = check(m, chains[m], result->members[m]);
+      CheckResult r = check(m, chains[m], result->members[m], *result);
       if (r.check.empty()) continue;
       r.member = m;
       r.combination = result->name;
@@ -53,13 +53,16 @@ std::vector<bool> free_ends(const FrameModel& model) {
   return free;
 }
 
+// The translation of a node under a result, global [m].
+Eigen::Vector3d translation(const LoadResult& result, std::size_t node) {
+  return result.displacements.segment<3>(static_cast<Eigen::Index>(6 * node));
+}
+
 }  // namespace
 
 std::vector<CheckResult> check_stress(const FrameModel& model, const std::vector<const LoadResult*>& results,
                                       double gamma_M0) {
-  return worst_over(model, results, [&](std::size_t, const Member& member, const LineResult& line) {
-    const auto peak = std::max_element(line.stations.begin(), line.stations.end(),
-                                       [](const Station& a, const Station& b) { return a.von_mises < b.von_mises; });
+  return worst_over(model, results, [&](std::size_t, const Member& member, const LineSummary& line, const LoadResult&) {
     const FrameElement& first = model.elements[member.elements.front()];
     const Material material = material_for_section(model.materials[first.material], model.sections[first.section]);
     CheckResult r;
@@ -67,7 +70,7 @@ std::vector<CheckResult> check_stress(const FrameModel& model, const std::vector
     r.clause = fmt::format("EN 1993-1-1 6.2.1(5), von Mises at the section's stress points <= fy / gamma_M0 "
                            "(fy = {:.0f} MPa, gamma_M0 = {:.2f})",
                            material.fy / 1e6, gamma_M0);
-    r.station = peak == line.stations.end() ? 0.0 : peak->x;
+    r.station = line.max_von_mises_at;
     r.value = line.max_von_mises;
     r.limit = material.fy / gamma_M0;
     return r;
@@ -77,21 +80,22 @@ std::vector<CheckResult> check_stress(const FrameModel& model, const std::vector
 std::vector<CheckResult> check_deflection(const FrameModel& model, const std::vector<const LoadResult*>& results,
                                           const std::vector<double>& span_ratios) {
   const auto free = free_ends(model);
-  return worst_over(model, results, [&](std::size_t m, const Member& member, const LineResult& line) {
-    const bool free_start = free[model.elements[member.elements.front()].nodes[0]];
-    const bool free_end = free[model.elements[member.elements.back()].nodes[1]];
+  return worst_over(model, results, [&](std::size_t m, const Member& member, const LineSummary& line,
+                                        const LoadResult& result) {
+    const std::size_t start = model.elements[member.elements.front()].nodes[0];
+    const std::size_t end = model.elements[member.elements.back()].nodes[1];
+    const bool free_start = free[start], free_end = free[end];
     const bool cantilever = free_start != free_end;
-    const double ratio = span_ratios.at(m), length = line.stations.back().x;
+    const double ratio = span_ratios.at(m), length = line.length;
     CheckResult r;
     r.check = "deflection";
     if (cantilever) {
       // The free end's movement across the member relative to its root (includes the root's rotation).
-      const Station& tip = free_end ? line.stations.back() : line.stations.front();
-      const Station& root = free_end ? line.stations.front() : line.stations.back();
-      const Eigen::Vector3d axis = (line.stations.back().position - line.stations.front().position).normalized();
-      const Eigen::Vector3d d = tip.displacement - root.displacement;
+      const std::size_t tip = free_end ? end : start, root = free_end ? start : end;
+      const Eigen::Vector3d axis = (model.nodes[end] - model.nodes[start]).normalized();
+      const Eigen::Vector3d d = translation(result, tip) - translation(result, root);
       r.clause = fmt::format("EN 1993-1-1 7.2, cantilever tip deflection <= 2L/{:g}", ratio);
-      r.station = tip.x;
+      r.station = free_end ? length : 0.0;
       r.value = (d - d.dot(axis) * axis).norm();
       r.limit = 2 * length / ratio;
     } else {
@@ -106,14 +110,17 @@ std::vector<CheckResult> check_deflection(const FrameModel& model, const std::ve
 
 std::vector<CheckResult> check_drift(const FrameModel& model, const std::vector<const LoadResult*>& results,
                                      double storey_ratio) {
-  return worst_over(model, results, [&](std::size_t, const Member&, const LineResult& line) {
+  return worst_over(model, results, [&](std::size_t, const Member& member, const LineSummary& line,
+                                        const LoadResult& result) {
     CheckResult r;
-    const Eigen::Vector3d chord = line.stations.back().position - line.stations.front().position;
+    const std::size_t start = model.elements[member.elements.front()].nodes[0];
+    const std::size_t end = model.elements[member.elements.back()].nodes[1];
+    const Eigen::Vector3d chord = model.nodes[end] - model.nodes[start];
     if (std::abs(chord.z()) < 0.99 * chord.norm()) return r;  // not a column: no drift check
-    const Eigen::Vector3d sway = line.stations.back().displacement - line.stations.front().displacement;
+    const Eigen::Vector3d sway = translation(result, end) - translation(result, start);
     r.check = "drift";
     r.clause = fmt::format("storey drift <= h/{:g} (EN 1990 A1.4.3, limit set by the project)", storey_ratio);
-    r.station = line.stations.back().x;
+    r.station = line.length;
     r.value = sway.head<2>().norm();
     r.limit = std::abs(chord.z()) / storey_ratio;
     return r;

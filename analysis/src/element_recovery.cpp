@@ -5,6 +5,7 @@
 #include <Eigen/Geometry>
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <stdexcept>
 
@@ -136,6 +137,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations) {
   };
 
   LineResult result;
+  result.length = L;
   result.stations.reserve(stations);
   for (std::size_t k = 0; k < stations; ++k) {
     // Last station exactly at L (no rounding drift).
@@ -147,12 +149,12 @@ LineResult recover_element(const ElementState& s, std::size_t stations) {
     const Vector6d state = state_local(x);
     st.displacement = s.axes.transpose() * state.head<3>();
     st.rotation = s.axes.transpose() * state.tail<3>();
-    const SectionStress stress = section_stress(s.section, st.forces);
+    const SectionStress stress = section_stress(*s.section, st.forces);
     st.max_abs_stress = stress.max_abs_normal;
     st.max_shear_stress = stress.shear;
     st.von_mises = stress.von_mises;
     result.max_abs_stress = std::max(result.max_abs_stress, st.max_abs_stress);
-    result.max_von_mises = std::max(result.max_von_mises, st.von_mises);
+    if (st.von_mises > result.max_von_mises) result.max_von_mises = st.von_mises, result.max_von_mises_at = x;
     result.stations.push_back(st);
   }
   result.start_forces = result.stations.front().forces;
@@ -194,39 +196,46 @@ LineResult recover_element(const ElementState& s, std::size_t stations) {
       if (f(c) > e.max) e.max = f(c), e.x_max = x;
       if (f(c) < e.min) e.min = f(c), e.x_min = x;
     }
-    const SectionStress stress = section_stress(s.section, f);
+    const SectionStress stress = section_stress(*s.section, f);
     result.max_abs_stress = std::max(result.max_abs_stress, stress.max_abs_normal);
-    result.max_von_mises = std::max(result.max_von_mises, stress.von_mises);
+    if (stress.von_mises > result.max_von_mises) result.max_von_mises = stress.von_mises, result.max_von_mises_at = x;
   }
 
-  // Distance of the deformed axis from the line through the deformed ends, on
-  // a grid four times finer than the stations.
+  // Distance of the deformed axis from the line through the deformed ends: largest at a station,
+  // then refined by golden-section search within one station spacing either side of the two
+  // largest stations (the offset is smooth and unimodal there; two, so that a second hump of
+  // nearly the same height is not missed).
   const Eigen::Vector3d a = displacement_local(0);
   const Eigen::Vector3d chord = Eigen::Vector3d(L, 0, 0) + displacement_local(L) - a;
   const double chord_length = chord.norm();
-  auto offset = [&](double x) {
-    const Eigen::Vector3d p = Eigen::Vector3d(x, 0, 0) + displacement_local(x) - a;
+  auto offset_of = [&](double x, const Eigen::Vector3d& u) {
+    const Eigen::Vector3d p = Eigen::Vector3d(x, 0, 0) + u - a;
     return chord_length > 0 ? chord.cross(p).norm() / chord_length : p.norm();
   };
-  const std::size_t fine = 4 * (stations - 1);
-  const double step = L / static_cast<double>(fine);
-  for (std::size_t k = 0; k <= fine; ++k) {
-    const double x = step * static_cast<double>(k);
-    const double distance = offset(x);
-    if (distance > result.max_local_deflection) {
-      result.max_local_deflection = distance;
-      result.max_local_deflection_at = x;
-    }
+  auto offset = [&](double x) { return offset_of(x, displacement_local(x)); };
+  std::array<std::size_t, 2> peaks{0, 0};
+  std::array<double, 2> heights{-1, -1};
+  for (std::size_t k = 0; k < result.stations.size(); ++k) {
+    const Station& st = result.stations[k];
+    const double distance = offset_of(st.x, s.axes * st.displacement);
+    if (distance > heights[0]) peaks[1] = peaks[0], heights[1] = heights[0], peaks[0] = k, heights[0] = distance;
+    else if (distance > heights[1]) peaks[1] = k, heights[1] = distance;
   }
-  // Refine the peak by golden-section search within one grid step either side
-  // (the offset is smooth and unimodal there).
-  if (result.max_local_deflection > 0) {
-    double lo = std::max(0.0, result.max_local_deflection_at - step), hi = std::min(L, result.max_local_deflection_at + step);
+  result.max_local_deflection = heights[0];
+  result.max_local_deflection_at = result.stations[peaks[0]].x;
+  const double step = L / static_cast<double>(stations - 1);
+  for (int which = 0; which < 2; ++which) {
+    if (!(heights[static_cast<std::size_t>(which)] > 0)) continue;
+    // A second station next to the first is on the same hump: the first bracket covers it.
+    if (which == 1 && (peaks[1] + 1 == peaks[0] || peaks[0] + 1 == peaks[1])) continue;
+    const double centre = result.stations[peaks[static_cast<std::size_t>(which)]].x;
+    double lo = std::max(0.0, centre - step), hi = std::min(L, centre + step);
     const double g = 0.5 * (std::sqrt(5.0) - 1.0);
-    for (int it = 0; it < 60; ++it) {
-      const double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo);
-      if (offset(x1) < offset(x2)) lo = x1;
-      else hi = x2;
+    double x1 = hi - g * (hi - lo), x2 = lo + g * (hi - lo), f1 = offset(x1), f2 = offset(x2);
+    // 0.618^24 = 1e-5 of the bracket: at a smooth maximum the value is then within about 1e-10.
+    for (int it = 0; it < 24; ++it) {
+      if (f1 < f2) lo = x1, x1 = x2, f1 = f2, x2 = lo + g * (hi - lo), f2 = offset(x2);
+      else hi = x2, x2 = x1, f2 = f1, x1 = hi - g * (hi - lo), f1 = offset(x1);
     }
     const double x = 0.5 * (lo + hi), distance = offset(x);
     if (distance > result.max_local_deflection) {
@@ -234,6 +243,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations) {
       result.max_local_deflection_at = x;
     }
   }
+  if (!(result.max_local_deflection > 0)) result.max_local_deflection = 0, result.max_local_deflection_at = 0;
   return result;
 }
 

@@ -13,6 +13,23 @@
 
 namespace stepframe::analysis::en1993 {
 
+namespace {
+
+// sin(i theta), i = 1..n, by the recurrence sin((i+1) t) = 2 cos t sin(i t) - sin((i-1) t)
+// (the Chebyshev recurrence; two library calls instead of n).
+void fill_sines(double theta, Eigen::VectorXd& sines) {
+  const double c2 = 2 * std::cos(theta);
+  double previous = 0, current = std::sin(theta);
+  for (Eigen::Index i = 0; i < sines.size(); ++i) {
+    sines(i) = current;
+    const double next = c2 * current - previous;
+    previous = current;
+    current = next;
+  }
+}
+
+}  // namespace
+
 double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std::vector<DiagramPoint>& diagram,
                                    double load_height, int terms) {
   if (diagram.size() < 2) throw std::invalid_argument("critical_moment_for_diagram: at least two points are needed");
@@ -53,9 +70,9 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
         const double x = 0.5 * (sa + sb) + 0.5 * (sb - sa) * gauss_x[g], weight = 0.5 * (sb - sa) * gauss_w[g];
         const double t = (x - xa) / (xb - xa);
         const double M = (1 - t) * diagram[p].M + t * diagram[p + 1].M;
+        fill_sines(pi * x / L, sines);
         for (Eigen::Index i = 0; i < n; ++i) {
           const double wi = static_cast<double>(i + 1) * pi / L;
-          sines(i) = std::sin(wi * x);
           bent(i) = wi * wi * sines(i);
         }
         // 1/2 x^T G x = sum a_i b_j c_ij, c_ij = int M (i pi / L)^2 sin_i sin_j dx.
@@ -71,14 +88,24 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
       const double Q = std::abs(diagram[p].V - diagram[p + 1].V);
       if (Q == 0) continue;
       const double x = 0.5 * (diagram[p].x + diagram[p + 1].x) - x0;
-      for (Eigen::Index i = 0; i < n; ++i) sines(i) = std::sin(static_cast<double>(i + 1) * pi / L * x);
+      fill_sines(pi * x / L, sines);
       G.bottomRightCorner(n, n).noalias() += (Q * load_height) * sines * sines.transpose();
     }
   // G x = mu K x with K diagonal and positive: mu of K^-1/2 G K^-1/2; lambda = 1 / mu_max.
   const Eigen::VectorXd r = K.cwiseSqrt().cwiseInverse();
   const Eigen::MatrixXd S = r.asDiagonal() * G * r.asDiagonal();
-  const Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> solver(S, Eigen::EigenvaluesOnly);
-  const double mu = solver.eigenvalues().maxCoeff();
+  double mu = 0;
+  if (load_height == 0) {
+    // S = [0 C; C^T 0]: its eigenvalues are plus and minus the singular values of C, so mu_max is
+    // the square root of the largest eigenvalue of C^T C (half the size, an eighth of the work).
+    const Eigen::MatrixXd C = S.topRightCorner(n, n);
+    const Eigen::MatrixXd CtC = C.transpose() * C;
+    const Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> solver(CtC, Eigen::EigenvaluesOnly);
+    mu = std::sqrt(std::max(0.0, solver.eigenvalues().maxCoeff()));
+  } else {
+    const Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> solver(S, Eigen::EigenvaluesOnly);
+    mu = solver.eigenvalues().maxCoeff();
+  }
   if (mu <= 0) return std::numeric_limits<double>::infinity();
   return peak / mu;
 }

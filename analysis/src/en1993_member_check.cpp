@@ -2,6 +2,7 @@
 
 #include "stepframe/analysis/en1993.hpp"
 #include "stepframe/analysis/member_line.hpp"
+#include "stepframe/analysis/parallel.hpp"
 
 #include <fmt/format.h>
 
@@ -261,8 +262,10 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
 std::vector<CheckResult> check_members(const FrameModel& model, const std::vector<const LoadResult*>& results,
                                        const std::vector<BucklingLengths>& buckling, const PartialFactors& factors) {
   const auto chains = member_chains(model);
-  std::map<std::pair<std::size_t, std::string>, CheckResult> worst;
-  for (std::size_t m = 0; m < chains.size(); ++m) {
+  // Per member, the worst result of each check over the results, ordered by check name; the
+  // members are independent, so they are spread over the cores and joined in member order.
+  std::vector<std::map<std::string, CheckResult>> worst(chains.size());
+  parallel_for(chains.size(), [&](std::size_t m) {
     const FrameElement& first = model.elements[chains[m].elements.front()];
     MemberInput in;
     in.member = m;
@@ -270,15 +273,17 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     in.material = material_for_section(model.materials[first.material], *in.section);
     if (m < buckling.size()) in.buckling = buckling[m];
     for (const LoadResult* r : results) {
-      in.length = r->members[m].stations.back().x;
-      for (CheckResult& c : check_member(in, r->members[m], r->name, factors)) {
-        auto [it, inserted] = worst.try_emplace({m, c.check}, c);
+      const LineResult line = member_line(model, *r, chains[m]);
+      in.length = line.length;
+      for (CheckResult& c : check_member(in, line, r->name, factors)) {
+        auto [it, inserted] = worst[m].try_emplace(c.check, c);
         if (!inserted && c.utilisation > it->second.utilisation) it->second = std::move(c);
       }
     }
-  }
+  });
   std::vector<CheckResult> out;
-  for (auto& [key, c] : worst) out.push_back(std::move(c));
+  for (auto& per_member : worst)
+    for (auto& [check, c] : per_member) out.push_back(std::move(c));
   return out;
 }
 

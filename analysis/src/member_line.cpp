@@ -1,5 +1,8 @@
 #include "stepframe/analysis/member_line.hpp"
 
+#include "stepframe/analysis/assembly.hpp"
+#include "stepframe/analysis/element_geometry.hpp"
+
 #include <Eigen/Geometry>
 
 #include <algorithm>
@@ -14,13 +17,60 @@ std::vector<Member> member_chains(const FrameModel& model) {
   return chains;
 }
 
-LineResult join_elements(const Member& member, const std::vector<LineResult>& element_results) {
-  if (member.elements.empty()) throw std::invalid_argument("join_elements: a member needs at least one element");
+LocalLoads element_loads(const LoadResult& result, std::size_t element) {
+  // Loads over the same stretch (or at the same point) are summed into one: the recovery then
+  // evaluates one term where a combination of several cases would give several (superposition).
+  LocalLoads loads;
+  for (const LoadTerm& term : result.element_loads)
+    for (const LocalLoad& load : (*term.loads)[element]) {
+      auto same = std::find_if(loads.begin(), loads.end(), [&](const LocalLoad& l) {
+        return l.point == load.point && l.a == load.a && l.b == load.b;
+      });
+      if (same == loads.end()) same = loads.insert(loads.end(), LocalLoad{load.point, load.a, load.b, {0, 0, 0}, {0, 0, 0}});
+      same->q_a += term.factor * load.q_a;
+      same->q_b += term.factor * load.q_b;
+    }
+  return loads;
+}
+
+ElementState element_state(const FrameModel& model, const LoadResult& result, std::size_t e) {
+  const FrameElement& element = model.elements[e];
+  const ElementGeometry geo = element_geometry(model, e);
+  ElementState es;
+  es.section = &model.sections[element.section];
+  es.properties = element_properties(*es.section, model.materials[element.material], geo.length,
+                                     model.settings.shear_deformation);
+  es.axes = geo.axes;
+  es.origin = model.nodes[element.nodes[0]];
+  es.end_displacements << result.displacements.segment<6>(global_dof(element.nodes[0], ux)),
+      result.displacements.segment<6>(global_dof(element.nodes[1], ux));
+  es.loads = element_loads(result, e);
+  es.releases = element.releases;
+  if (!result.second_order_axial.empty()) {
+    es.second_order = true;
+    es.axial_force = result.second_order_axial[e];
+  }
+  return es;
+}
+
+LineResult element_line(const FrameModel& model, const LoadResult& result, std::size_t element, std::size_t stations) {
+  return recover_element(element_state(model, result, element), stations > 0 ? stations : result.stations);
+}
+
+LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member) {
+  std::vector<LineResult> parts;
+  parts.reserve(member.elements.size());
+  for (std::size_t e : member.elements) parts.push_back(element_line(model, result, e));
+  return join_elements(parts);
+}
+
+LineResult join_elements(const std::vector<LineResult>& parts) {
+  if (parts.empty()) throw std::invalid_argument("join_elements: a member needs at least one element");
+  if (parts.size() == 1) return parts.front();  // the element's own (local-axis) measures are the member's
   LineResult joined;
   double offset = 0;
-  std::size_t e_index = 0;
-  for (std::size_t e : member.elements) {
-    const LineResult& part = element_results.at(e);
+  bool first = true;
+  for (const LineResult& part : parts) {
     for (Station s : part.stations) {
       s.x += offset;
       joined.stations.push_back(s);
@@ -28,24 +78,18 @@ LineResult join_elements(const Member& member, const std::vector<LineResult>& el
     for (std::size_t c = 0; c < 6; ++c) {
       const DiagramExtreme& part_extreme = part.extremes[c];
       DiagramExtreme& j = joined.extremes[c];
-      const bool first = e_index == 0;
       if (first || part_extreme.max > j.max) j.max = part_extreme.max, j.x_max = part_extreme.x_max + offset;
       if (first || part_extreme.min < j.min) j.min = part_extreme.min, j.x_min = part_extreme.x_min + offset;
     }
-    ++e_index;
-    offset += part.stations.back().x;
     joined.max_abs_stress = std::max(joined.max_abs_stress, part.max_abs_stress);
-    joined.max_von_mises = std::max(joined.max_von_mises, part.max_von_mises);
+    if (first || part.max_von_mises > joined.max_von_mises)
+      joined.max_von_mises = part.max_von_mises, joined.max_von_mises_at = part.max_von_mises_at + offset;
+    offset += part.length;
+    first = false;
   }
-  joined.start_forces = element_results[member.elements.front()].start_forces;
-  joined.end_forces = element_results[member.elements.back()].end_forces;
-
-  if (member.elements.size() == 1) {  // the element's own (local-axis) measure is the member's
-    const LineResult& only = element_results[member.elements.front()];
-    joined.max_local_deflection = only.max_local_deflection;
-    joined.max_local_deflection_at = only.max_local_deflection_at;
-    return joined;
-  }
+  joined.length = offset;
+  joined.start_forces = parts.front().start_forces;
+  joined.end_forces = parts.back().end_forces;
   // Distance of each deformed axis point from the line through the deformed member ends.
   const Eigen::Vector3d a = joined.stations.front().position + joined.stations.front().displacement;
   const Eigen::Vector3d chord = joined.stations.back().position + joined.stations.back().displacement - a;

@@ -1,11 +1,13 @@
 #include "stepframe/analysis/stiffness_factor.hpp"
 
-#include <Eigen/CholmodSupport>
+#include <cholmod.h>
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <mutex>
+#include <stdexcept>
 #include <string>
 
 namespace stepframe::analysis {
@@ -13,11 +15,73 @@ namespace {
 
 using Sparse = Eigen::SparseMatrix<double>;
 
-// CHOLMOD's supernodal L L^T with access to its factor, to read the pivots.
-class Supernodal : public Eigen::CholmodSupernodalLLT<Sparse, Eigen::Lower> {
- public:
-  const cholmod_factor* factor() const { return m_cholmodFactor; }
-};
+// A CHOLMOD view of a compressed column-major sparse matrix (lower triangle
+// used) or of a dense matrix: no copies.
+cholmod_sparse view_of(const Sparse& a) {
+  cholmod_sparse v{};
+  v.nrow = v.ncol = static_cast<std::size_t>(a.rows());
+  v.nzmax = static_cast<std::size_t>(a.nonZeros());
+  v.p = const_cast<int*>(a.outerIndexPtr());
+  v.i = const_cast<int*>(a.innerIndexPtr());
+  v.x = const_cast<double*>(a.valuePtr());
+  v.stype = -1;
+  v.itype = CHOLMOD_INT;
+  v.xtype = CHOLMOD_REAL;
+  v.dtype = CHOLMOD_DOUBLE;
+  v.sorted = 1;
+  v.packed = 1;
+  return v;
+}
+
+cholmod_dense view_of(const Eigen::MatrixXd& b) {
+  cholmod_dense v{};
+  v.nrow = static_cast<std::size_t>(b.rows());
+  v.ncol = static_cast<std::size_t>(b.cols());
+  v.nzmax = v.nrow * v.ncol;
+  v.d = v.nrow;
+  v.x = const_cast<double*>(b.data());
+  v.xtype = CHOLMOD_REAL;
+  v.dtype = CHOLMOD_DOUBLE;
+  return v;
+}
+
+// Fill-reducing ordering of the reduced stiffness, computed on the graph of
+// its nodes (the free DOFs of a node share one sparsity pattern) and expanded
+// to their DOFs: METIS nested dissection (Karypis & Kumar, SIAM J. Sci.
+// Comput. 20(1), 1998) on a graph 36 times smaller than the DOF graph costs
+// little and gives less fill than minimum degree on a frame in 3D.
+std::vector<int> node_ordering(const Sparse& k_free, const DofNumbering& dofs, cholmod_common& common) {
+  const auto n = static_cast<std::size_t>(k_free.rows());
+  // Nodes with free DOFs, numbered in order, and the node of each DOF.
+  std::vector<int> node_of(n), first_dof;
+  for (std::size_t i = 0; i < n; ++i) {
+    const auto node = static_cast<std::size_t>(dofs.global_of_free[i] / 6);
+    if (first_dof.empty() || static_cast<std::size_t>(dofs.global_of_free[static_cast<std::size_t>(first_dof.back())] / 6) != node)
+      first_dof.push_back(static_cast<int>(i));
+    node_of[i] = static_cast<int>(first_dof.size() - 1);
+  }
+  const auto nodes = first_dof.size();
+  first_dof.push_back(static_cast<int>(n));
+  // The node graph's lower triangle, column by column (one entry per node pair).
+  std::vector<Eigen::Triplet<double>> pairs;
+  pairs.reserve(static_cast<std::size_t>(k_free.nonZeros()) / 18 + nodes);
+  for (Eigen::Index col = 0; col < k_free.outerSize(); ++col)
+    for (Sparse::InnerIterator it(k_free, col); it; ++it)
+      if (node_of[static_cast<std::size_t>(it.row())] >= node_of[static_cast<std::size_t>(col)])
+        pairs.emplace_back(node_of[static_cast<std::size_t>(it.row())], node_of[static_cast<std::size_t>(col)], 1.0);
+  Sparse graph(static_cast<Eigen::Index>(nodes), static_cast<Eigen::Index>(nodes));
+  graph.setFromTriplets(pairs.begin(), pairs.end(), [](double a, double) { return a; });
+  graph.makeCompressed();
+  cholmod_sparse g = view_of(graph);
+  g.xtype = CHOLMOD_PATTERN;
+  std::vector<int> node_perm(nodes);
+  if (!cholmod_metis(&g, nullptr, 0, 1, node_perm.data(), &common)) cholmod_amd(&g, nullptr, 0, node_perm.data(), &common);
+  std::vector<int> perm;
+  perm.reserve(n);
+  for (int node : node_perm)
+    for (int d = first_dof[static_cast<std::size_t>(node)]; d < first_dof[static_cast<std::size_t>(node) + 1]; ++d) perm.push_back(d);
+  return perm;
+}
 
 FreeDirection direction_of(Eigen::Index reduced, const DofNumbering& dofs) {
   const auto global = static_cast<std::size_t>(dofs.global_of_free[static_cast<std::size_t>(reduced)]);
@@ -86,7 +150,16 @@ std::vector<FreeDirection> diagnose(const Sparse& k_free, double threshold, cons
 }  // namespace
 
 struct StiffnessFactor::Impl {
-  Supernodal llt;
+  cholmod_common common{};
+  cholmod_factor* factor = nullptr;
+  std::mutex solving;
+  Impl() { cholmod_start(&common); }
+  ~Impl() {
+    if (factor) cholmod_free_factor(&factor, &common);
+    cholmod_finish(&common);
+  }
+  Impl(const Impl&) = delete;
+  Impl& operator=(const Impl&) = delete;
 };
 
 std::string instability_message(const std::vector<FreeDirection>& free, const std::vector<Eigen::Vector3d>& nodes) {
@@ -119,32 +192,45 @@ StiffnessFactor::StiffnessFactor(const Sparse& k_free, const DofNumbering& dofs,
   const double max_diagonal = k_free.diagonal().cwiseAbs().maxCoeff();
   const double threshold = pivot_tolerance * max_diagonal;
 
-  Supernodal& llt = impl_->llt;
-  llt.cholmod().print = 0;  // CHOLMOD reports a non-positive pivot through its status; we report it ourselves
-  llt.cholmod().supernodal = CHOLMOD_SUPERNODAL;
-  llt.compute(k_free);
+  cholmod_common& common = impl_->common;
+  common.print = 0;  // CHOLMOD reports a non-positive pivot through its status; we report it ourselves
+  common.supernodal = CHOLMOD_SUPERNODAL;
+  common.nmethods = 1;
+  common.method[0].ordering = CHOLMOD_GIVEN;
+  common.postorder = 1;
+  std::vector<int> perm = node_ordering(k_free, dofs, common);
+  // CHOLMOD reads the lower triangle only (stype -1) of a compressed matrix.
+  const Sparse compressed = k_free.isCompressed() ? Sparse() : Sparse(k_free);
+  cholmod_sparse a = view_of(k_free.isCompressed() ? k_free : compressed);
+  impl_->factor = cholmod_analyze_p(&a, perm.data(), nullptr, 0, &common);
+  if (!impl_->factor) throw std::runtime_error("CHOLMOD could not analyse the stiffness matrix (out of memory?)");
+  cholmod_factorize(&a, impl_->factor, &common);
   std::vector<FreeDirection> free;
-  if (llt.info() == Eigen::Success) {
-    free = small_pivots(llt.factor(), threshold, dofs);
-  } else {
+  if (common.status == CHOLMOD_OK) {
+    free = small_pivots(impl_->factor, threshold, dofs);
+  } else if (common.status == CHOLMOD_NOT_POSDEF) {
     spdlog::debug("stiffness factorisation met a non-positive pivot; locating the free directions");
     free = diagnose(k_free, threshold, dofs);
     if (free.empty())
       throw UnstableFrame("the frame is unstable: its stiffness matrix is singular; check the supports", {});
+  } else {
+    throw std::runtime_error("CHOLMOD could not factorise the stiffness matrix (status " + std::to_string(common.status) +
+                             "; out of memory?)");
   }
   if (!free.empty()) {
     std::string message = instability_message(free, nodes);
     spdlog::debug("{}", message);
     throw UnstableFrame(message, std::move(free));
   }
-  spdlog::debug("stiffness factorised (CHOLMOD supernodal): {} free DOFs, {} non-zeros, {:.0f} in the factor",
-                k_free.rows(), k_free.nonZeros(), factor_nonzeros());
+  spdlog::debug("stiffness factorised (CHOLMOD supernodal, node-graph METIS ordering): {} free DOFs, {} non-zeros, "
+                "{:.0f} in the factor, {:.3g} flops",
+                k_free.rows(), k_free.nonZeros(), factor_nonzeros(), common.fl);
 }
 
 StiffnessFactor::~StiffnessFactor() = default;
 
 double StiffnessFactor::factor_nonzeros() const {
-  const cholmod_factor* L = impl_->llt.factor();
+  const cholmod_factor* L = impl_->factor;
   if (!L) return 0;
   if (L->is_super) return static_cast<double>(L->xsize);
   return static_cast<double>(L->nzmax);
@@ -152,12 +238,19 @@ double StiffnessFactor::factor_nonzeros() const {
 
 Eigen::VectorXd StiffnessFactor::solve(const Eigen::VectorXd& f_free) const {
   if (f_free.size() == 0) return Eigen::VectorXd();
-  return impl_->llt.solve(f_free);
+  return solve(Eigen::MatrixXd(f_free)).col(0);
 }
 
 Eigen::MatrixXd StiffnessFactor::solve(const Eigen::MatrixXd& f_free) const {
   if (f_free.rows() == 0) return Eigen::MatrixXd(0, f_free.cols());
-  return impl_->llt.solve(f_free);
+  cholmod_dense b = view_of(f_free);
+  // cholmod_solve allocates through the common, which is not safe from several threads at once.
+  const std::lock_guard<std::mutex> lock(impl_->solving);
+  cholmod_dense* x = cholmod_solve(CHOLMOD_A, impl_->factor, &b, &impl_->common);
+  if (!x) throw std::runtime_error("CHOLMOD could not solve (out of memory?)");
+  Eigen::MatrixXd out = Eigen::Map<const Eigen::MatrixXd>(static_cast<const double*>(x->x), f_free.rows(), f_free.cols());
+  cholmod_free_dense(&x, &impl_->common);
+  return out;
 }
 
 }  // namespace stepframe::analysis

@@ -6,6 +6,7 @@
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
+#include <map>
 
 namespace stepframe {
 namespace {
@@ -17,6 +18,26 @@ std::vector<const analysis::LoadResult*> pick(const std::vector<analysis::LoadRe
   for (const auto& r : results)
     if (std::find(names.begin(), names.end(), r.name) != names.end()) out.push_back(&r);
   return out;
+}
+
+// Logs the model's diagnostics: errors all, other kinds the first few of each
+// code and then how many more (a large model can have thousands of notes;
+// results.json and the report list them all).
+void log_diagnostics(const std::filesystem::path& model, const std::vector<geometry::Diagnostic>& diagnostics) {
+  constexpr std::size_t shown_per_code = 5;
+  std::map<std::string, std::size_t> seen;
+  for (const auto& d : diagnostics) {
+    const auto level = d.severity == geometry::Severity::error     ? spdlog::level::err
+                       : d.severity == geometry::Severity::warning ? spdlog::level::warn
+                                                                   : spdlog::level::info;
+    const std::size_t n = ++seen[d.code];
+    if (d.severity == geometry::Severity::error || n <= shown_per_code) spdlog::log(level, "{}: {}", model.string(), d.message);
+    else spdlog::debug("{}: {}", model.string(), d.message);
+  }
+  for (const auto& [code, n] : seen)
+    if (n > shown_per_code)
+      spdlog::info("{}: {} more '{}' diagnostics (all are listed in results.json and the report)", model.string(),
+                   n - shown_per_code, code);
 }
 
 }  // namespace
@@ -44,11 +65,7 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   a.wireframe = geometry::build_wireframe(step, wireframe_options(a.project));
   spdlog::info("{}: {} members, {} nodes (file unit {})", a.project.model.string(), a.wireframe.members.size(),
                a.wireframe.nodes.size(), step.length_unit);
-  for (const auto& d : a.wireframe.diagnostics)
-    spdlog::log(d.severity == geometry::Severity::error     ? spdlog::level::err
-                : d.severity == geometry::Severity::warning ? spdlog::level::warn
-                                                            : spdlog::level::info,
-                "{}: {}", a.project.model.string(), d.message);
+  log_diagnostics(a.project.model, a.wireframe.diagnostics);
   if (geometry::has_errors(a.wireframe.diagnostics))
     throw InputError(a.project.model.string() + ": the model has errors (listed above); fix them in the CAD model");
   report("geometry", 1);
@@ -57,7 +74,7 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   a.built = build_frame_model(a.project, a.wireframe);
 
   analysis::SolveOptions options;
-  options.progress = [&](double f) { report("solve", f); };
+  options.progress = [&](std::string_view stage, double f) { report(stage, f); };
   options.buckling_modes = a.project.buckling_modes;
   a.results = analysis::solve(a.built.model, options);
 

@@ -3,6 +3,7 @@
 
 #include <spdlog/spdlog.h>
 
+#include <mutex>
 #include <stdexcept>
 
 #ifndef STEPFRAME_VERSION
@@ -23,8 +24,26 @@ nlohmann::json error_document(const RunOutcome& outcome) {
 
 std::string_view library_version() { return STEPFRAME_VERSION; }
 
-Results::Results(RunOutcome outcome) : outcome_(std::move(outcome)) {
-  json_ = outcome_.analysis ? results_json(*outcome_.analysis) : error_document(outcome_);
+struct Results::Documents {
+  std::once_flag text_once, json_once;
+  std::string text;
+  nlohmann::json json;
+};
+
+Results::Results(RunOutcome outcome) : outcome_(std::move(outcome)), documents_(std::make_shared<Documents>()) {}
+
+const std::string& Results::json_text() const {
+  std::call_once(documents_->text_once, [&] {
+    documents_->text = outcome_.analysis ? results_json_text(*outcome_.analysis) : error_document(outcome_).dump();
+  });
+  return documents_->text;
+}
+
+const nlohmann::json& Results::json() const {
+  std::call_once(documents_->json_once, [&] {
+    documents_->json = outcome_.analysis ? nlohmann::json::parse(json_text()) : error_document(outcome_);
+  });
+  return documents_->json;
 }
 
 const Analysis& Results::analysis() const {

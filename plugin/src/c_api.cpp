@@ -96,7 +96,7 @@ stepframe::RunOptions options_of(sf_run& run) {
 void keep(sf_run& run, const stepframe::Results& results) {
   run.status = static_cast<int>(results.status());
   run.message = results.message();
-  run.results_json = results.json().dump();
+  run.results_json = results.json_text();
   run.summary = results.summary();
 }
 

@@ -71,38 +71,77 @@ bool is_project_file(const std::filesystem::path& path) {
 nlohmann::json inspection_json(const Inspection& in) {
   const auto& wf = in.wireframe;
   const auto [low, high] = bounding_box(wf.nodes);
-  nlohmann::json j{{"file", in.file.string()},
-                   {"length_unit", in.length_unit},
-                   {"metres_per_unit", in.metres_per_unit},
-                   {"merge_tolerance", in.merge_tolerance},
-                   {"bounding_box", {{"min", json_shapes::vec(low)}, {"max", json_shapes::vec(high)}}},
-                   {"node_count", wf.nodes.size()},
-                   {"member_count", wf.members.size()},
-                   {"attributes", in.attribute_counts}};
-  auto& members = j["members"] = nlohmann::json::array();
-  for (std::size_t i = 0; i < wf.members.size(); ++i) {
-    const auto& m = wf.members[i];
-    members.push_back({{"id", i},
-                       {"nodes", {m.nodes.front(), m.nodes.back()}},
-                       {"path", m.nodes},
-                       {"length", geometry::path_length(wf, m)},
-                       {"source", json_shapes::source(m.source)}});
+  std::string text;
+  {
+    detail::JsonWriter w([&](std::string_view piece) { text.append(piece); });
+    w.begin_object();
+    w.key("file").value(in.file.string());
+    w.key("length_unit").value(in.length_unit);
+    w.key("metres_per_unit").value(in.metres_per_unit);
+    w.key("merge_tolerance").value(in.merge_tolerance);
+    w.key("bounding_box").begin_object();
+    w.key("min");
+    json_shapes::vec(w, low);
+    w.key("max");
+    json_shapes::vec(w, high);
+    w.end_object();
+    w.key("node_count").value(wf.nodes.size());
+    w.key("member_count").value(wf.members.size());
+    w.key("attributes").begin_object();
+    for (const auto& [kind, values] : in.attribute_counts) {
+      w.key(kind).begin_object();
+      for (const auto& [value, count] : values) w.key(value).value(count);
+      w.end_object();
+    }
+    w.end_object();
+    w.key("members").begin_array();
+    for (std::size_t i = 0; i < wf.members.size(); ++i) {
+      const auto& m = wf.members[i];
+      w.begin_object();
+      w.key("id").value(i);
+      w.key("nodes").begin_array();
+      w.value(m.nodes.front());
+      w.value(m.nodes.back());
+      w.end_array();
+      w.key("path").begin_array();
+      for (std::size_t n : m.nodes) w.value(n);
+      w.end_array();
+      w.key("length").value(geometry::path_length(wf, m));
+      w.key("source");
+      json_shapes::source(w, m.source);
+      w.end_object();
+    }
+    w.end_array();
+    w.key("points").begin_array();
+    for (const auto& label : wf.labels) {
+      w.begin_object();
+      w.key("node").value(label.node);
+      w.key("xyz");
+      json_shapes::vec(w, wf.nodes[label.node]);
+      w.key("source");
+      json_shapes::source(w, label.source);
+      w.end_object();
+    }
+    w.end_array();
+    w.key("diagnostics").begin_array();
+    for (const auto& d : wf.diagnostics) json_shapes::diagnostic(w, d);
+    w.end_array();
+    if (!in.project.empty()) {
+      w.key("project").value(in.project.string());
+      w.key("unassigned_members").begin_array();
+      for (const auto& u : in.unassigned) {
+        w.begin_object();
+        w.key("id").value(u.member);
+        w.key("source");
+        json_shapes::source(w, wf.members[u.member].source);
+        w.key("missing").strings(missing(u));
+        w.end_object();
+      }
+      w.end_array();
+    }
+    w.end_object();
   }
-  auto& points = j["points"] = nlohmann::json::array();
-  for (const auto& label : wf.labels)
-    points.push_back({{"node", label.node}, {"xyz", json_shapes::vec(wf.nodes[label.node])},
-                      {"source", json_shapes::source(label.source)}});
-  auto& diagnostics = j["diagnostics"] = nlohmann::json::array();
-  for (const auto& d : wf.diagnostics) diagnostics.push_back(json_shapes::diagnostic(d));
-  if (!in.project.empty()) {
-    j["project"] = in.project.string();
-    auto& unassigned = j["unassigned_members"] = nlohmann::json::array();
-    for (const auto& u : in.unassigned)
-      unassigned.push_back({{"id", u.member},
-                            {"source", json_shapes::source(wf.members[u.member].source)},
-                            {"missing", missing(u)}});
-  }
-  return j;
+  return nlohmann::json::parse(text);
 }
 
 std::string inspection_text(const Inspection& in) {

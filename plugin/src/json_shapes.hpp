@@ -1,26 +1,40 @@
 #pragma once
 // JSON shapes shared by results.json and `inspect --json`.
 
+#include "json_writer.hpp"
 #include "stepframe/geometry/diagnostic.hpp"
 #include "stepframe/geometry/source_info.hpp"
 
 #include <Eigen/Core>
-#include <nlohmann/json.hpp>
+
+#include <array>
 
 namespace stepframe::json_shapes {
 
-inline nlohmann::json vec(const Eigen::Vector3d& v) { return {v[0], v[1], v[2]}; }
+inline void vec(detail::JsonWriter& w, const Eigen::Vector3d& v) { w.numbers(std::array<double, 3>{v[0], v[1], v[2]}); }
 
-inline nlohmann::json source(const geometry::SourceInfo& s) {
-  return {{"entity", s.entity},   {"name", s.name},     {"layers", s.layers},
-          {"product", s.product}, {"colour", s.colour}, {"assembly_path", s.assembly_path}};
+inline void source(detail::JsonWriter& w, const geometry::SourceInfo& s) {
+  w.begin_object();
+  w.key("entity").value(s.entity);
+  w.key("name").value(s.name);
+  w.key("layers").strings(s.layers);
+  w.key("product").value(s.product);
+  w.key("colour").value(s.colour);
+  w.key("assembly_path").value(s.assembly_path);
+  w.end_object();
 }
 
-inline nlohmann::json diagnostic(const geometry::Diagnostic& d) {
-  nlohmann::json j{
-      {"severity", geometry::to_string(d.severity)}, {"code", d.code}, {"message", d.message}, {"entities", d.entities}};
-  if (d.at) j["at"] = vec(*d.at);
-  return j;
+inline void diagnostic(detail::JsonWriter& w, const geometry::Diagnostic& d) {
+  w.begin_object();
+  w.key("severity").value(geometry::to_string(d.severity));
+  w.key("code").value(d.code);
+  w.key("message").value(d.message);
+  w.key("entities").strings(d.entities);
+  if (d.at) {
+    w.key("at");
+    vec(w, *d.at);
+  }
+  w.end_object();
 }
 
 }  // namespace stepframe::json_shapes

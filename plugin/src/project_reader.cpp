@@ -3,6 +3,8 @@
 #include "stepframe/analysis/element_releases.hpp"
 #include "stepframe/analysis/section_shapes.hpp"
 
+#include "project_blocks.hpp"
+#include "project_yaml.hpp"
 #include "stepframe/errors.hpp"
 #include "stepframe/suggest.hpp"
 #include "stepframe/units.hpp"
@@ -26,94 +28,7 @@ std::string SourceLine::describe() const {
 
 namespace {
 
-/// Walks the YAML tree with the key path and line at hand, so that every
-/// error names both.
-class Reader {
- public:
-  explicit Reader(std::filesystem::path file) : file_(std::move(file)) {}
-
-  [[noreturn]] void fail(const YAML::Node& node, const std::string& key, const std::string& what) const {
-    throw InputError(where(node, key).describe() + ": " + what);
-  }
-
-  SourceLine where(const YAML::Node& node, const std::string& key) const {
-    const int line = node.IsDefined() && node.Mark().line >= 0 ? node.Mark().line + 1 : 0;
-    return {file_, line, key};
-  }
-
-  void expect_map(const YAML::Node& node, const std::string& key) const {
-    if (!node.IsMap()) fail(node, key, "expected a mapping of keys to values");
-  }
-  void expect_list(const YAML::Node& node, const std::string& key) const {
-    if (!node.IsSequence()) fail(node, key, "expected a list");
-  }
-
-  /// Every key of `node` must be one of `allowed`.
-  void check_keys(const YAML::Node& node, const std::string& path, const std::vector<std::string>& allowed) const {
-    expect_map(node, path);
-    for (const auto& item : node) {
-      const auto key = item.first.as<std::string>();
-      if (std::find(allowed.begin(), allowed.end(), key) == allowed.end()) {
-        std::string known;
-        for (const auto& a : allowed) known += (known.empty() ? "" : ", ") + a;
-        fail(item.first, join(path, key),
-             "unknown key '" + key + "'" + did_you_mean(key, allowed) + " (known here: " + known + ")");
-      }
-    }
-  }
-
-  std::string text(const YAML::Node& node, const std::string& key) const {
-    if (!node.IsScalar()) fail(node, key, "expected a single value");
-    return node.as<std::string>();
-  }
-
-  bool boolean(const YAML::Node& node, const std::string& key) const {
-    bool value = false;
-    if (!node.IsScalar() || !YAML::convert<bool>::decode(node, value))
-      fail(node, key, "expected true or false, got '" + (node.IsScalar() ? node.Scalar() : "") + "'");
-    return value;
-  }
-
-  /// A number of the given dimension, SI. Bare numbers are in the file's units.
-  double number(const YAML::Node& node, const std::string& key, Dimension dim) const {
-    if (!node.IsScalar()) fail(node, key, "expected a number, e.g. " + example(dim));
-    const auto q = parse_quantity(node.Scalar());
-    if (!q) fail(node, key, "'" + node.Scalar() + "' is not a number with a known unit, e.g. " + example(dim));
-    if (q->dimension == dimension::none) return q->value * units_.si_per_bare(dim);
-    if (!(q->dimension == dim))
-      fail(node, key,
-           "'" + node.Scalar() + "' is a " + describe(q->dimension) + " but a " + describe(dim) + " is needed, e.g. " +
-               example(dim));
-    return q->value;
-  }
-
-  Eigen::Vector3d vector3(const YAML::Node& node, const std::string& key, Dimension dim) const {
-    if (!node.IsSequence() || node.size() != 3) fail(node, key, "expected three values [x, y, z]");
-    return {number(node[0], key + "[0]", dim), number(node[1], key + "[1]", dim), number(node[2], key + "[2]", dim)};
-  }
-
-  std::string example(Dimension dim) const {
-    const char* with_unit = dim == dimension::length          ? "\"3.5 m\""
-                            : dim == dimension::force         ? "\"20 kN\""
-                            : dim == dimension::moment        ? "\"12 kN*m\""
-                            : dim == dimension::line_load     ? "\"4.5 kN/m\""
-                            : dim == dimension::stress        ? "\"210 GPa\""
-                            : dim == dimension::density       ? "\"7850 kg/m3\""
-                            : dim == dimension::area          ? "\"5380 mm2\""
-                            : dim == dimension::second_moment ? "\"8.356e7 mm4\""
-                                                              : "\"1.0\"";
-    return std::string("a bare number in ") + units_.describe_bare(dim) + " or a string with its unit such as " +
-           with_unit;
-  }
-
-  static std::string join(const std::string& path, const std::string& key) {
-    return path.empty() ? key : path + "." + key;
-  }
-  static std::string index(const std::string& path, std::size_t i) { return path + "[" + std::to_string(i) + "]"; }
-
-  UnitSystem units_;
-  const std::filesystem::path file_;
-};
+using detail::Reader;
 
 UnitSystem read_units(const Reader& r, const YAML::Node& node) {
   UnitSystem units;
@@ -403,7 +318,7 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
   Reader r(file);
   if (!root.IsMap()) throw InputError(file.string() + ": a project file is a YAML mapping with at least 'model:'");
   r.check_keys(root, "", {"model", "units", "merge_tolerance", "curve_max_turn", "join_crossings", "materials", "sections",
-                          "rules", "supports", "cases", "combinations", "checks", "analysis"});
+                          "rules", "supports", "cases", "combinations", "checks", "analysis", "outputs"});
   r.units_ = read_units(r, root["units"]);
 
   Project p;
@@ -619,6 +534,7 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
       p.buckling_modes = static_cast<std::size_t>(n);
     }
   }
+  p.outputs = detail::read_outputs(r, root["outputs"]);
   return p;
 }
 

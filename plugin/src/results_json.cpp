@@ -1,28 +1,138 @@
+// results.json (schema stepframe-results/1; README "results.json"), written
+// as a stream: one line per node, member, member result and check, so that a
+// building-sized document is never held whole and reads line by line.
+
 #include "stepframe/run.hpp"
 
 #include "json_shapes.hpp"
 
+
 namespace stepframe {
 namespace {
 
-using json_shapes::vec;
-nlohmann::json vec6(const analysis::Vector6d& v) { return {v[0], v[1], v[2], v[3], v[4], v[5]}; }
+using detail::JsonWriter;
+
+using json_shapes::source;
+
+void vec3(JsonWriter& w, const Eigen::Vector3d& v) { json_shapes::vec(w, v); }
+void vec6(JsonWriter& w, const analysis::Vector6d& v) {
+  w.numbers(std::array<double, 6>{v[0], v[1], v[2], v[3], v[4], v[5]});
+}
+
+void write_checks(JsonWriter& w, const std::vector<analysis::CheckResult>& checks) {
+  w.begin_array();
+  for (const auto& c : checks) {
+    w.newline();
+    w.begin_object();
+    if (c.member == analysis::whole_frame) w.key("member").null();
+    else w.key("member").value(c.member);
+    w.key("check").value(c.check);
+    w.key("clause").value(c.clause);
+    w.key("combination").value(c.combination);
+    w.key("station").value(c.station);
+    w.key("value").value(c.value);
+    w.key("limit").value(c.limit);
+    w.key("utilisation").value(c.utilisation);
+    w.key("pass").value(c.pass);
+    w.end_object();
+  }
+  w.end_array();
+}
+
+void write_result(JsonWriter& w, const analysis::FrameModel& model, const analysis::LoadResult& r) {
+  w.begin_object();
+  w.key("name").value(r.name);
+  w.key("kind").value(r.is_combination ? "combination" : "case");
+  // Elastic critical load factor and the lowest buckling modes' factors (null / empty when not computed).
+  if (r.alpha_cr) w.key("alpha_cr").value(*r.alpha_cr);
+  else w.key("alpha_cr").null();
+  w.key("buckling_factors").begin_array();
+  for (const auto& mode : r.buckling_modes) w.value(mode.alpha);
+  w.end_array();
+  w.key("second_order").value(r.second_order);
+  w.key("displacements").begin_array();
+  for (std::size_t n = 0; n < model.nodes.size(); ++n) {
+    const auto d = r.displacements.segment<6>(static_cast<Eigen::Index>(6 * n));
+    w.newline();
+    w.begin_object();
+    w.key("node").value(n);
+    w.key("u");
+    vec3(w, d.head<3>());
+    w.key("r");
+    vec3(w, d.tail<3>());
+    w.end_object();
+  }
+  w.end_array();
+  std::vector<bool> supported(model.nodes.size(), false);
+  for (const auto& s : model.supports) supported[s.node] = true;
+  w.key("reactions").begin_array();
+  for (std::size_t n = 0; n < model.nodes.size(); ++n) {
+    if (!supported[n]) continue;
+    const auto f = r.reactions.segment<6>(static_cast<Eigen::Index>(6 * n));
+    w.newline();
+    w.begin_object();
+    w.key("node").value(n);
+    w.key("force");
+    vec3(w, f.head<3>());
+    w.key("moment");
+    vec3(w, f.tail<3>());
+    w.end_object();
+  }
+  w.end_array();
+  w.key("members").begin_array();
+  for (std::size_t m = 0; m < r.members.size(); ++m) {
+    const auto& res = r.members[m];
+    w.newline();
+    w.begin_object();
+    w.key("member").value(m);
+    w.key("max_abs_stress").value(res.max_abs_stress);
+    w.key("max_von_mises").value(res.max_von_mises);
+    w.key("max_local_deflection").value(res.max_local_deflection);
+    w.key("end_forces").begin_object();
+    w.key("start");
+    vec6(w, res.start_forces);
+    w.key("end");
+    vec6(w, res.end_forces);
+    w.end_object();
+    w.end_object();
+  }
+  w.end_array();
+  w.end_object();
+}
 
 }  // namespace
 
-nlohmann::json results_json(const Analysis& a) {
+void write_results_json(const Analysis& a, const std::function<void(std::string_view)>& sink) {
   const auto& model = a.built.model;
-  nlohmann::json j;
-  j["schema"] = "stepframe-results/1";
-  j["caution"] = caution;
-  j["units"] = {{"length", "m"}, {"force", "N"}, {"moment", "N*m"}, {"stress", "Pa"}, {"rotation", "rad"}};
-  j["status"] = a.status() == ExitStatus::pass ? "pass" : "fail";
-  j["model"] = {{"file", a.project.model.string()}, {"length_unit", a.file_length_unit}};
+  JsonWriter w(sink);
+  w.begin_object();
+  w.key("schema").value("stepframe-results/1");
+  w.key("caution").value(caution);
+  w.key("units").begin_object();
+  for (const auto& [quantity, unit] : {std::pair{"length", "m"}, {"force", "N"}, {"moment", "N*m"}, {"stress", "Pa"},
+                                       {"rotation", "rad"}})
+    w.key(quantity).value(unit);
+  w.end_object();
+  w.key("status").value(a.status() == ExitStatus::pass ? "pass" : "fail");
+  w.key("model").begin_object();
+  w.key("file").value(a.project.model.string());
+  w.key("length_unit").value(a.file_length_unit);
+  w.end_object();
+  w.newline();
 
-  auto& nodes = j["nodes"] = nlohmann::json::array();
-  for (std::size_t i = 0; i < model.nodes.size(); ++i) nodes.push_back({{"id", i}, {"xyz", vec(model.nodes[i])}});
+  w.key("nodes").begin_array();
+  for (std::size_t i = 0; i < model.nodes.size(); ++i) {
+    w.newline();
+    w.begin_object();
+    w.key("id").value(i);
+    w.key("xyz");
+    vec3(w, model.nodes[i]);
+    w.end_object();
+  }
+  w.end_array();
+  w.newline();
 
-  auto& members = j["members"] = nlohmann::json::array();
+  w.key("members").begin_array();
   for (std::size_t i = 0; i < model.members.size(); ++i) {
     const auto& chain = model.members[i].elements;
     const auto& first = model.elements[chain.front()];
@@ -33,61 +143,63 @@ nlohmann::json results_json(const Analysis& a) {
       path.push_back(element.nodes[1]);
       length += (model.nodes[element.nodes[1]] - model.nodes[element.nodes[0]]).norm();
     }
-    members.push_back({{"id", i},
-                       {"nodes", {path.front(), path.back()}},
-                       {"path", path},
-                       {"section", model.sections[first.section].designation},
-                       {"material", model.materials[first.material].name},
-                       {"length", length},
-                       {"source", json_shapes::source(a.built.member_sources[i])}});
+    w.newline();
+    w.begin_object();
+    w.key("id").value(i);
+    w.key("nodes").begin_array();
+    w.value(path.front());
+    w.value(path.back());
+    w.end_array();
+    w.key("path").begin_array();
+    for (std::size_t n : path) w.value(n);
+    w.end_array();
+    w.key("section").value(model.sections[first.section].designation);
+    w.key("material").value(model.materials[first.material].name);
+    w.key("length").value(length);
+    w.key("source");
+    source(w, a.built.member_sources[i]);
+    w.end_object();
   }
+  w.end_array();
+  w.newline();
 
-  auto& results = j["results"] = nlohmann::json::array();
+  w.key("results").begin_array();
   for (const auto& r : a.results) {
-    nlohmann::json jr{{"name", r.name}, {"kind", r.is_combination ? "combination" : "case"}};
-    // Elastic critical load factor and the lowest buckling modes' factors (null / empty when not computed).
-    jr["alpha_cr"] = r.alpha_cr ? nlohmann::json(*r.alpha_cr) : nlohmann::json(nullptr);
-    jr["buckling_factors"] = nlohmann::json::array();
-    for (const auto& mode : r.buckling_modes) jr["buckling_factors"].push_back(mode.alpha);
-    jr["second_order"] = r.second_order;
-    auto& disp = jr["displacements"] = nlohmann::json::array();
-    auto& reactions = jr["reactions"] = nlohmann::json::array();
-    std::vector<bool> supported(model.nodes.size(), false);
-    for (const auto& s : model.supports) supported[s.node] = true;
-    for (std::size_t n = 0; n < model.nodes.size(); ++n) {
-      const auto d = r.displacements.segment<6>(static_cast<Eigen::Index>(6 * n));
-      disp.push_back({{"node", n}, {"u", vec(d.head<3>())}, {"r", vec(d.tail<3>())}});
-      if (!supported[n]) continue;
-      const auto f = r.reactions.segment<6>(static_cast<Eigen::Index>(6 * n));
-      reactions.push_back({{"node", n}, {"force", vec(f.head<3>())}, {"moment", vec(f.tail<3>())}});
-    }
-    auto& mr = jr["members"] = nlohmann::json::array();
-    for (std::size_t m = 0; m < r.members.size(); ++m) {
-      const auto& res = r.members[m];
-      mr.push_back({{"member", m},
-                    {"max_abs_stress", res.max_abs_stress},
-                    {"max_von_mises", res.max_von_mises},
-                    {"max_local_deflection", res.max_local_deflection},
-                    {"end_forces", {{"start", vec6(res.start_forces)}, {"end", vec6(res.end_forces)}}}});
-    }
-    results.push_back(std::move(jr));
+    w.newline();
+    write_result(w, model, r);
   }
+  w.end_array();
+  w.newline();
 
-  auto& checks = j["checks"] = nlohmann::json::array();
-  for (const auto& c : a.checks)
-    checks.push_back({{"member", c.member == analysis::whole_frame ? nlohmann::json(nullptr) : nlohmann::json(c.member)},
-                      {"check", c.check},
-                      {"clause", c.clause},
-                      {"combination", c.combination},
-                      {"station", c.station},
-                      {"value", c.value},
-                      {"limit", c.limit},
-                      {"utilisation", c.utilisation},
-                      {"pass", c.pass}});
+  w.key("checks");
+  write_checks(w, a.checks);
+  w.newline();
 
-  auto& diagnostics = j["diagnostics"] = nlohmann::json::array();
-  for (const auto& d : a.wireframe.diagnostics) diagnostics.push_back(json_shapes::diagnostic(d));
-  return j;
+  w.key("diagnostics").begin_array();
+  for (const auto& d : a.wireframe.diagnostics) {
+    w.newline();
+    json_shapes::diagnostic(w, d);
+  }
+  w.end_array();
+  w.end_object();
+  w.newline();
+}
+
+std::string results_json_text(const Analysis& analysis) {
+  std::string text;
+  write_results_json(analysis, [&](std::string_view piece) { text.append(piece); });
+  return text;
+}
+
+nlohmann::json results_json(const Analysis& analysis) { return nlohmann::json::parse(results_json_text(analysis)); }
+
+nlohmann::json checks_json(const std::vector<analysis::CheckResult>& checks) {
+  std::string text;
+  {
+    JsonWriter w([&](std::string_view piece) { text.append(piece); });
+    write_checks(w, checks);
+  }
+  return nlohmann::json::parse(text);
 }
 
 }  // namespace stepframe

@@ -14,9 +14,7 @@ RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::file
   try {
     outcome.analysis = analyse();
     if (!out_dir.empty()) {
-      control.report("output", 0);
-      outcome.files = write_outputs(*outcome.analysis, out_dir);
-      if (control.progress) control.progress("output", 1);
+      outcome.files = write_outputs(*outcome.analysis, out_dir, control);
     }
     outcome.status = outcome.analysis->status();
   } catch (const Cancelled& e) {

@@ -11,6 +11,7 @@
 #include <algorithm>
 #include <cctype>
 #include <fstream>
+#include <optional>
 #include <set>
 
 namespace stepframe {
@@ -37,12 +38,46 @@ std::filesystem::path default_out_dir(const std::filesystem::path& project_file)
   return project_file.parent_path() / (project_file.stem().string() + "-results");
 }
 
-std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir) {
+std::vector<std::size_t> governing_results(const Analysis& analysis) {
+  // Combinations when there are any (cases otherwise), as the checks see them.
+  std::vector<std::size_t> pool;
+  for (std::size_t i = 0; i < analysis.results.size(); ++i)
+    if (analysis.results[i].is_combination) pool.push_back(i);
+  if (pool.empty())
+    for (std::size_t i = 0; i < analysis.results.size(); ++i) pool.push_back(i);
+  auto index_of = [&](const std::string& name) -> std::optional<std::size_t> {
+    for (std::size_t i : pool)
+      if (analysis.results[i].name == name) return i;
+    return std::nullopt;
+  };
+  std::vector<std::size_t> chosen;
+  auto choose = [&](std::optional<std::size_t> i) {
+    if (i && std::find(chosen.begin(), chosen.end(), *i) == chosen.end()) chosen.push_back(*i);
+  };
+  // The largest member utilisation, then the lowest alpha_cr.
+  const analysis::CheckResult* worst = nullptr;
+  for (const auto& c : analysis.checks)
+    if (c.member != analysis::whole_frame && (!worst || c.utilisation > worst->utilisation)) worst = &c;
+  if (worst) choose(index_of(worst->combination));
+  std::optional<std::size_t> lowest;
+  for (std::size_t i : pool)
+    if (analysis.results[i].alpha_cr &&
+        (!lowest || *analysis.results[i].alpha_cr < *analysis.results[*lowest].alpha_cr))
+      lowest = i;
+  choose(lowest);
+  if (chosen.empty() && !pool.empty()) choose(pool.front());
+  std::sort(chosen.begin(), chosen.end());
+  return chosen;
+}
+
+std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir,
+                                                 const RunControl& control) {
   std::error_code ec;
   std::filesystem::create_directories(out_dir / "vtk", ec);
   if (ec) throw InputError(out_dir.string() + ": cannot create the output folder (" + ec.message() + ")");
 
   const auto& model = analysis.built.model;
+  const OutputsSpec& outputs = analysis.project.outputs;
   std::vector<std::filesystem::path> finals;
   // Each file is registered before it is written, so a failure removes every temporary file.
   auto start = [&](const std::filesystem::path& file) {
@@ -58,31 +93,53 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
   std::vector<double> utilisation(model.members.size(), 0.0);
   for (const auto& c : analysis.checks)
     if (c.member != analysis::whole_frame) utilisation[c.member] = std::max(utilisation[c.member], c.utilisation);
+  const std::vector<std::size_t> governing = governing_results(analysis);
+  auto wanted = [&](VtkSelection selection, std::size_t result) {
+    return selection == VtkSelection::all ||
+           (selection == VtkSelection::governing &&
+            std::find(governing.begin(), governing.end(), result) != governing.end());
+  };
   try {
     std::set<std::string> used;
     std::vector<viz::IndexEntry> index;
-    for (const auto& result : analysis.results) {
+    for (std::size_t i = 0; i < analysis.results.size(); ++i) {
+      control.report("vtk", static_cast<double>(i) / static_cast<double>(analysis.results.size()));
+      const auto& result = analysis.results[i];
       const std::string stem = file_stem(result.name, used);
       const std::filesystem::path line = std::filesystem::path("vtk") / (stem + ".vtu");
       const std::filesystem::path surface = std::filesystem::path("vtk") / (stem + ".surface.vtu");
-      viz::write_line_model_vtu(start(out_dir / line), model, result, utilisation);
-      viz::write_surface_vtu(start(out_dir / surface), model, result);
-      index.push_back({"line model", result.name, line});
-      index.push_back({"surface model", result.name, surface});
+      if (wanted(outputs.line_models, i)) {
+        viz::write_line_model_vtu(start(out_dir / line), model, result, utilisation, outputs.compression);
+        index.push_back({"line model", result.name, line});
+      }
+      if (wanted(outputs.surfaces, i)) {
+        viz::SurfaceOptions surface_options;
+        surface_options.compression = outputs.compression;
+        viz::write_surface_vtu(start(out_dir / surface), model, result, surface_options);
+        index.push_back({"surface model", result.name, surface});
+      }
+      if (!wanted(outputs.buckling_modes, i)) continue;
       for (std::size_t m = 0; m < result.buckling_modes.size(); ++m) {
         const std::filesystem::path mode = std::filesystem::path("vtk") / fmt::format("{}.mode{}.vtu", stem, m + 1);
-        viz::write_mode_vtu(start(out_dir / mode), model, result, m);
+        viz::write_mode_vtu(start(out_dir / mode), model, result, m, outputs.compression);
         index.push_back({"buckling modes", fmt::format("{} mode {} (alpha = {:.3g})", result.name, m + 1,
                                                        result.buckling_modes[m].alpha),
                          mode});
       }
     }
-    text_file("frame.vtm", viz::multiblock_index(index));
+    if (!index.empty()) text_file("frame.vtm", viz::multiblock_index(index));
+    control.report("tables", 0);
     text_file("checks.csv", checks_csv(analysis));
     text_file("takeoff.csv", takeoff_csv(analysis));
     text_file("end_forces.csv", end_forces_csv(analysis));
+    control.report("report", 0);
     text_file("report.html", report_html(analysis));
-    text_file("results.json", results_json(analysis).dump(1) + "\n");
+    control.report("results.json", 0);
+    {
+      std::ofstream out(start(out_dir / "results.json"), std::ios::binary);
+      write_results_json(analysis, [&](std::string_view piece) { out.write(piece.data(), static_cast<std::streamsize>(piece.size())); });
+      if (!out.flush()) throw std::runtime_error((out_dir / "results.json").string() + ": could not write");
+    }
   } catch (...) {
     for (const auto& f : finals) std::filesystem::remove(temporary_name(f), ec);
     throw;
@@ -90,6 +147,7 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
   // Everything is complete: only now do the files take their real names.
   for (const auto& f : finals) std::filesystem::rename(temporary_name(f), f);
   spdlog::info("wrote {} files to {}", finals.size(), out_dir.string());
+  if (control.progress) control.progress("results.json", 1.0);  // the run is complete: no cancelling now
   return finals;
 }
 

@@ -7,6 +7,8 @@
 #include "stepframe/analysis/element_recovery.hpp"
 #include "stepframe/analysis/solve.hpp"
 
+#include "recovered_lines.hpp"
+
 #include <catch2/catch.hpp>
 
 using namespace stepframe::analysis;
@@ -33,11 +35,11 @@ TEST_CASE("combination equals the factored sum of its cases", "[analysis][combin
   const double fd = 1.0, fu = 1.5;
   model.combinations = {Combination{"dead + 1.5 uplift", {{0, fd}, {1, fu}}}};
 
-  const std::vector<LoadResult> results = solve(model);
+  const auto results = stepframe::testing::recovered(model, solve(model));
   REQUIRE(results.size() == 3);
-  const LoadResult& d = results[0];
-  const LoadResult& u = results[1];
-  const LoadResult& c = results[2];
+  const auto& d = results[0];
+  const auto& u = results[1];
+  const auto& c = results[2];
   CHECK_FALSE(d.is_combination);
   CHECK(c.is_combination);
   CHECK(c.name == "dead + 1.5 uplift");

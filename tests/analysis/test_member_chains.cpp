@@ -7,6 +7,8 @@
 #include "stepframe/analysis/checks.hpp"
 #include "stepframe/analysis/solve.hpp"
 
+#include "recovered_lines.hpp"
+
 #include <catch2/catch.hpp>
 
 #include <stdexcept>
@@ -41,7 +43,7 @@ TEST_CASE("a member of three elements reports as one member") {
   const FrameModel model = three_element_beam(w);
   SolveOptions options;
   options.stations = 7;  // per element: the middle element's station 3 is at midspan
-  const LoadResult r = solve(model, options).at(0);
+  const auto r = stepframe::testing::recovered(model, solve(model, options)).at(0);
   REQUIRE(r.elements.size() == 3);
   REQUIRE(r.members.size() == 1);
   const LineResult& member = r.members[0];

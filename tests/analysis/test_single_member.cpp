@@ -10,6 +10,8 @@
 #include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/analysis/solve.hpp"
 
+#include "recovered_lines.hpp"
+
 #include <catch2/catch.hpp>
 
 #include <algorithm>
@@ -64,9 +66,9 @@ TEST_CASE("cantilever with end load along local z", "[analysis][cantilever]") {
   for (const auto& [a, b, roll] : placements) {
     INFO("member from " << a.transpose() << " to " << b.transpose() << ", roll " << roll);
     const Cantilever c = cantilever(a, b, roll, V(0, 0, -P), V::Zero());
-    const auto results = solve(c.model);
+    const auto results = stepframe::testing::recovered(c.model, solve(c.model));
     REQUIRE(results.size() == 1);
-    const LoadResult& r = results[0];
+    const auto& r = results[0];
     const double L = c.length;
     const auto [u, theta] = tip_local(c, r);
 
@@ -106,7 +108,7 @@ TEST_CASE("cantilever with end load along local y", "[analysis][cantilever]") {
   for (const auto& [a, b, roll] : placements) {
     INFO("member from " << a.transpose() << " to " << b.transpose() << ", roll " << roll);
     const Cantilever c = cantilever(a, b, roll, V(0, P, 0), V::Zero());
-    const LoadResult r = solve(c.model).at(0);
+    const auto r = stepframe::testing::recovered(c.model, solve(c.model)).at(0);
     const double L = c.length;
     const auto [u, theta] = tip_local(c, r);
     CHECK(u.y() == Approx(P * L * L * L / (3 * m.E * s.Iz)).epsilon(tol));
@@ -135,7 +137,7 @@ TEST_CASE("cantilever with end torque twists by T L / (G J)", "[analysis][cantil
   const Section s = test::test_section();
   const Material m = test::test_steel();
   const Cantilever c = cantilever(V(0, 0, 0), V(1, 2, 2), 0.3, V::Zero(), V(T, 0, 0));
-  const LoadResult r = solve(c.model).at(0);
+  const auto r = stepframe::testing::recovered(c.model, solve(c.model)).at(0);
   const auto [u, theta] = tip_local(c, r);
   CHECK(theta.x() == Approx(T * c.length / (m.G * s.J)).epsilon(tol));
   CHECK(theta.y() == Approx(0).margin(1e-12));
@@ -148,7 +150,7 @@ TEST_CASE("axial bar extends by P L / (E A) and carries tension N = P", "[analys
   const Section s = test::test_section();
   const Material m = test::test_steel();
   const Cantilever c = cantilever(V(0, 0, 0), V(0, 0, 3.5), 0, V(P, 0, 0), V::Zero());  // vertical bar pulled up
-  const LoadResult r = solve(c.model).at(0);
+  const auto r = stepframe::testing::recovered(c.model, solve(c.model)).at(0);
   CHECK(r.displacements(6 + 2) == Approx(P * c.length / (m.E * s.A)).epsilon(tol));
   for (const Station& st : r.elements[0].stations) {
     CHECK(st.forces(0) == Approx(P).epsilon(tol));

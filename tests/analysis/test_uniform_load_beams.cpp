@@ -7,6 +7,8 @@
 #include "frame_fixtures.hpp"
 #include "stepframe/analysis/solve.hpp"
 
+#include "recovered_lines.hpp"
+
 #include <catch2/catch.hpp>
 
 using namespace stepframe::analysis;
@@ -40,7 +42,7 @@ TEST_CASE("simply supported beam under uniform load, one member", "[analysis][ud
 
   SolveOptions options;
   options.stations = 21;  // station 10 sits at midspan
-  const LoadResult r = solve(model, options).at(0);
+  const auto r = stepframe::testing::recovered(model, solve(model, options)).at(0);
   const LineResult& mr = r.elements.at(0);
   REQUIRE(mr.stations.size() == 21);
   const Station& mid = station_at(mr, L / 2);
@@ -82,7 +84,7 @@ TEST_CASE("fixed-ended beam under uniform load", "[analysis][udl]") {
     lc.name = "uniform";
     lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}, ElementUniformLoad{1, V(0, 0, -w)}};
     model.cases = {lc};
-    const LoadResult r = solve(model).at(0);
+    const auto r = stepframe::testing::recovered(model, solve(model)).at(0);
 
     // Midspan node deflection and moment.
     CHECK(r.displacements(6 + 2) == Approx(-w * L * L * L * L / (384 * m.E * s.Iy)).epsilon(tol));
@@ -113,7 +115,7 @@ TEST_CASE("fixed-ended beam under uniform load", "[analysis][udl]") {
     model.cases = {lc};
     SolveOptions options;
     options.stations = 11;
-    const LineResult mr = solve(model, options).at(0).elements.at(0);
+    const LineResult mr = stepframe::testing::recovered(model, solve(model, options)).at(0).elements.at(0);
     const Station& mid = station_at(mr, L / 2);
     CHECK(mid.displacement.z() == Approx(-w * L * L * L * L / (384 * m.E * s.Iy)).epsilon(tol));
     CHECK(mid.forces(4) == Approx(-w * L * L / 24).epsilon(tol));
@@ -134,7 +136,7 @@ TEST_CASE("uniform load along local y bends the beam about z", "[analysis][udl]"
   lc.name = "lateral";
   lc.element_loads = {ElementUniformLoad{0, V(0, w, 0)}};  // global +Y = local +y
   model.cases = {lc};
-  const LineResult mr = solve(model).at(0).elements.at(0);
+  const LineResult mr = stepframe::testing::recovered(model, solve(model)).at(0).elements.at(0);
   const Station& mid = station_at(mr, L / 2);
   CHECK(mid.displacement.y() == Approx(5 * w * L * L * L * L / (384 * m.E * s.Iz)).epsilon(tol));
   CHECK(std::abs(mid.forces(5)) == Approx(w * L * L / 8).epsilon(tol));

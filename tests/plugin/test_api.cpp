@@ -203,18 +203,19 @@ TEST_CASE("progress reports every stage in order, and cancelling stops the run b
     CHECK(f <= 1.0);
     if (stages.empty() || stages.back() != stage) stages.push_back(stage);
   }
-  CHECK(stages == std::vector<std::string>{"project", "geometry", "model", "solve", "checks", "output"});
-  CHECK(seen.back() == std::pair<std::string, double>{"output", 1.0});
+  CHECK(stages == std::vector<std::string>{"project", "geometry", "model", "assembly", "factorisation", "recovery",
+                                           "buckling", "checks", "vtk", "tables", "report", "results.json"});
+  CHECK(seen.back() == std::pair<std::string, double>{"results.json", 1.0});
 
   SECTION("a cancel callback stops the run inside the solver") {
     options.out_dir = dir / "cancelled";
-    options.control.cancel = [&] { return !seen.empty() && seen.back().first == "solve"; };
+    options.control.cancel = [&] { return !seen.empty() && seen.back().first == "factorisation"; };
     seen.clear();
     const auto results = run_file(dir / "beam.yaml", options);
     CHECK(results.status() == ExitStatus::cancelled);
     CHECK_THAT(results.message(), Contains("cancelled"));
     CHECK(results.json()["status"] == "cancelled");
-    CHECK(seen.back().first == "solve");
+    CHECK(seen.back().first == "factorisation");
     CHECK_FALSE(std::filesystem::exists(dir / "cancelled" / "results.json"));
   }
   SECTION("a flag set beforehand stops the run at its first stage") {

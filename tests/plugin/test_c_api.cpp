@@ -155,7 +155,8 @@ TEST_CASE("C ABI: a run handle gives results as JSON, progress, log and cancella
   const std::string yaml = beam_yaml();
   REQUIRE(run_text(run, yaml.c_str(), dir.path().c_str()) == SF_PASS);
   CHECK(std::string(message(run)).empty());
-  CHECK(progress.stages == std::vector<std::string>{"project", "geometry", "model", "solve", "checks"});
+  CHECK(progress.stages == std::vector<std::string>{"project", "geometry", "model", "assembly", "factorisation",
+                                                    "recovery", "buckling", "checks"});
   bool logged_model = false;
   for (const auto& [level, text] : log) logged_model |= level == SF_LOG_INFO && text.find("1 members") != std::string::npos;
   CHECK(logged_model);
@@ -176,7 +177,7 @@ TEST_CASE("C ABI: a run handle gives results as JSON, progress, log and cancella
   CHECK(std::string(buffer.data()) == results_json(run));
 
   SECTION("the progress callback cancels") {
-    progress = {{}, "solve"};  // this run only: the next one goes through
+    progress = {{}, "factorisation"};  // this run only: the next one goes through
     set_out(run, (dir / "out").c_str());
     CHECK(run_text(run, yaml.c_str(), dir.path().c_str()) == SF_CANCELLED);
     CHECK_THAT(message(run), Contains("cancelled"));

@@ -127,6 +127,6 @@ cases: [{name: G, self_weight: true}]
     CHECK(quiet.err.find("info:") == std::string::npos);
     const auto verbose = test::run_stepframe("run " + quoted(dir / "portal.yaml") + " --out " + out + " -v", dir);
     CHECK(verbose.status == 0);
-    CHECK_THAT(verbose.err, Contains("debug: solve ..."));
+    CHECK_THAT(verbose.err, Contains("debug: factorisation ..."));
   }
 }

@@ -113,8 +113,8 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
       auto* stress = grid->GetCellData()->GetArray("stress");
       REQUIRE(stress);
       CHECK(std::string(grid->GetCellData()->GetScalars()->GetName()) == "stress");
-      for (int m = 0; m < 3; ++m)
-        CHECK(stress->GetTuple1(m) == Approx(result["members"][m]["max_von_mises"].get<double>()).epsilon(1e-12));
+      for (int m = 0; m < 3; ++m)  // VTK files hold 32-bit floats: about seven significant digits
+        CHECK(stress->GetTuple1(m) == Approx(result["members"][m]["max_von_mises"].get<double>()).epsilon(1e-7));
       REQUIRE(grid->GetPointData()->GetArray("displacement"));
       REQUIRE(grid->GetPointData()->GetArray("N"));
       REQUIRE(grid->GetCellData()->GetArray("utilisation"));

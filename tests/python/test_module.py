@@ -75,13 +75,14 @@ class RunTest(unittest.TestCase):
                 self.assertTrue(0.0 <= fraction <= 1.0)
                 if not stages or stages[-1] != stage:
                     stages.append(stage)
-            self.assertEqual(stages, ["project", "geometry", "model", "solve", "checks", "output"])
+            self.assertEqual(stages, ["project", "geometry", "model", "assembly", "factorisation", "recovery",
+                                      "buckling", "checks", "vtk", "tables", "report", "results.json"])
             self.assertIn("PASS", run["summary"])
 
     def test_progress_returning_false_cancels(self):
         with tempfile.TemporaryDirectory() as tmp:
             run = stepframe.run(beam_project(), out_dir=tmp + "/out",
-                                progress=lambda stage, f: stage != "solve")
+                                progress=lambda stage, f: stage != "factorisation")
             self.assertEqual(run["exit_status"], stepframe.CANCELLED)
             self.assertIn("cancelled", run["message"])
             self.assertFalse(os.path.exists(tmp + "/out/results.json"))

@@ -16,7 +16,7 @@ namespace {
 
 constexpr double exact = 1e-9;
 
-LoadResult continuous(const std::vector<double>& xs, double w) {
+stepframe::testing::Recovered continuous(const std::vector<double>& xs, double w) {
   FrameModel m = beam_along_x(xs);
   m.supports.push_back(support(0, pin));
   for (std::size_t i = 1; i < xs.size(); ++i) m.supports.push_back(support(i, roller));
@@ -32,7 +32,7 @@ LoadResult continuous(const std::vector<double>& xs, double w) {
 TEST_CASE("two equal spans, uniform load: three-moment equation", "[verification][three-moment]") {
   // M_B = w L^2 / 8; middle reaction 5 w L / 4, end reactions 3 w L / 8.
   const double L = 5.0, w = 10e3;
-  const LoadResult r = continuous({0, L, 2 * L}, w);
+  const auto r = continuous({0, L, 2 * L}, w);
   CHECK(r.elements[0].end_forces(4) == Approx(w * L * L / 8).epsilon(exact));
   CHECK(reaction(r, 1, uz) == Approx(5 * w * L / 4).epsilon(exact));
   CHECK(reaction(r, 0, uz) == Approx(3 * w * L / 8).epsilon(exact));
@@ -44,7 +44,7 @@ TEST_CASE("two equal spans, uniform load: three-moment equation", "[verification
 TEST_CASE("three equal spans, uniform load: three-moment equation", "[verification][three-moment]") {
   // M_B = M_C = w L^2 / 10; reactions 0.4 w L at the ends, 1.1 w L inside.
   const double L = 4.0, w = 7e3;
-  const LoadResult r = continuous({0, L, 2 * L, 3 * L}, w);
+  const auto r = continuous({0, L, 2 * L, 3 * L}, w);
   CHECK(r.elements[0].end_forces(4) == Approx(w * L * L / 10).epsilon(exact));
   CHECK(r.elements[2].start_forces(4) == Approx(w * L * L / 10).epsilon(exact));
   CHECK(reaction(r, 0, uz) == Approx(0.4 * w * L).epsilon(exact));
@@ -56,7 +56,7 @@ TEST_CASE("three equal spans, uniform load: three-moment equation", "[verificati
 TEST_CASE("two unequal spans, uniform load: three-moment equation", "[verification][three-moment]") {
   // With M_A = M_C = 0: M_B = w (L1^3 + L2^3) / (8 (L1 + L2)).
   const double L1 = 4.0, L2 = 6.5, w = 12e3;
-  const LoadResult r = continuous({0, L1, L1 + L2}, w);
+  const auto r = continuous({0, L1, L1 + L2}, w);
   const double mb = w * (L1 * L1 * L1 + L2 * L2 * L2) / (8 * (L1 + L2));
   CHECK(r.elements[0].end_forces(4) == Approx(mb).epsilon(exact));
   CHECK(r.elements[1].start_forces(4) == Approx(mb).epsilon(exact));

@@ -30,7 +30,7 @@ TEST_CASE("simply supported beam, point load at a: Roark Table 8.1 case 1e", "[v
   lc.name = "P";
   lc.partial_loads = {point(0, a, V(0, 0, -P))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(reaction(r, 0, uz) == Approx(P * b / L).epsilon(exact));
   CHECK(reaction(r, 1, uz) == Approx(P * a / L).epsilon(exact));
@@ -52,7 +52,7 @@ TEST_CASE("simply supported beam, uniform load: Roark Table 8.1 case 2e (w_a = w
   lc.name = "w";
   lc.partial_loads = {distributed(0, 0, L, V(0, 0, -w), V(0, 0, -w))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(station_at(r.elements[0], L / 2).displacement.z() == Approx(-5 * w * L * L * L * L / (384 * E * I)).epsilon(exact));
   CHECK(r.elements[0].extremes[4].min == Approx(-w * L * L / 8).epsilon(exact));
@@ -70,7 +70,7 @@ TEST_CASE("simply supported beam, partial uniform load: statics of Roark Table 8
   lc.name = "part";
   lc.partial_loads = {distributed(0, a, b, V(0, 0, -w), V(0, 0, -w))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double R1 = w * c * (L - a - c / 2) / L;
   const double x0 = a + R1 / w;
   CHECK(reaction(r, 0, uz) == Approx(R1).epsilon(exact));
@@ -89,7 +89,7 @@ TEST_CASE("simply supported beam, triangular load: Roark Table 8.1 case 2e (w_a 
   lc.name = "tri";
   lc.partial_loads = {distributed(0, 0, L, V(0, 0, 0), V(0, 0, -w))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   CHECK(reaction(r, 0, uz) == Approx(w * L / 6).epsilon(exact));
   CHECK(reaction(r, 1, uz) == Approx(w * L / 3).epsilon(exact));
   CHECK(r.elements[0].extremes[4].min == Approx(-w * L * L / (9 * std::sqrt(3.0))).epsilon(exact));
@@ -104,7 +104,7 @@ TEST_CASE("cantilever, uniform load: Roark Table 8.1 case 2a (w_a = w_l)", "[ver
   lc.name = "w";
   lc.partial_loads = {distributed(0, 0, L, V(0, 0, -w), V(0, 0, -w))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(disp_z(r, 1) == Approx(-w * std::pow(L, 4) / (8 * E * I)).epsilon(exact));
   CHECK(r.elements[0].start_forces(4) == Approx(w * L * L / 2).epsilon(exact));  // hogging at the root
@@ -126,7 +126,7 @@ TEST_CASE("cantilever, point load at a from the root: Roark Table 8.1 case 1a", 
   lc.name = "P";
   lc.partial_loads = {point(0, a, V(0, 0, -P))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   // Tip: P a^2 (3L - a) / (6 E I); under the load: P a^3 / (3 E I); beyond it the beam is straight.
   CHECK(disp_z(r, 1) == Approx(-P * a * a * (3 * L - a) / (6 * E * I)).epsilon(exact));
@@ -144,7 +144,7 @@ TEST_CASE("cantilever, load falling from w at the root to 0 at the tip: Roark Ta
   lc.name = "tri";
   lc.partial_loads = {distributed(0, 0, L, V(0, 0, -w), V(0, 0, 0))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(disp_z(r, 1) == Approx(-w * std::pow(L, 4) / (30 * E * I)).epsilon(exact));
   CHECK(r.elements[0].start_forces(4) == Approx(w * L * L / 6).epsilon(exact));
@@ -162,7 +162,7 @@ TEST_CASE("propped cantilever, uniform load: Roark Table 8.1 case 2c", "[verific
   lc.name = "w";
   lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(reaction(r, 1, uz) == Approx(3 * w * L / 8).epsilon(exact));
   CHECK(r.elements[0].start_forces(4) == Approx(w * L * L / 8).epsilon(exact));
@@ -181,7 +181,7 @@ TEST_CASE("fixed-ended beam, uniform load: Roark Table 8.1 case 2d", "[verificat
   lc.name = "w";
   lc.partial_loads = {distributed(0, 0, L, V(0, 0, -w), V(0, 0, -w))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(r.elements[0].start_forces(4) == Approx(w * L * L / 12).epsilon(exact));
   CHECK(r.elements[0].end_forces(4) == Approx(w * L * L / 12).epsilon(exact));
@@ -198,7 +198,7 @@ TEST_CASE("fixed-ended beam, point load at a: Roark Table 8.1 case 1d", "[verifi
   lc.name = "P";
   lc.partial_loads = {point(0, a, V(0, 0, -P))};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(r.elements[0].start_forces(4) == Approx(P * a * b * b / (L * L)).epsilon(exact));
   CHECK(r.elements[0].end_forces(4) == Approx(P * a * a * b / (L * L)).epsilon(exact));
@@ -216,7 +216,7 @@ TEST_CASE("beam with an overhang, point load at its tip: Roark Table 8.1 (overha
   lc.name = "P";
   lc.node_loads = {NodeLoad{2, V(0, 0, -P), V::Zero()}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(disp_z(r, 2) == Approx(-P * c * c * (L + c) / (3 * E * I)).epsilon(exact));
   CHECK(reaction(r, 0, uz) == Approx(-P * c / L).epsilon(exact));
@@ -239,7 +239,7 @@ TEST_CASE("deep cantilever with shear deformation: Timoshenko, Strength of Mater
   lc.name = "P";
   lc.node_loads = {NodeLoad{1, V(0, 0, -P), V::Zero()}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double bending = P * L * L * L / (3 * E * s.Iy), shear = P * L / (G * s.Avz);
   REQUIRE(shear > 0.3 * bending);  // a beam where shear deformation matters
   CHECK(disp_z(r, 1) == Approx(-(bending + shear)).epsilon(exact));
@@ -263,7 +263,7 @@ TEST_CASE("deep simply supported beam, uniform load, shear deformation: Timoshen
   lc.name = "w";
   lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double expected = 5 * w * std::pow(L, 4) / (384 * E * s.Iy) + w * L * L / (8 * G * s.Avz);
   CHECK(station_at(r.elements[0], L / 2).displacement.z() == Approx(-expected).epsilon(exact));
 }

@@ -37,7 +37,7 @@ FrameModel portal(bool fixed_bases) {
   return m;
 }
 
-LoadResult beam_udl(bool fixed_bases, double w) {
+stepframe::testing::Recovered beam_udl(bool fixed_bases, double w) {
   FrameModel m = portal(fixed_bases);
   LoadCase lc;
   lc.name = "w";
@@ -46,7 +46,7 @@ LoadResult beam_udl(bool fixed_bases, double w) {
   return solve_one(m);
 }
 
-LoadResult side_load(bool fixed_bases, double F) {
+stepframe::testing::Recovered side_load(bool fixed_bases, double F) {
   FrameModel m = portal(fixed_bases);
   LoadCase lc;
   lc.name = "F";
@@ -60,7 +60,7 @@ LoadResult side_load(bool fixed_bases, double F) {
 TEST_CASE("pinned-base portal, uniform load on the beam: Kleinlogel-type formula", "[verification][portal]") {
   // Thrust H = w L^2 / (4 h (2k + 3)); corner moment H h.
   const double w = 20e3;
-  const LoadResult r = beam_udl(false, w);
+  const auto r = beam_udl(false, w);
   const double H = w * L * L / (4 * h * (2 * k + 3));
   CHECK(reaction(r, 0, ux) == Approx(H).epsilon(tol));   // pushes the foot inwards (+X)
   CHECK(reaction(r, 3, ux) == Approx(-H).epsilon(tol));
@@ -71,7 +71,7 @@ TEST_CASE("pinned-base portal, uniform load on the beam: Kleinlogel-type formula
 TEST_CASE("fixed-base portal, uniform load on the beam: Kleinlogel-type formula", "[verification][portal]") {
   // Corner moment w L^2 / (6 (k + 2)); base moment half of it (carry-over).
   const double w = 20e3;
-  const LoadResult r = beam_udl(true, w);
+  const auto r = beam_udl(true, w);
   const double mb = w * L * L / (6 * (k + 2));
   CHECK(r.elements[1].start_forces(4) == Approx(mb).epsilon(tol));
   CHECK(r.elements[1].end_forces(4) == Approx(mb).epsilon(tol));
@@ -81,7 +81,7 @@ TEST_CASE("fixed-base portal, uniform load on the beam: Kleinlogel-type formula"
 TEST_CASE("pinned-base portal, horizontal load at beam level: statics", "[verification][portal]") {
   // Antisymmetric: each foot takes F/2; corner moments F h / 2 (common practice).
   const double F = 30e3;
-  const LoadResult r = side_load(false, F);
+  const auto r = side_load(false, F);
   CHECK(reaction(r, 0, ux) == Approx(-F / 2).epsilon(tol));
   CHECK(reaction(r, 3, ux) == Approx(-F / 2).epsilon(tol));
   CHECK(std::abs(r.elements[0].end_forces(4)) == Approx(F * h / 2).epsilon(tol));
@@ -91,7 +91,7 @@ TEST_CASE("pinned-base portal, horizontal load at beam level: statics", "[verifi
 TEST_CASE("fixed-base portal, horizontal load at beam level: Kleinlogel-type formula", "[verification][portal]") {
   // Base moments F h (3k + 1) / (2 (6k + 1)), corner moments F h 3k / (2 (6k + 1)).
   const double F = 30e3;
-  const LoadResult r = side_load(true, F);
+  const auto r = side_load(true, F);
   CHECK(std::abs(reaction(r, 0, ry)) == Approx(F * h * (3 * k + 1) / (2 * (6 * k + 1))).epsilon(tol));
   CHECK(std::abs(reaction(r, 3, ry)) == Approx(F * h * (3 * k + 1) / (2 * (6 * k + 1))).epsilon(tol));
   CHECK(std::abs(r.elements[1].start_forces(4)) == Approx(F * h * 3 * k / (2 * (6 * k + 1))).epsilon(tol));

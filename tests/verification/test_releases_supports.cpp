@@ -33,7 +33,7 @@ TEST_CASE("a member released in bending at both ends between fixed supports is s
   lc.name = "w";
   lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   const LineResult& line = r.elements[0];
   CHECK(line.start_forces(4) == Approx(0).margin(1e-6 * w * L * L));
@@ -55,7 +55,7 @@ TEST_CASE("pin-ended member between pinned supports: the node rotations are tied
   lc.name = "w";
   lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(station_at(r.elements[0], L / 2).displacement.z() == Approx(-5 * w * std::pow(L, 4) / (384 * E * I)).epsilon(exact));
   CHECK(r.elements[0].extremes[4].min == Approx(-w * L * L / 8).epsilon(exact));
@@ -70,7 +70,7 @@ TEST_CASE("a hinge over the middle support turns a two-span beam into two simple
   lc.name = "w";
   lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}, ElementUniformLoad{1, V(0, 0, -w)}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(r.elements[0].end_forces(4) == Approx(0).margin(1e-6 * w * L * L));
   CHECK(r.elements[1].start_forces(4) == Approx(0).margin(1e-6 * w * L * L));
@@ -100,7 +100,7 @@ TEST_CASE("beam on two springs, central point load", "[verification][springs]") 
   lc.name = "P";
   lc.node_loads = {NodeLoad{1, V(0, 0, -P), V::Zero()}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double I = beam_section().Iy;
   CHECK(disp_z(r, 1) == Approx(-(P * L * L * L / (48 * E * I) + P / (2 * k))).epsilon(exact));
   CHECK(disp_z(r, 0) == Approx(-P / (2 * k)).epsilon(exact));
@@ -116,7 +116,7 @@ TEST_CASE("settlement of one end of a fixed-ended beam: 6 E I delta / L^2", "[ve
   lc.name = "settle";
   lc.settlements = {Settlement{1, uz, -delta}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double EI = E * beam_section().Iy;
   CHECK(disp_z(r, 1) == Approx(-delta).epsilon(exact));
   CHECK(std::abs(r.elements[0].start_forces(4)) == Approx(6 * EI * delta / (L * L)).epsilon(exact));

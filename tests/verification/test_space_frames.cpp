@@ -57,7 +57,7 @@ TEST_CASE("doubly symmetric table frame under a symmetric load: equal feet, symm
   lc.name = "w";
   for (std::size_t e = 4; e < 8; ++e) lc.element_loads.push_back({e, V(0, 0, -w)});
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   const double total = 2 * (a + b) * w;
   const Totals t = reactions(m, r);
   CHECK(t.force.z() == Approx(total).epsilon(1e-9));
@@ -96,7 +96,7 @@ TEST_CASE("skew space frame with every kind of member load: reactions balance th
   lc.node_loads = {NodeLoad{7, V(3e3, 0, 0), V(0, 0, 2e3)}};
   lc.self_weight = true;
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
 
   // Applied totals from the definitions.
   Totals applied;

@@ -41,7 +41,7 @@ TEST_CASE("open I section: twist T L / (G J) and shear T t_max / J", "[verificat
   lc.name = "T";
   lc.node_loads = {NodeLoad{1, V::Zero(), V(T, 0, 0)}};
   m.cases = {lc};
-  const LoadResult r = solve_one(m);
+  const auto r = solve_one(m);
   CHECK(r.displacements(6 + rx) == Approx(T * L / (G * section->J)).epsilon(1e-9));
   // The twist grows linearly along the shaft: phi(x) = T x / (G J) at every station.
   for (const Station& st : r.elements[0].stations) {

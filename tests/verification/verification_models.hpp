@@ -7,6 +7,7 @@
 #include "../analysis/frame_fixtures.hpp"
 #include "stepframe/analysis/frame_model.hpp"
 #include "stepframe/analysis/results.hpp"
+#include "recovered_lines.hpp"
 #include "stepframe/analysis/solve.hpp"
 
 #include <Eigen/Core>
@@ -73,11 +74,11 @@ inline ElementLoad point(std::size_t element, double a, const Eigen::Vector3d& f
   return l;
 }
 
-/// Solves a model with one case and no buckling analysis; returns that case's result.
-inline LoadResult solve_one(const FrameModel& model) {
+/// Solves a model with one case and no buckling analysis; returns that case's result with every line.
+inline testing::Recovered solve_one(const FrameModel& model) {
   SolveOptions options;
   options.buckling_modes = 0;
-  return solve(model, options).at(0);
+  return testing::recovered(model, solve(model, options).at(0));
 }
 
 inline double disp_z(const LoadResult& r, std::size_t node) { return r.displacements(static_cast<Eigen::Index>(6 * node + 2)); }

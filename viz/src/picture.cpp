@@ -1,6 +1,8 @@
 #include "stepframe/viz/picture.hpp"
 
 #include "picture_scene.hpp"
+#include "stepframe/analysis/member_line.hpp"
+#include "stepframe/analysis/parallel.hpp"
 
 #include <spdlog/spdlog.h>
 
@@ -29,9 +31,14 @@ Picture draw_stress_picture(const analysis::FrameModel& model, const analysis::L
   Eigen::Vector3d low = model.nodes.front(), high = model.nodes.front();
   for (const auto& p : model.nodes) low = low.cwiseMin(p), high = high.cwiseMax(p);
   const double span = std::max((high - low).norm(), 1e-6);
+  // Every member's stations, recovered once (members spread over the cores).
+  const auto chains = analysis::member_chains(model);
+  std::vector<std::vector<analysis::Station>> lines(chains.size());
+  analysis::parallel_for(chains.size(),
+                         [&](std::size_t m) { lines[m] = analysis::member_line(model, result, chains[m]).stations; });
   double largest_u = 0;
-  for (const auto& line : result.members)
-    for (const auto& st : line.stations) {
+  for (const auto& stations : lines)
+    for (const auto& st : stations) {
       if (options.stress_max <= 0) picture.stress_max = std::max(picture.stress_max, st.von_mises);
       largest_u = std::max(largest_u, st.displacement.norm());
     }
@@ -42,9 +49,9 @@ Picture draw_stress_picture(const analysis::FrameModel& model, const analysis::L
   scene.width = options.width;
   scene.height = options.height;
   scene.stress_max = picture.stress_max;
-  for (const auto& line : result.members) {
+  for (const auto& stations : lines) {
     detail::ScenePolyline drawn, undeformed;
-    for (const auto& st : line.stations) {
+    for (const auto& st : stations) {
       drawn.push_back({st.position + picture.deformation_scale * st.displacement, st.von_mises});
       undeformed.push_back({st.position, 0.0});
     }

@@ -1,27 +1,80 @@
 #include "stepframe/viz/surface_vtu_writer.hpp"
 
+#include "stepframe/analysis/buckling.hpp"
 #include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/analysis/member_line.hpp"
+#include "stepframe/analysis/parallel.hpp"
+#include "vtk_arrays.hpp"
 #include "write_grid.hpp"
 
 #include <Eigen/Geometry>
 #include <vtkCellData.h>
 #include <vtkDoubleArray.h>
 #include <vtkFieldData.h>
-#include <vtkIdList.h>
-#include <vtkIntArray.h>
 #include <vtkPointData.h>
 #include <vtkPoints.h>
+#include <vtkUnsignedCharArray.h>
 
+#include <algorithm>
+#include <cmath>
 #include <stdexcept>
 
 namespace stepframe::viz {
 namespace {
 
-std::vector<analysis::SectionRing> rings_of(const analysis::Section& s) {
-  if (!s.outline.empty()) return s.outline;
-  const double y = 0.5 * s.width, z = 0.5 * s.depth;  // depth x width rectangle for sections given by properties
-  return {{{-y, -z}, {y, -z}, {y, z}, {-y, z}}};
+// Douglas-Peucker on a closed ring (Douglas & Peucker, Cartographica 10(2),
+// 1973): keeps the points that lie farther than `tolerance` from the chord
+// of the points kept around them. Fillet arcs shrink to a point or two,
+// corners stay.
+void keep_far_points(const analysis::SectionRing& ring, std::size_t from, std::size_t to, double tolerance,
+                     std::vector<bool>& keep) {
+  if (to <= from + 1) return;
+  const Eigen::Vector2d a(ring[from].y, ring[from].z), b(ring[to % ring.size()].y, ring[to % ring.size()].z);
+  const Eigen::Vector2d chord = b - a;
+  double far = -1;
+  std::size_t at = from;
+  for (std::size_t i = from + 1; i < to; ++i) {
+    const Eigen::Vector2d p = Eigen::Vector2d(ring[i].y, ring[i].z) - a;
+    const double d = chord.norm() > 0 ? std::abs(chord.x() * p.y() - chord.y() * p.x()) / chord.norm() : p.norm();
+    if (d > far) far = d, at = i;
+  }
+  if (far <= tolerance) return;
+  keep[at] = true;
+  keep_far_points(ring, from, at, tolerance, keep);
+  keep_far_points(ring, at, to, tolerance, keep);
+}
+
+analysis::SectionRing simplified(const analysis::SectionRing& ring, double tolerance) {
+  if (ring.size() <= 4) return ring;
+  // Split the closed ring at its first point and the point farthest from it.
+  std::size_t opposite = 0;
+  double far = -1;
+  for (std::size_t i = 1; i < ring.size(); ++i) {
+    const double d = std::hypot(ring[i].y - ring[0].y, ring[i].z - ring[0].z);
+    if (d > far) far = d, opposite = i;
+  }
+  std::vector<bool> keep(ring.size(), false);
+  keep[0] = keep[opposite] = true;
+  keep_far_points(ring, 0, opposite, tolerance, keep);
+  keep_far_points(ring, opposite, ring.size(), tolerance, keep);
+  analysis::SectionRing out;
+  for (std::size_t i = 0; i < ring.size(); ++i)
+    if (keep[i]) out.push_back(ring[i]);
+  return out;
+}
+
+// The outline drawn for a section: its rings without the detail a picture
+// cannot show (deviations under 2% of the section's smaller extent), or a
+// depth x width rectangle for sections given by properties.
+std::vector<analysis::SectionRing> drawn_outline(const analysis::Section& s) {
+  if (s.outline.empty()) {
+    const double y = 0.5 * s.width, z = 0.5 * s.depth;
+    return {{{-y, -z}, {y, -z}, {y, z}, {-y, z}}};
+  }
+  const double tolerance = 0.02 * std::min(s.depth, s.width);
+  std::vector<analysis::SectionRing> rings;
+  for (const auto& ring : s.outline) rings.push_back(simplified(ring, tolerance));
+  return rings;
 }
 
 // The member each element belongs to.
@@ -36,93 +89,113 @@ std::vector<int> element_members(const analysis::FrameModel& model) {
 }  // namespace
 
 void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
-                       const analysis::LoadResult& result) {
-  if (result.elements.size() != model.elements.size())
+                       const analysis::LoadResult& result, const SurfaceOptions& options) {
+  if (result.displacements.size() != static_cast<Eigen::Index>(6 * model.nodes.size()))
     throw std::invalid_argument("write_surface_vtu: result does not belong to this model");
+  const std::size_t stations = std::max<std::size_t>(2, options.sections_per_element);
   const auto owner = element_members(model);
+  std::vector<std::vector<analysis::SectionRing>> outlines;
+  for (const auto& s : model.sections) outlines.push_back(drawn_outline(s));
 
-  vtkNew<vtkPoints> points;
-  points->SetDataTypeToDouble();
-  vtkNew<vtkDoubleArray> stress, displacement;
-  stress->SetName("fibre_stress");
-  displacement->SetName("displacement");
-  displacement->SetNumberOfComponents(3);
-  vtkNew<vtkIntArray> member_id, element_id;
-  member_id->SetName("member_id");
-  element_id->SetName("element_id");
-  vtkNew<vtkUnstructuredGrid> grid;
-
+  // Element e owns points [first_point[e], ...) and quads [first_quad[e], ...).
+  std::vector<vtkIdType> first_point(model.elements.size() + 1, 0), first_quad(model.elements.size() + 1, 0);
   for (std::size_t e = 0; e < model.elements.size(); ++e) {
+    vtkIdType ring_points = 0;
+    for (const auto& ring : outlines[model.elements[e].section]) ring_points += static_cast<vtkIdType>(ring.size());
+    first_point[e + 1] = first_point[e] + ring_points * static_cast<vtkIdType>(stations);
+    first_quad[e + 1] = first_quad[e] + ring_points * static_cast<vtkIdType>(stations - 1);
+  }
+  const vtkIdType points_count = first_point.back(), quads = first_quad.back();
+  auto positions = detail::float_array("positions", 3, points_count);
+  auto stress = detail::float_array("fibre_stress", 1, points_count);
+  auto displacement = detail::float_array("displacement", 3, points_count);
+  vtkNew<vtkTypeInt32Array> offsets, connectivity;
+  offsets->SetNumberOfValues(quads + 1);
+  connectivity->SetNumberOfValues(4 * quads);
+  auto member_id = detail::int_array("member_id", quads);
+  auto element_id = detail::int_array("element_id", quads);
+
+  analysis::parallel_for(model.elements.size(), [&](std::size_t e) {
     const auto& element = model.elements[e];
     const auto& section = model.sections[element.section];
     const Eigen::Matrix3d axes =
         analysis::local_axes(model.nodes[element.nodes[0]], model.nodes[element.nodes[1]], element.roll);
     const Eigen::Vector3d y = axes.row(1).transpose(), z = axes.row(2).transpose();
-    const auto& stations = result.elements[e].stations;
-    for (const auto& ring : rings_of(section)) {
+    const analysis::LineResult line = analysis::element_line(model, result, e, stations);
+    vtkIdType p = first_point[e], q = first_quad[e];
+    for (const auto& ring : outlines[element.section]) {
       const auto n = static_cast<vtkIdType>(ring.size());
-      const vtkIdType first = points->GetNumberOfPoints();
-      for (const auto& st : stations)
-        for (const auto& p : ring) {
-          const Eigen::Vector3d arm = p.y * y + p.z * z;  // from the axis to the outline point, global
-          const Eigen::Vector3d at = st.position + arm;
-          points->InsertNextPoint(at.data());
+      const vtkIdType ring_first = p;
+      for (const auto& st : line.stations)
+        for (const auto& pt : ring) {
+          const Eigen::Vector3d arm = pt.y * y + pt.z * z;  // from the axis to the outline point, global
+          detail::set(positions, p, st.position + arm);
           // sigma = N/A + My z / Iy - Mz y / Iz (results.hpp sign convention).
-          stress->InsertNextValue(st.forces(0) / section.A + st.forces(4) * p.z / section.Iy -
-                                  st.forces(5) * p.y / section.Iz);
+          stress->SetValue(p, static_cast<float>(st.forces(0) / section.A + st.forces(4) * pt.z / section.Iy -
+                                                 st.forces(5) * pt.y / section.Iz));
           // Plane sections stay plane (warping left out): the outline point moves with the axis and
           // turns with the section, u_p = u + theta x arm to first order (small rotations).
-          const Eigen::Vector3d moved = st.displacement + st.rotation.cross(arm);
-          displacement->InsertNextTuple(moved.data());
+          detail::set(displacement, p, st.displacement + st.rotation.cross(arm));
+          ++p;
         }
-      for (std::size_t k = 0; k + 1 < stations.size(); ++k)
-        for (vtkIdType i = 0; i < n; ++i) {
-          const vtkIdType a = first + static_cast<vtkIdType>(k) * n, b = a + n;
+      for (std::size_t k = 0; k + 1 < line.stations.size(); ++k)
+        for (vtkIdType i = 0; i < n; ++i, ++q) {
+          const vtkIdType a = ring_first + static_cast<vtkIdType>(k) * n, b = a + n;
           const vtkIdType quad[4] = {a + i, a + (i + 1) % n, b + (i + 1) % n, b + i};
-          grid->InsertNextCell(VTK_QUAD, 4, quad);
-          member_id->InsertNextValue(owner[e]);
-          element_id->InsertNextValue(static_cast<int>(e));
+          offsets->SetValue(q, static_cast<int>(4 * q));
+          for (int c = 0; c < 4; ++c) connectivity->SetValue(4 * q + c, static_cast<int>(quad[c]));
+          member_id->SetValue(q, owner[e]);
+          element_id->SetValue(q, static_cast<int>(e));
         }
     }
-  }
+  });
+  offsets->SetValue(quads, static_cast<int>(4 * quads));
+
+  vtkNew<vtkUnstructuredGrid> grid;
+  vtkNew<vtkPoints> points;
+  points->SetData(positions);
   grid->SetPoints(points);
+  vtkNew<vtkCellArray> cells;
+  cells->SetData(offsets, connectivity);
+  grid->SetCells(VTK_QUAD, cells);
   grid->GetPointData()->AddArray(stress);
   grid->GetPointData()->SetActiveScalars("fibre_stress");
   grid->GetPointData()->AddArray(displacement);
   grid->GetPointData()->SetVectors(displacement);
   grid->GetCellData()->AddArray(member_id);
   grid->GetCellData()->AddArray(element_id);
-  detail::write_grid(file, grid);
+  detail::write_grid(file, grid, options.compression);
 }
 
 void write_mode_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
-                    const analysis::LoadResult& result, std::size_t mode) {
+                    const analysis::LoadResult& result, std::size_t mode, VtkCompression compression) {
   const auto& m = result.buckling_modes.at(mode);
-  if (m.element_points.size() != model.elements.size())
+  if (m.inner_points.size() != model.elements.size())
     throw std::invalid_argument("write_mode_vtu: mode does not belong to this model");
+  constexpr vtkIdType per_element = 7;  // six parts: the mode's curve inside each element shows
   const auto owner = element_members(model);
-  vtkNew<vtkPoints> points;
-  points->SetDataTypeToDouble();
-  vtkNew<vtkDoubleArray> shape;
-  shape->SetName("mode_shape");
-  shape->SetNumberOfComponents(3);
-  vtkNew<vtkIntArray> member_id;
-  member_id->SetName("member_id");
-  vtkNew<vtkUnstructuredGrid> grid;
-  for (std::size_t e = 0; e < model.elements.size(); ++e) {
+  const auto elements = static_cast<vtkIdType>(model.elements.size());
+  auto positions = detail::float_array("positions", 3, per_element * elements);
+  auto shape = detail::float_array("mode_shape", 3, per_element * elements);
+  auto member_id = detail::int_array("member_id", elements);
+  analysis::parallel_for(model.elements.size(), [&](std::size_t e) {
     const Eigen::Vector3d a = model.nodes[model.elements[e].nodes[0]], b = model.nodes[model.elements[e].nodes[1]];
-    const auto& translations = m.element_points[e];
-    vtkNew<vtkIdList> ids;
-    for (std::size_t k = 0; k < translations.size(); ++k) {
-      const double t = translations.size() > 1 ? static_cast<double>(k) / static_cast<double>(translations.size() - 1) : 0.0;
-      const Eigen::Vector3d p = a + t * (b - a);
-      ids->InsertNextId(points->InsertNextPoint(p.data()));
-      shape->InsertNextTuple(translations[k].data());
+    for (vtkIdType k = 0; k < per_element; ++k) {
+      const double t = static_cast<double>(k) / static_cast<double>(per_element - 1);
+      const vtkIdType p = static_cast<vtkIdType>(e) * per_element + k;
+      detail::set(positions, p, a + t * (b - a));
+      detail::set(shape, p, analysis::mode_translation(model, m, e, t));
     }
-    grid->InsertNextCell(VTK_POLY_LINE, ids);
-    member_id->InsertNextValue(owner[e]);
-  }
+    member_id->SetValue(static_cast<vtkIdType>(e), owner[e]);
+  });
+  std::vector<vtkIdType> first(model.elements.size() + 1);
+  for (std::size_t e = 0; e < first.size(); ++e) first[e] = static_cast<vtkIdType>(e) * per_element;
+
+  vtkNew<vtkUnstructuredGrid> grid;
+  vtkNew<vtkPoints> points;
+  points->SetData(positions);
   grid->SetPoints(points);
+  grid->SetCells(VTK_POLY_LINE, detail::consecutive_cells(first));
   grid->GetPointData()->AddArray(shape);
   grid->GetPointData()->SetVectors(shape);
   grid->GetCellData()->AddArray(member_id);
@@ -130,7 +203,7 @@ void write_mode_vtu(const std::filesystem::path& file, const analysis::FrameMode
   alpha->SetName("alpha");
   alpha->InsertNextValue(m.alpha);
   grid->GetFieldData()->AddArray(alpha);
-  detail::write_grid(file, grid);
+  detail::write_grid(file, grid, compression);
 }
 
 }  // namespace stepframe::viz

@@ -1,13 +1,12 @@
 #include "stepframe/viz/vtu_writer.hpp"
 
 #include "stepframe/analysis/member_line.hpp"
+#include "stepframe/analysis/parallel.hpp"
+#include "vtk_arrays.hpp"
 #include "write_grid.hpp"
 
+#include <vtkCellArray.h>
 #include <vtkCellData.h>
-#include <vtkDoubleArray.h>
-#include <vtkIdList.h>
-#include <vtkIntArray.h>
-#include <vtkNew.h>
 #include <vtkPointData.h>
 #include <vtkPoints.h>
 #include <vtkStringArray.h>
@@ -18,55 +17,62 @@
 namespace stepframe::viz {
 
 void write_line_model_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
-                          const analysis::LoadResult& result, const std::vector<double>& member_utilisation) {
+                          const analysis::LoadResult& result, const std::vector<double>& member_utilisation,
+                          VtkCompression compression) {
   const auto chains = analysis::member_chains(model);
   if (result.members.size() != chains.size())
     throw std::invalid_argument("write_line_model_vtu: result does not belong to this model");
 
-  vtkNew<vtkPoints> points;
-  points->SetDataTypeToDouble();
-  vtkNew<vtkDoubleArray> displacement;
-  displacement->SetName("displacement");
-  displacement->SetNumberOfComponents(3);
-  vtkNew<vtkDoubleArray> von_mises, axial, moment_y, moment_z;
-  von_mises->SetName("von_mises");
-  axial->SetName("N");
-  moment_y->SetName("My");
-  moment_z->SetName("Mz");
+  // Every member's stations, in member order: member m owns points [first[m], first[m + 1]).
+  std::vector<vtkIdType> first(chains.size() + 1, 0);
+  for (std::size_t m = 0; m < chains.size(); ++m)
+    first[m + 1] = first[m] + static_cast<vtkIdType>(chains[m].elements.size() * result.stations);
+  const vtkIdType count = first.back();
+  auto positions = detail::float_array("positions", 3, count);
+  auto displacement = detail::float_array("displacement", 3, count);
+  auto von_mises = detail::float_array("von_mises", 1, count);
+  auto axial = detail::float_array("N", 1, count);
+  auto moment_y = detail::float_array("My", 1, count);
+  auto moment_z = detail::float_array("Mz", 1, count);
+  analysis::parallel_for(chains.size(), [&](std::size_t m) {
+    const analysis::LineResult line = analysis::member_line(model, result, chains[m]);
+    vtkIdType p = first[m];
+    for (const analysis::Station& st : line.stations) {
+      detail::set(positions, p, st.position);
+      detail::set(displacement, p, st.displacement);
+      von_mises->SetValue(p, static_cast<float>(st.von_mises));
+      axial->SetValue(p, static_cast<float>(st.forces(0)));
+      moment_y->SetValue(p, static_cast<float>(st.forces(4)));
+      moment_z->SetValue(p, static_cast<float>(st.forces(5)));
+      ++p;
+    }
+  });
 
-  vtkNew<vtkDoubleArray> stress, normal_stress, utilisation;
-  stress->SetName("stress");
-  normal_stress->SetName("normal_stress");
-  utilisation->SetName("utilisation");
-  vtkNew<vtkIntArray> member_id;
-  member_id->SetName("member_id");
-  vtkNew<vtkIntArray> section_id;
-  section_id->SetName("section_id");
+  const auto cells = static_cast<vtkIdType>(chains.size());
+  auto stress = detail::float_array("stress", 1, cells);
+  auto normal_stress = detail::float_array("normal_stress", 1, cells);
+  auto utilisation = detail::float_array("utilisation", 1, cells);
+  auto member_id = detail::int_array("member_id", cells);
+  auto section_id = detail::int_array("section_id", cells);
   vtkNew<vtkStringArray> section;
   section->SetName("section");
+  section->SetNumberOfValues(cells);
+  for (std::size_t m = 0; m < chains.size(); ++m) {
+    const auto i = static_cast<vtkIdType>(m);
+    const std::size_t section_index = model.elements[chains[m].elements.front()].section;
+    stress->SetValue(i, static_cast<float>(result.members[m].max_von_mises));
+    normal_stress->SetValue(i, static_cast<float>(result.members[m].max_abs_stress));
+    utilisation->SetValue(i, m < member_utilisation.size() ? static_cast<float>(member_utilisation[m]) : 0.0f);
+    member_id->SetValue(i, static_cast<int>(m));
+    section_id->SetValue(i, static_cast<int>(section_index));
+    section->SetValue(i, model.sections[section_index].designation);
+  }
 
   vtkNew<vtkUnstructuredGrid> grid;
-  for (std::size_t m = 0; m < chains.size(); ++m) {
-    const auto& line = result.members[m];
-    const std::size_t section_index = model.elements[chains[m].elements.front()].section;
-    vtkNew<vtkIdList> ids;
-    for (const auto& station : line.stations) {
-      ids->InsertNextId(points->InsertNextPoint(station.position.data()));
-      displacement->InsertNextTuple(station.displacement.data());
-      von_mises->InsertNextValue(station.von_mises);
-      axial->InsertNextValue(station.forces(0));
-      moment_y->InsertNextValue(station.forces(4));
-      moment_z->InsertNextValue(station.forces(5));
-    }
-    grid->InsertNextCell(VTK_POLY_LINE, ids);
-    stress->InsertNextValue(line.max_von_mises);
-    normal_stress->InsertNextValue(line.max_abs_stress);
-    if (m < member_utilisation.size()) utilisation->InsertNextValue(member_utilisation[m]);
-    member_id->InsertNextValue(static_cast<int>(m));
-    section_id->InsertNextValue(static_cast<int>(section_index));
-    section->InsertNextValue(model.sections[section_index].designation);
-  }
+  vtkNew<vtkPoints> points;
+  points->SetData(positions);
   grid->SetPoints(points);
+  grid->SetCells(VTK_POLY_LINE, detail::consecutive_cells(first));
   grid->GetPointData()->AddArray(displacement);
   grid->GetPointData()->SetVectors(displacement);
   for (auto* array : {von_mises.Get(), axial.Get(), moment_y.Get(), moment_z.Get()}) grid->GetPointData()->AddArray(array);
@@ -77,8 +83,7 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   grid->GetCellData()->AddArray(member_id);
   grid->GetCellData()->AddArray(section_id);
   grid->GetCellData()->AddArray(section);
-
-  detail::write_grid(file, grid);
+  detail::write_grid(file, grid, compression);
 }
 
 }  // namespace stepframe::viz

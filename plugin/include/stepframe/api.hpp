@@ -17,6 +17,7 @@
 #include <nlohmann/json.hpp>
 
 #include <filesystem>
+#include <memory>
 #include <string>
 #include <string_view>
 #include <vector>
@@ -48,7 +49,10 @@ class Results {
   const Analysis& analysis() const;
   /// The results.json document (schema stepframe-results/1) when analysed; otherwise
   /// {"schema": "stepframe-results/1", "status": "error", "exit_status": N, "message": "..."}.
-  const nlohmann::json& json() const { return json_; }
+  /// Made on first use (a building-sized document takes a while and much memory as a tree).
+  const nlohmann::json& json() const;
+  /// The same document as text (what results.json holds), made on first use.
+  const std::string& json_text() const;
   /// Files written (empty when out_dir was empty or the run failed).
   const std::vector<std::filesystem::path>& files() const { return outcome_.files; }
   /// The human summary the command line prints (or the message when not analysed).
@@ -56,7 +60,8 @@ class Results {
 
  private:
   RunOutcome outcome_;
-  nlohmann::json json_;
+  struct Documents;  // json() and json_text(), made once each, safely from any thread
+  std::shared_ptr<Documents> documents_;
 };
 
 /// Runs a project file (its model: resolved beside it).

@@ -4,6 +4,7 @@
 
 #include "stepframe/analysis/material.hpp"
 #include "stepframe/analysis/section.hpp"
+#include "stepframe/viz/vtk_compression.hpp"
 
 #include <Eigen/Core>
 
@@ -144,6 +145,25 @@ struct ChecksSpec {
   double gamma_M1 = 1.0;
 };
 
+/// Which results a kind of VTK file is written for.
+enum class VtkSelection {
+  all,        ///< every case and combination
+  governing,  ///< the combinations that govern: the largest member utilisation and the lowest alpha_cr
+  none,
+};
+
+/// What a run writes besides results.json, the tables and the report (the
+/// `outputs:` block). The defaults keep a building-sized run's folder small:
+/// line models for every result, surfaces and buckling modes for the
+/// governing combinations only.
+struct OutputsSpec {
+  VtkSelection line_models = VtkSelection::all;          ///< outputs.line_models
+  VtkSelection surfaces = VtkSelection::governing;       ///< outputs.surfaces
+  VtkSelection buckling_modes = VtkSelection::governing;  ///< outputs.buckling_modes
+  viz::VtkCompression compression = viz::VtkCompression::lz4;  ///< outputs.compression
+  bool pictures = true;                                  ///< outputs.pictures: the report's pictures
+};
+
 struct Project {
   std::filesystem::path file;        ///< the project file itself
   std::filesystem::path model;       ///< the STEP file, resolved against the project's folder
@@ -162,6 +182,7 @@ struct Project {
   bool shear_deformation = false;   ///< analysis.shear_deformation
   bool second_order = false;        ///< analysis.second_order
   std::size_t buckling_modes = 3;   ///< analysis.buckling_modes (0: no buckling analysis)
+  OutputsSpec outputs;
 };
 
 }  // namespace stepframe

@@ -45,13 +45,32 @@ Analysis analyse_project(const std::filesystem::path& project_file, const RunCon
 /// (from any source): builds the model, solves and checks.
 Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control = {});
 
-/// The results.json document (schema stepframe-results/1; README "results.json").
+/// Writes the results.json document (schema stepframe-results/1; README
+/// "results.json") as text, handing it to `sink` in pieces of about a
+/// megabyte: a building-sized document is never held whole.
+void write_results_json(const Analysis& analysis, const std::function<void(std::string_view)>& sink);
+
+/// The results.json document as one string.
+std::string results_json_text(const Analysis& analysis);
+
+/// The results.json document parsed (for embedding; large for large models).
 nlohmann::json results_json(const Analysis& analysis);
 
-/// Writes results.json and one .vtu per case and combination under `out_dir`
-/// (vtk/NAME.vtu). Every file is written under a temporary name first and
-/// renamed only when all are complete. Returns the files written.
-std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir);
+/// The `checks` array of results.json.
+nlohmann::json checks_json(const std::vector<analysis::CheckResult>& checks);
+
+/// Writes results.json, the tables, the report and the VTK files the
+/// project's `outputs` ask for under `out_dir` (vtk/NAME.vtu, ...). Every file
+/// is written under a temporary name first and renamed only when all are
+/// complete. Reports the stages "vtk", "tables", "report" and "results.json"
+/// to `control`. Returns the files written.
+std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir,
+                                                 const RunControl& control = {});
+
+/// The results the `governing` output selection writes, as indices into
+/// analysis.results: the combination (case, when there are no combinations)
+/// of the largest member utilisation and the one with the lowest alpha_cr.
+std::vector<std::size_t> governing_results(const Analysis& analysis);
 
 /// The default output folder: "<project stem>-results" beside the project file.
 std::filesystem::path default_out_dir(const std::filesystem::path& project_file);

@@ -14,9 +14,12 @@
 
 namespace stepframe {
 
-/// Called as work goes on: a stage name ("project", "geometry", "model",
-/// "solve", "checks", "output") and the fraction of that stage done, in [0, 1].
-/// Each stage reports 0 when it starts; most report 1 when they end.
+/// Called as work goes on: a stage name and the fraction of that stage done,
+/// in [0, 1]. The stages, in order: "project", "geometry", "model",
+/// "assembly", "factorisation", "recovery", "buckling" (when asked for),
+/// "checks", then, when files are written, "vtk", "tables", "report" and
+/// "results.json", which reports 1 when every file is in place. Each stage
+/// reports 0 when it starts.
 using ProgressCallback = std::function<void(std::string_view stage, double fraction)>;
 
 /// Asked between stages and inside the solver's loops; returning true stops

@@ -12,6 +12,7 @@
 
 #include "stepframe/analysis/frame_element.hpp"
 #include "stepframe/analysis/frame_model.hpp"
+#include "stepframe/analysis/local_loads.hpp"
 #include "stepframe/analysis/results.hpp"
 
 #include <Eigen/Core>
@@ -19,18 +20,6 @@
 #include <vector>
 
 namespace stepframe::analysis {
-
-/// One load on an element, local axes: a distributed load varying linearly
-/// from q_a at distance a to q_b at distance b [N/m], or a point force q_a [N]
-/// at distance a (then b is ignored). 0 <= a <= b <= L.
-struct LocalLoad {
-  bool point = false;
-  double a = 0;
-  double b = 0;
-  Eigen::Vector3d q_a = Eigen::Vector3d::Zero();
-  Eigen::Vector3d q_b = Eigen::Vector3d::Zero();
-};
-using LocalLoads = std::vector<LocalLoad>;
 
 /// A uniform load over the whole element [0, L].
 LocalLoad uniform_local_load(double length, const Eigen::Vector3d& q_local);

@@ -44,7 +44,7 @@ double max_fibre_stress(const Section& section, const Vector6d& forces);
 /// Everything the recovery needs about one element.
 struct ElementState {
   ElementProperties properties;
-  Section section;
+  const Section* section = nullptr;  ///< not owned
   Eigen::Matrix3d axes = Eigen::Matrix3d::Identity();  ///< rows: local x, y, z (global components)
   Eigen::Vector3d origin = Eigen::Vector3d::Zero();    ///< start node position, global [m]
   Vector12d end_displacements = Vector12d::Zero();     ///< the nodes' values, global axes, start then end

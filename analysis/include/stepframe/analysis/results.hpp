@@ -5,11 +5,20 @@
 // (larger x) on the part before it, in local axes, right-hand rule:
 // N > 0 is tension; the normal stress at a fibre (y, z) of the section is
 // sigma = N/A + My z / Iy - Mz y / Iz.
+//
+// A result keeps what every member needs for checks and tables (a
+// LineSummary per member) and what it takes to recover any member exactly
+// (the node displacements and the loads on each element); the stations
+// along a member are recomputed on demand (member_results.hpp), so a large
+// frame never holds them all at once.
+
+#include "stepframe/analysis/local_loads.hpp"
 
 #include <Eigen/Core>
 
 #include <array>
 #include <cstddef>
+#include <memory>
 #include <optional>
 #include <string>
 #include <vector>
@@ -39,29 +48,44 @@ struct DiagramExtreme {
   double x_min = 0;
 };
 
-/// Results along a line: one element, or one member (its elements' stations joined).
-struct LineResult {
+/// What the checks, tables and results.json need of a line (one element, or
+/// one member: its elements joined), kept for every member of every result.
+struct LineSummary {
+  double length = 0;                         ///< [m] along the line
   Vector6d start_forces = Vector6d::Zero();  ///< internal forces at x = 0 (same convention as Station::forces)
   Vector6d end_forces = Vector6d::Zero();    ///< internal forces at x = L
-  std::vector<Station> stations;  ///< evenly spaced, first at 0 and last at L
   double max_abs_stress = 0;        ///< [Pa]
+  double max_von_mises = 0;         ///< [Pa]
+  double max_von_mises_at = 0;      ///< where it occurs, from the start [m]
   double max_local_deflection = 0;  ///< largest distance of the deformed axis from the chord
                                     ///< between its deformed ends [m]
-  double max_local_deflection_at = 0;  ///< station where it occurs, from the start [m]
+  double max_local_deflection_at = 0;  ///< where it occurs, from the start [m]
   /// Extremes of N, Vy, Vz, T, My, Mz, located exactly: at the ends, where a
   /// load starts, stops or acts, and where the shear crosses zero (moments) or
   /// the load intensity does (shears); not only at the stations.
   std::array<DiagramExtreme, 6> extremes{};
-  double max_von_mises = 0;  ///< [Pa]
+};
+
+/// Results along a line with its stations.
+struct LineResult : LineSummary {
+  std::vector<Station> stations;  ///< evenly spaced per element, first at 0 and last at L
 };
 
 /// One buckling mode of a combination.
 struct BucklingMode {
   double alpha = 0;  ///< load factor: the combination times alpha is critical
   Eigen::VectorXd displacements;  ///< 6 per node, global, scaled so the largest translation is 1
-  /// Translations at the points each element was divided into for the
-  /// buckling analysis (start and end included), global, same scale.
-  std::vector<std::vector<Eigen::Vector3d>> element_points;
+  /// Per element: the mode (ux uy uz rx ry rz, global, same scale) at the
+  /// points inside the element where the buckling analysis divided it, evenly
+  /// spaced; empty for an element it did not divide. See mode_translation.
+  std::vector<std::vector<Vector6d>> inner_points;
+};
+
+/// Loads on every element (local axes, one list per element) times a factor:
+/// a case's loads, shared by the combinations that use it.
+struct LoadTerm {
+  double factor = 1.0;
+  std::shared_ptr<const std::vector<LocalLoads>> loads;
 };
 
 struct LoadResult {
@@ -70,13 +94,18 @@ struct LoadResult {
   Eigen::VectorXd displacements;  ///< 6 per node (ux uy uz rx ry rz), global [m, rad]
   Eigen::VectorXd reactions;      ///< 6 per node: at fixed DOFs R = K u - F, at springs the spring force
                                   ///< -k u on the frame, zero elsewhere [N, N m]
-  std::vector<LineResult> elements;  ///< one per FrameModel::elements
-  std::vector<LineResult> members;   ///< one per member_chains(model): stations of its elements joined,
-                                     ///< x measured along the member from its start
+  std::vector<LineSummary> members;  ///< one per member_chains(model), x measured along the member
+  /// The element loads of this result: the sum of the terms (one for a case,
+  /// one per case for a combination).
+  std::vector<LoadTerm> element_loads;
+  /// Stations per element when a line is recovered (member_results.hpp).
+  std::size_t stations = 21;
   /// Second-order (P-Delta) result, iterated until the displacements changed
   /// by less than SolveOptions::second_order_tolerance.
   bool second_order = false;
   std::size_t second_order_iterations = 0;
+  /// Second order: the axial force [N] of each element's geometric stiffness.
+  std::vector<double> second_order_axial;
   /// Elastic critical load factor (EN 1993-1-1 5.2.1(3) alpha_cr) of a
   /// combination; empty for load cases, when buckling is not asked for, or
   /// when nothing in the frame is compressed.

@@ -8,6 +8,7 @@
 #include <functional>
 #include <stdexcept>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace stepframe::analysis {
@@ -22,8 +23,10 @@ struct SolveOptions {
   /// displacements change by less than this fraction of their largest value.
   double second_order_tolerance = 1e-8;
   std::size_t second_order_max_iterations = 50;
-  /// Called with a fraction in [0, 1] as the work goes on; may be empty.
-  std::function<void(double)> progress;
+  /// Called as the work goes on with the stage ("assembly", "factorisation",
+  /// "recovery", "buckling") and the fraction of it done, in [0, 1]; each
+  /// stage reports 0 when it starts. May be empty.
+  std::function<void(std::string_view stage, double fraction)> progress;
 };
 
 /// A free direction of the structure: the frame is a mechanism there.

@@ -19,8 +19,9 @@ namespace stepframe::analysis {
 /// a pivot D_ii <= pivot_tolerance * max_i K_ii (or D_ii <= 0) flags a mechanism.
 inline constexpr double pivot_tolerance = 1e-9;
 
-/// Factorises the free-free stiffness once (CHOLMOD supernodal L L^T with its
-/// fill-reducing ordering) and then solves any number of right-hand sides,
+/// Factorises the free-free stiffness once (CHOLMOD supernodal L L^T, ordered
+/// by METIS nested dissection of the graph of the nodes, each node's DOFs kept
+/// together) and then solves any number of right-hand sides,
 /// several at once as the columns of a matrix. The pivots (L_kk^2) are checked
 /// for mechanisms; when CHOLMOD stops on a non-positive pivot, a simplicial
 /// L D L^T of the same matrix names the free directions.

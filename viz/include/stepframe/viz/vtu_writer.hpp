@@ -4,14 +4,16 @@
 
 #include "stepframe/analysis/frame_model.hpp"
 #include "stepframe/analysis/results.hpp"
+#include "stepframe/viz/vtk_compression.hpp"
 
 #include <filesystem>
 #include <vector>
 
 namespace stepframe::viz {
 
-/// Writes `result` for `model` to `file` (binary, zlib-compressed appended data).
-/// Points are the undeformed station positions [m].
+/// Writes `result` for `model` to `file` (binary, compressed appended data;
+/// 32-bit floats). Points are the undeformed station positions [m]: every
+/// station of every element (LoadResult::stations each), recovered here.
 /// Point data: "displacement" (vector [m]; warp by it to see the deformed shape,
 ///             which then follows the element's own interpolation),
 ///             "von_mises" (largest at the station [Pa]), "N" [N], "My", "Mz" [N m]
@@ -23,6 +25,7 @@ namespace stepframe::viz {
 /// Writes exactly `file`; callers that need atomic output pass a temporary
 /// name and rename it. Throws std::runtime_error naming the file on failure.
 void write_line_model_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
-                          const analysis::LoadResult& result, const std::vector<double>& member_utilisation = {});
+                          const analysis::LoadResult& result, const std::vector<double>& member_utilisation = {},
+                          VtkCompression compression = VtkCompression::lz4);
 
 }  // namespace stepframe::viz

@@ -1,0 +1,36 @@
+// The `outputs:` block of a project file: which VTK files a run writes.
+
+#include "project_blocks.hpp"
+
+namespace stepframe::detail {
+namespace {
+
+VtkSelection read_selection(const Reader& r, const YAML::Node& node, const std::string& key) {
+  const std::string value = r.text(node, key);
+  if (value == "all") return VtkSelection::all;
+  if (value == "governing") return VtkSelection::governing;
+  if (value == "none") return VtkSelection::none;
+  r.fail(node, key, "expected all, governing or none, got '" + value + "'");
+}
+
+}  // namespace
+
+OutputsSpec read_outputs(const Reader& r, const YAML::Node& node) {
+  OutputsSpec spec;
+  if (!node) return spec;
+  r.check_keys(node, "outputs", {"line_models", "surfaces", "buckling_modes", "compression", "pictures"});
+  if (node["line_models"]) spec.line_models = read_selection(r, node["line_models"], "outputs.line_models");
+  if (node["surfaces"]) spec.surfaces = read_selection(r, node["surfaces"], "outputs.surfaces");
+  if (node["buckling_modes"]) spec.buckling_modes = read_selection(r, node["buckling_modes"], "outputs.buckling_modes");
+  if (node["compression"]) {
+    const std::string value = r.text(node["compression"], "outputs.compression");
+    if (value == "lz4") spec.compression = viz::VtkCompression::lz4;
+    else if (value == "zlib") spec.compression = viz::VtkCompression::zlib;
+    else if (value == "none") spec.compression = viz::VtkCompression::none;
+    else r.fail(node["compression"], "outputs.compression", "expected lz4, zlib or none, got '" + value + "'");
+  }
+  if (node["pictures"]) spec.pictures = r.boolean(node["pictures"], "outputs.pictures");
+  return spec;
+}
+
+}  // namespace stepframe::detail
