@@ -16,14 +16,10 @@
 // like-for-like OCCT run) as a fraction of OCCT's time.
 // Usage: stepframe_bench_import [bays] [repeats] [file]   (default 32 2 /tmp/stepframe_bench_import.stp)
 
+#include "bench_support.hpp"
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/geometry/wireframe.hpp"
 
-#include <STEPCAFControl_Controller.hxx>
-#include <STEPCAFControl_Reader.hxx>
-#include <TDocStd_Document.hxx>
-#include <XCAFApp_Application.hxx>
-#include <XCAFDoc_DocumentTool.hxx>
 
 #include <spdlog/spdlog.h>
 
@@ -118,42 +114,6 @@ std::size_t write_lattice(const std::filesystem::path& file, int bays) {
   return members;
 }
 
-// OCCT's part of an import, as a pipeline does it: read, transfer into an
-// XDE document (with XDE's layer and colour modes when `xde_attributes`), and
-// free the reader and the document again (read_step frees its own too).
-// Returns the processor time; `wall` gets the elapsed time.
-double occt_read_and_transfer(const std::filesystem::path& file, bool xde_attributes, std::size_t& shapes,
-                              double& wall) {
-  const auto t0 = Clock::now();
-  const double c0 = cpu_seconds();
-  {
-    STEPCAFControl_Controller::Init();
-    STEPCAFControl_Reader reader;
-    reader.SetNameMode(Standard_True);
-    reader.SetLayerMode(xde_attributes);
-    reader.SetColorMode(xde_attributes);
-    reader.SetPropsMode(Standard_False);
-    reader.SetGDTMode(Standard_False);
-    reader.SetMatMode(Standard_False);
-    reader.SetViewMode(Standard_False);
-    if (reader.ReadFile(file.string().c_str()) != IFSelect_RetDone) {
-      std::fprintf(stderr, "OCCT could not read %s\n", file.string().c_str());
-      std::exit(1);
-    }
-    Handle(TDocStd_Document) document;
-    XCAFApp_Application::GetApplication()->NewDocument("MDTV-XCAF", document);
-    XCAFDoc_DocumentTool::SetLengthUnit(document, 1e-3);
-    if (!reader.Transfer(document)) {
-      std::fprintf(stderr, "OCCT could not transfer %s\n", file.string().c_str());
-      std::exit(1);
-    }
-    shapes = static_cast<std::size_t>(reader.Reader().NbShapes());
-    XCAFApp_Application::GetApplication()->Close(document);
-  }
-  wall = seconds_since(t0);
-  return cpu_seconds() - c0;
-}
-
 // What one measured run sends back from its child process.
 struct Sample {
   double cpu[2] = {0, 0}, wall[2] = {0, 0};
@@ -217,13 +177,13 @@ int main(int argc, char** argv) {
   std::size_t edges = 0, nodes = 0, built_members = 0, shapes = 0, findings = 0;
   for (int r = 0; r < repeats; ++r) {
     for (const bool attributes : {false, true}) {
-      const Sample s = in_child([&] {
-        Sample out;
-        out.cpu[0] = occt_read_and_transfer(file, attributes, out.counts[0], out.wall[0]);
-        return out;
-      });
-      (attributes ? occt_attributes : occt).keep(s.cpu[0], s.wall[0]);
-      shapes = s.counts[0];
+      const auto m = stepframe::bench::occt_read_and_transfer(file, attributes);
+      if (m.status != 0) {
+        std::fprintf(stderr, "OCCT could not read or transfer %s\n", file.string().c_str());
+        return 1;
+      }
+      (attributes ? occt_attributes : occt).keep(m.cpu, m.wall);
+      shapes = m.count;
     }
     const Sample s = in_child([&] {
       Sample out;
