@@ -43,6 +43,7 @@ nlohmann::json section_json(const analysis::Section& s) {
           {"standard", s.standard},
           {"shape", analysis::shape_name(s.shape)},
           {"units", "SI: m, m^2, m^3, m^4, m^6, rad, kg/m"},
+          {"note", analysis::catalogue_caution},
           {"A", s.A},
           {"Iy", s.Iy},
           {"Iz", s.Iz},
@@ -99,7 +100,7 @@ std::string section_text(const analysis::Section& s) {
   for (const auto& p : s.parts)
     out += fmt::format("  {:<16}c/t = {:.1f} ({}, c = {:.1f} mm, t = {:.1f} mm)\n", p.name, p.ratio(), part_kind(p.kind),
                        p.c * 1e3, p.t * 1e3);
-  return out;
+  return out + fmt::format("\n{}\n", analysis::catalogue_caution);
 }
 
 std::string list_text(const std::vector<analysis::CatalogueEntry>& entries) {
@@ -124,7 +125,7 @@ std::string list_text(const std::vector<analysis::CatalogueEntry>& entries) {
     }
     out += line + "\n";
   }
-  return out;
+  return out + fmt::format("\n{}\n", analysis::catalogue_caution);
 }
 
 }  // namespace
@@ -160,7 +161,8 @@ int sections_command(const SectionsOptions& options) {
     nlohmann::json list = nlohmann::json::array();
     for (const auto& e : entries)
       list.push_back({{"designation", e.designation}, {"family", e.family}, {"standard", e.standard}, {"alias", e.alias}});
-    std::cout << nlohmann::json{{"query", options.query}, {"sections", list}}.dump(1) << '\n';
+    std::cout << nlohmann::json{{"query", options.query}, {"sections", list}, {"note", analysis::catalogue_caution}}.dump(1)
+              << '\n';
   } else {
     std::cout << list_text(entries);
   }

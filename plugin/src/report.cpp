@@ -1,5 +1,6 @@
 #include "stepframe/report.hpp"
 
+#include "stepframe/analysis/section.hpp"
 #include "stepframe/viz/markup.hpp"
 #include "stepframe/viz/picture.hpp"
 
@@ -167,6 +168,7 @@ std::string report_html(const Analysis& a) {
   h += fmt::format("<dt>Units of the project file</dt><dd>length {}, force {}; results in SI (m, N, Pa)</dd>\n",
                    escaped(p.length_unit), escaped(p.force_unit));
   h += fmt::format("<dt>Merge tolerance</dt><dd>{:g} mm</dd>\n", p.merge_tolerance * 1e3);
+  h += "<dt>Section properties</dt><dd>" + escaped(std::string(analysis::catalogue_caution)) + "</dd>\n";
   h += fmt::format("<dt>Partial factors</dt><dd>gamma_M0 = {:g}, gamma_M1 = {:g}</dd>\n", p.checks.gamma_M0, p.checks.gamma_M1);
   h += "<dt>Rules</dt><dd><ol>";
   for (const auto& rule : p.rules) {

@@ -161,6 +161,7 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
     REQUIRE(std::regex_search(html, m, std::regex("id=\"max-utilisation\">([0-9.]+)<")));
     CHECK(std::stod(m[1]) == Approx(max_u).margin(5e-4));
     CHECK_THAT(html, Contains("competent engineer") && Contains("data:image/png;base64,"));
+    CHECK_THAT(html, Contains("computed from nominal dimensions and must be checked against the current edition"));
   }
   SECTION("tables: checks, take-off and end forces") {
     const auto checks = csv_rows(test::read_text(out / "checks.csv"));

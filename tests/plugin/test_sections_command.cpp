@@ -32,6 +32,26 @@ TEST_CASE("stepframe sections lists the designations that match a family", "[plu
   CHECK(w12x26);
 }
 
+TEST_CASE("stepframe sections says the properties come from nominal dimensions", "[plugin][cli][sections]") {
+  // Every output that shows catalogue properties carries the caution of the README's
+  // "How close section properties are to published tables".
+  test::ScratchDir scratch;
+  const auto one = test::run_stepframe("sections \"IPE 300\"", scratch);
+  REQUIRE(one.status == 0);
+  CHECK_THAT(one.out, Contains("computed from nominal dimensions") &&
+                          Contains("must be checked against the current edition of the standard"));
+  const auto list = test::run_stepframe("sections UPE", scratch);
+  REQUIRE(list.status == 0);
+  CHECK_THAT(list.out, Contains("computed from nominal dimensions"));
+  for (const char* query : {"sections \"IPE 300\" --json", "sections UPE --json"}) {
+    INFO(query);
+    const auto json = test::run_stepframe(query, scratch);
+    REQUIRE(json.status == 0);
+    CHECK_THAT(nlohmann::json::parse(json.out)["note"].get<std::string>(),
+               Contains("computed from nominal dimensions") && Contains("current edition of the standard"));
+  }
+}
+
 TEST_CASE("stepframe sections prints one section's properties in SI units", "[plugin][cli][sections]") {
   test::ScratchDir scratch;
   const auto r = test::run_stepframe("sections \"HE 200 B\" --json", scratch);

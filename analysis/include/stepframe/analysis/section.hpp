@@ -135,4 +135,11 @@ std::vector<CatalogueEntry> search_catalogue(std::string_view query);
 /// normalized spelling and by nominal size.
 std::vector<std::string> nearest_designations(std::string_view designation, std::size_t n = 3);
 
+/// What every listing of built-in section properties says with them: they are
+/// computed from the standards' nominal dimensions, not taken from their tables
+/// (README, "How close section properties are to published tables").
+inline constexpr std::string_view catalogue_caution =
+    "Section properties are computed from nominal dimensions and must be checked against the current edition of "
+    "the standard.";
+
 }  // namespace stepframe::analysis
