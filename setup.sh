@@ -9,7 +9,7 @@ PACKAGES=(
   build-essential cmake pkg-config
   libocct-foundation-dev libocct-modeling-data-dev libocct-modeling-algorithms-dev
   libocct-ocaf-dev libocct-data-exchange-dev
-  libvtk9-dev libegl-dev libegl-mesa0 libgl1-mesa-dri libglew-dev libeigen3-dev libsuitesparse-dev libspectra-dev
+  libvtk9-dev libegl-dev libegl-mesa0 libgl1-mesa-dri libglew-dev libeigen3-dev libsuitesparse-dev libopenblas-dev libspectra-dev
   libspdlog-dev libyaml-cpp-dev nlohmann-json3-dev libcli11-dev catch2
   python3 python3-dev pybind11-dev
 )

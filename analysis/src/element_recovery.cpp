@@ -107,7 +107,7 @@ Recovery solve_ends(const ElementState& s) {
 
 Vector12d element_end_actions(const ElementState& state) { return solve_ends(state).end; }
 
-LineResult recover_element(const ElementState& s, std::size_t stations) {
+LineResult recover_element(const ElementState& s, std::size_t stations, LineDetail detail) {
   if (stations < 2) throw std::invalid_argument("recover_element: at least 2 stations are needed (both ends)");
   const double L = s.properties.length;
   const Recovery ends = solve_ends(s);
@@ -159,6 +159,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations) {
   }
   result.start_forces = result.stations.front().forces;
   result.end_forces = result.stations.back().forces;
+  if (detail == LineDetail::stations) return result;
 
   // Candidate points of the extremes: ends, load breakpoints, and the zero
   // crossings of the shears (for moments) and of the load intensity (for

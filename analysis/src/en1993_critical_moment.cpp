@@ -10,14 +10,21 @@
 #include <limits>
 #include <numbers>
 #include <stdexcept>
+#include <string>
 
 namespace stepframe::analysis::en1993 {
 
 namespace {
 
+// Matrices and vectors of at most 64 rows and columns, kept on the stack (no heap traffic for
+// the small eigenproblem solved for every member and combination).
+constexpr int most = 64;
+using Matrix = Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, 0, most, most>;
+using Vector = Eigen::Matrix<double, Eigen::Dynamic, 1, 0, most, 1>;
+
 // sin(i theta), i = 1..n, by the recurrence sin((i+1) t) = 2 cos t sin(i t) - sin((i-1) t)
 // (the Chebyshev recurrence; two library calls instead of n).
-void fill_sines(double theta, Eigen::VectorXd& sines) {
+void fill_sines(double theta, Vector& sines) {
   const double c2 = 2 * std::cos(theta);
   double previous = 0, current = std::sin(theta);
   for (Eigen::Index i = 0; i < sines.size(); ++i) {
@@ -35,6 +42,8 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
   if (diagram.size() < 2) throw std::invalid_argument("critical_moment_for_diagram: at least two points are needed");
   const double L = diagram.back().x - diagram.front().x, x0 = diagram.front().x;
   const double pi = std::numbers::pi;
+  if (terms < 1 || 2 * terms > most)
+    throw std::invalid_argument("critical_moment_for_diagram: terms must be from 1 to " + std::to_string(most / 2));
   const auto n = static_cast<Eigen::Index>(terms);
   double peak = 0;
   for (const auto& p : diagram) peak = std::max(peak, std::abs(p.M));
@@ -48,19 +57,19 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
   //   V = int M u'' phi dx (sign free: a doubly symmetric section buckles under either sign of M)
   //     + 1/2 sum_loads Q zg phi^2 (a load above the shear centre, towards it: destabilising) -> G
   // Critical state: K x = lambda G x; Mcr = lambda_min+ * max|M|.
-  Eigen::VectorXd K(2 * n);
+  Vector K(2 * n);
   for (Eigen::Index i = 0; i < n; ++i) {
-    const double w = static_cast<double>(i + 1) * pi / L;
-    K(i) = k.E * k.Iz * std::pow(w, 4) * L / 2;                                  // int sin^2 = L / 2
-    K(n + i) = (k.G * k.It * w * w + k.E * k.Iw * std::pow(w, 4)) * L / 2;
+    const double w = static_cast<double>(i + 1) * pi / L, w2 = w * w;
+    K(i) = k.E * k.Iz * w2 * w2 * L / 2;                                  // int sin^2 = L / 2
+    K(n + i) = (k.G * k.It * w2 + k.E * k.Iw * w2 * w2) * L / 2;
   }
-  Eigen::MatrixXd G = Eigen::MatrixXd::Zero(2 * n, 2 * n);
+  Matrix G = Matrix::Zero(2 * n, 2 * n);
   // Moment term: int M(x) (i pi / L)^2 sin_i sin_j dx, M linear between points, integrated by the 3-point
   // Gauss rule on sub-intervals: about three points per half-wave of the highest product sin_n sin_n.
   const auto intervals = static_cast<int>(diagram.size() - 1);
   const int sub = std::max(1, (2 * terms + intervals - 1) / intervals);
   const double gauss_x[3] = {-std::sqrt(0.6), 0.0, std::sqrt(0.6)}, gauss_w[3] = {5.0 / 9, 8.0 / 9, 5.0 / 9};
-  Eigen::VectorXd sines(n), bent(n);  // sin_i(x) and (i pi / L)^2 sin_i(x) at one point
+  Vector sines(n), bent(n);  // sin_i(x) and (i pi / L)^2 sin_i(x) at one point
   for (std::size_t p = 0; p + 1 < diagram.size(); ++p) {
     const double xa = diagram[p].x - x0, xb = diagram[p + 1].x - x0;
     if (xb - xa <= 0) continue;
@@ -92,18 +101,18 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
       G.bottomRightCorner(n, n).noalias() += (Q * load_height) * sines * sines.transpose();
     }
   // G x = mu K x with K diagonal and positive: mu of K^-1/2 G K^-1/2; lambda = 1 / mu_max.
-  const Eigen::VectorXd r = K.cwiseSqrt().cwiseInverse();
-  const Eigen::MatrixXd S = r.asDiagonal() * G * r.asDiagonal();
+  const Vector r = K.cwiseSqrt().cwiseInverse();
+  const Matrix S = r.asDiagonal() * G * r.asDiagonal();
   double mu = 0;
   if (load_height == 0) {
     // S = [0 C; C^T 0]: its eigenvalues are plus and minus the singular values of C, so mu_max is
     // the square root of the largest eigenvalue of C^T C (half the size, an eighth of the work).
-    const Eigen::MatrixXd C = S.topRightCorner(n, n);
-    const Eigen::MatrixXd CtC = C.transpose() * C;
-    const Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> solver(CtC, Eigen::EigenvaluesOnly);
+    const Matrix C = S.topRightCorner(n, n);
+    const Matrix CtC = C.transpose() * C;
+    const Eigen::SelfAdjointEigenSolver<Matrix> solver(CtC, Eigen::EigenvaluesOnly);
     mu = std::sqrt(std::max(0.0, solver.eigenvalues().maxCoeff()));
   } else {
-    const Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> solver(S, Eigen::EigenvaluesOnly);
+    const Eigen::SelfAdjointEigenSolver<Matrix> solver(S, Eigen::EigenvaluesOnly);
     mu = solver.eigenvalues().maxCoeff();
   }
   if (mu <= 0) return std::numeric_limits<double>::infinity();

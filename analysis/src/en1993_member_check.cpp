@@ -273,7 +273,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     in.material = material_for_section(model.materials[first.material], *in.section);
     if (m < buckling.size()) in.buckling = buckling[m];
     for (const LoadResult* r : results) {
-      const LineResult line = member_line(model, *r, chains[m]);
+      const LineResult line = member_line(model, *r, chains[m], LineDetail::stations);
       in.length = line.length;
       for (CheckResult& c : check_member(in, line, r->name, factors)) {
         auto [it, inserted] = worst[m].try_emplace(c.check, c);

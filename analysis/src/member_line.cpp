@@ -53,14 +53,15 @@ ElementState element_state(const FrameModel& model, const LoadResult& result, st
   return es;
 }
 
-LineResult element_line(const FrameModel& model, const LoadResult& result, std::size_t element, std::size_t stations) {
-  return recover_element(element_state(model, result, element), stations > 0 ? stations : result.stations);
+LineResult element_line(const FrameModel& model, const LoadResult& result, std::size_t element, std::size_t stations,
+                        LineDetail detail) {
+  return recover_element(element_state(model, result, element), stations > 0 ? stations : result.stations, detail);
 }
 
-LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member) {
+LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member, LineDetail detail) {
   std::vector<LineResult> parts;
   parts.reserve(member.elements.size());
-  for (std::size_t e : member.elements) parts.push_back(element_line(model, result, e));
+  for (std::size_t e : member.elements) parts.push_back(element_line(model, result, e, 0, detail));
   return join_elements(parts);
 }
 

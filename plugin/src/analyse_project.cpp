@@ -1,3 +1,4 @@
+#include "stepframe/analysis/blas_info.hpp"
 #include "stepframe/analysis/solve.hpp"
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/project_reader.hpp"
@@ -62,16 +63,19 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   Analysis a;
   a.project = std::move(project);
   a.file_length_unit = step.length_unit;
+  report("wireframe", 0);
   a.wireframe = geometry::build_wireframe(step, wireframe_options(a.project));
   spdlog::info("{}: {} members, {} nodes (file unit {})", a.project.model.string(), a.wireframe.members.size(),
                a.wireframe.nodes.size(), step.length_unit);
   log_diagnostics(a.project.model, a.wireframe.diagnostics);
   if (geometry::has_errors(a.wireframe.diagnostics))
     throw InputError(a.project.model.string() + ": the model has errors (listed above); fix them in the CAD model");
-  report("geometry", 1);
+  report("wireframe", 1);
 
   report("model", 0);
   a.built = build_frame_model(a.project, a.wireframe);
+  if (analysis::optimised_blas()) spdlog::info("linear algebra: CHOLMOD on {}", analysis::blas_description());
+  else spdlog::warn("linear algebra: CHOLMOD on {}", analysis::blas_description());
 
   analysis::SolveOptions options;
   options.progress = [&](std::string_view stage, double f) { report(stage, f); };

@@ -11,6 +11,7 @@
 #include <algorithm>
 #include <cctype>
 #include <fstream>
+#include <future>
 #include <optional>
 #include <set>
 
@@ -99,6 +100,9 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
            (selection == VtkSelection::governing &&
             std::find(governing.begin(), governing.end(), result) != governing.end());
   };
+  // The report (its pictures are rendered on threads of their own) is made meanwhile; it reads the
+  // analysis only and calls no one back, so it may run beside the writers.
+  auto report = std::async(std::launch::async, [&analysis] { return report_html(analysis); });
   try {
     std::set<std::string> used;
     std::vector<viz::IndexEntry> index;
@@ -132,14 +136,14 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
     text_file("checks.csv", checks_csv(analysis));
     text_file("takeoff.csv", takeoff_csv(analysis));
     text_file("end_forces.csv", end_forces_csv(analysis));
-    control.report("report", 0);
-    text_file("report.html", report_html(analysis));
     control.report("results.json", 0);
     {
       std::ofstream out(start(out_dir / "results.json"), std::ios::binary);
       write_results_json(analysis, [&](std::string_view piece) { out.write(piece.data(), static_cast<std::streamsize>(piece.size())); });
       if (!out.flush()) throw std::runtime_error((out_dir / "results.json").string() + ": could not write");
     }
+    control.report("report", 0);
+    text_file("report.html", report.get());
   } catch (...) {
     for (const auto& f : finals) std::filesystem::remove(temporary_name(f), ec);
     throw;
@@ -147,7 +151,7 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
   // Everything is complete: only now do the files take their real names.
   for (const auto& f : finals) std::filesystem::rename(temporary_name(f), f);
   spdlog::info("wrote {} files to {}", finals.size(), out_dir.string());
-  if (control.progress) control.progress("results.json", 1.0);  // the run is complete: no cancelling now
+  if (control.progress) control.progress("report", 1.0);  // the run is complete: no cancelling now
   return finals;
 }
 

@@ -121,7 +121,7 @@ void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameM
     const Eigen::Matrix3d axes =
         analysis::local_axes(model.nodes[element.nodes[0]], model.nodes[element.nodes[1]], element.roll);
     const Eigen::Vector3d y = axes.row(1).transpose(), z = axes.row(2).transpose();
-    const analysis::LineResult line = analysis::element_line(model, result, e, stations);
+    const analysis::LineResult line = analysis::element_line(model, result, e, stations, analysis::LineDetail::stations);
     vtkIdType p = first_point[e], q = first_quad[e];
     for (const auto& ring : outlines[element.section]) {
       const auto n = static_cast<vtkIdType>(ring.size());

@@ -35,7 +35,7 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   auto moment_y = detail::float_array("My", 1, count);
   auto moment_z = detail::float_array("Mz", 1, count);
   analysis::parallel_for(chains.size(), [&](std::size_t m) {
-    const analysis::LineResult line = analysis::member_line(model, result, chains[m]);
+    const analysis::LineResult line = analysis::member_line(model, result, chains[m], analysis::LineDetail::stations);
     vtkIdType p = first[m];
     for (const analysis::Station& st : line.stations) {
       detail::set(positions, p, st.position);

@@ -62,8 +62,8 @@ nlohmann::json checks_json(const std::vector<analysis::CheckResult>& checks);
 /// Writes results.json, the tables, the report and the VTK files the
 /// project's `outputs` ask for under `out_dir` (vtk/NAME.vtu, ...). Every file
 /// is written under a temporary name first and renamed only when all are
-/// complete. Reports the stages "vtk", "tables", "report" and "results.json"
-/// to `control`. Returns the files written.
+/// complete. Reports the stages "vtk", "tables", "results.json" and "report"
+/// to `control` ("report" 1 when every file is in place). Returns the files written.
 std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir,
                                                  const RunControl& control = {});
 

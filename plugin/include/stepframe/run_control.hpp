@@ -17,8 +17,8 @@ namespace stepframe {
 /// Called as work goes on: a stage name and the fraction of that stage done,
 /// in [0, 1]. The stages, in order: "project", "geometry", "model",
 /// "assembly", "factorisation", "recovery", "buckling" (when asked for),
-/// "checks", then, when files are written, "vtk", "tables", "report" and
-/// "results.json", which reports 1 when every file is in place. Each stage
+/// "checks", then, when files are written, "vtk", "tables", "results.json"
+/// and "report", which reports 1 when every file is in place. Each stage
 /// reports 0 when it starts.
 using ProgressCallback = std::function<void(std::string_view stage, double fraction)>;
 

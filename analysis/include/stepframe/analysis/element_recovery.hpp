@@ -60,9 +60,19 @@ struct ElementState {
 /// Forces and moments the two nodes exert on the element, local axes, start then end.
 Vector12d element_end_actions(const ElementState& state);
 
+/// How much of a line to recover.
+enum class LineDetail {
+  full,      ///< stations, exact diagram extremes, stresses and local deflection (the summary)
+  stations,  ///< the stations only (forces, displacements, stresses at each; end forces and
+             ///< length): what checks, pictures and VTK files read. The extremes, the
+             ///< largest stresses between stations and the local deflection are left at zero.
+};
+
 /// End forces, `stations` evenly spaced stations (both ends included, at
-/// least 2), stresses, exact diagram extremes and the largest deflection from
-/// the deformed chord (located on a grid four times finer than the stations).
-LineResult recover_element(const ElementState& state, std::size_t stations);
+/// least 2) with their stresses and, in full, the exact diagram extremes, the
+/// largest stresses (at the stations and at the extremes' candidate points)
+/// and the largest deflection from the deformed chord (the highest stations,
+/// refined by golden-section search).
+LineResult recover_element(const ElementState& state, std::size_t stations, LineDetail detail = LineDetail::full);
 
 }  // namespace stepframe::analysis

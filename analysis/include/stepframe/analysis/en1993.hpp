@@ -119,9 +119,12 @@ struct DiagramPoint {
 /// sine terms each for lateral displacement and twist (Timoshenko & Gere,
 /// Theory of Elastic Stability, 2nd ed., 1961, 6.3). The transverse loads act
 /// `load_height` above the shear centre, towards it (destabilising; 0 = at the
-/// shear centre). Infinite when the diagram has no moment.
+/// shear centre). Infinite when the diagram has no moment. Ten terms (the
+/// default; at most 32) agree with twenty-four within 0.01% for end moments,
+/// a uniform load and a central point load, at the shear centre or on the
+/// top flange of an IPE 300 over 6 m.
 double critical_moment_for_diagram(const LateralTorsionalStiffness& stiffness, const std::vector<DiagramPoint>& diagram,
-                                   double load_height = 0, int terms = 16);
+                                   double load_height = 0, int terms = 10);
 
 /// Equivalent uniform moment factor Cm of Annex B Table B.3 for a linear
 /// diagram: 0.6 + 0.4 psi >= 0.4.

@@ -20,13 +20,14 @@ LocalLoads element_loads(const LoadResult& result, std::size_t element);
 /// section is referenced, not copied: `model` must outlive the state).
 ElementState element_state(const FrameModel& model, const LoadResult& result, std::size_t element);
 
-/// The element's full results: `stations` stations (0: result.stations),
-/// extremes, stresses and local deflection (recover_element).
+/// The element's results: `stations` stations (0: result.stations) and, in
+/// full, extremes, stresses and local deflection (recover_element).
 LineResult element_line(const FrameModel& model, const LoadResult& result, std::size_t element,
-                        std::size_t stations = 0);
+                        std::size_t stations = 0, LineDetail detail = LineDetail::full);
 
-/// The member's full results: its elements' lines joined (join_elements).
-LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member);
+/// The member's results: its elements' lines joined (join_elements).
+LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member,
+                       LineDetail detail = LineDetail::full);
 
 /// Joins the results of a member's elements (in order from its start):
 /// stations in order with x measured along the member from its start (both

@@ -1,0 +1,38 @@
+#include "stepframe/analysis/blas_info.hpp"
+
+#include <fmt/format.h>
+
+#ifdef STEPFRAME_HAVE_OPENBLAS
+// OpenBLAS' own query functions (its cblas.h names them; declared here so that no
+// OpenBLAS header is needed).
+extern "C" {
+char* openblas_get_config(void);
+char* openblas_get_corename(void);
+int openblas_get_num_threads(void);
+int openblas_get_parallel(void);
+}
+#endif
+
+namespace stepframe::analysis {
+
+bool optimised_blas() {
+#ifdef STEPFRAME_HAVE_OPENBLAS
+  return true;
+#else
+  return false;
+#endif
+}
+
+std::string blas_description() {
+#ifdef STEPFRAME_HAVE_OPENBLAS
+  const int parallel = openblas_get_parallel();  // 0 sequential, 1 pthreads, 2 OpenMP
+  const char* how = parallel == 1 ? "pthreads" : parallel == 2 ? "OpenMP" : "sequential";
+  return fmt::format("OpenBLAS ({}; {}, {} thread(s), core {})", openblas_get_config(), how,
+                     openblas_get_num_threads(), openblas_get_corename());
+#else
+  return "the reference BLAS (this build found no OpenBLAS: large factorisations are several times slower; "
+         "install libopenblas-dev and rebuild)";
+#endif
+}
+
+}  // namespace stepframe::analysis
