@@ -12,6 +12,7 @@
 #include <spdlog/spdlog.h>
 
 #include <cstdio>
+#include <map>
 #include <optional>
 #include <iostream>
 
@@ -28,11 +29,11 @@ void print_timings(stepframe::cli::ProgressDisplay& display) {
 }
 
 int run_command(const std::filesystem::path& project, const std::filesystem::path& out, bool json, bool show_progress,
-                bool timings) {
+                bool timings, std::optional<stepframe::VtkSelection> vtk) {
   stepframe::cli::ProgressDisplay display(show_progress);
   stepframe::RunControl control;
   control.progress = display.callback();
-  const auto outcome = stepframe::run_project(project, out, control);
+  const auto outcome = stepframe::run_project(project, out, control, vtk);
   display.clear();
   if (timings) print_timings(display);
   const int status = static_cast<int>(outcome.status);
@@ -104,6 +105,14 @@ int main(int argc, char** argv) {
   run->add_flag("--no-progress", no_progress, "No progress line (it is shown only when stderr is a terminal anyway)");
   bool run_timings = false;
   run->add_flag("--timings", run_timings, "Print each stage's wall time on stderr after the run");
+  std::optional<stepframe::VtkSelection> run_vtk;
+  const std::map<std::string, stepframe::VtkSelection> vtk_choices{
+      {"all", stepframe::VtkSelection::all}, {"governing", stepframe::VtkSelection::governing},
+      {"none", stepframe::VtkSelection::none}};
+  run->add_option("--vtk", run_vtk,
+                  "VTK files for every result (all), for the governing combinations (governing) or none, "
+                  "whatever the project's outputs: block says")
+      ->transform(CLI::CheckedTransformer(vtk_choices, CLI::ignore_case));
 
   auto* inspect = app.add_subcommand("inspect", "Show what a STEP file holds: unit, extent, attributes, diagnostics; "
                                                 "through a project file also the members its rules leave without "
@@ -138,7 +147,7 @@ int main(int argc, char** argv) {
   spdlog::set_level(quiet ? spdlog::level::warn : verbose ? spdlog::level::debug : spdlog::level::info);
 
   try {
-    if (*run) return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings);
+    if (*run) return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk);
     if (*sections) return stepframe::cli::sections_command(sections_options);
     if (*init) return stepframe::cli::init_command(init_model, init_output, init_force, init_tolerance_mm);
     return inspect_command(model, tolerance_mm, inspect_json);

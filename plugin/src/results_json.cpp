@@ -34,6 +34,11 @@ void write_checks(JsonWriter& w, const std::vector<analysis::CheckResult>& check
     w.key("limit").value(c.limit);
     w.key("utilisation").value(c.utilisation);
     w.key("pass").value(c.pass);
+    if (!c.details.empty()) {
+      w.key("details").begin_object();
+      for (const auto& [name, value] : c.details) w.key(name).value(value);
+      w.end_object();
+    }
     w.end_object();
   }
   w.end_array();

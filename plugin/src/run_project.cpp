@@ -8,11 +8,15 @@
 namespace stepframe {
 
 RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::filesystem::path& out_dir,
-                       const RunControl& control, const std::string& context) {
+                       const RunControl& control, const std::string& context, std::optional<VtkSelection> vtk) {
   const ScopedLogSink log_route(control.log_sink, control.log_level);
   RunOutcome outcome;
   try {
     outcome.analysis = analyse();
+    if (vtk) {
+      auto& outputs = outcome.analysis->project.outputs;
+      outputs.line_models = outputs.surfaces = outputs.buckling_modes = *vtk;
+    }
     if (!out_dir.empty()) {
       outcome.files = write_outputs(*outcome.analysis, out_dir, control);
     }
@@ -34,9 +38,9 @@ RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::file
 }
 
 RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir,
-                       const RunControl& control) {
+                       const RunControl& control, std::optional<VtkSelection> vtk) {
   return run_guarded([&] { return analyse_project(project_file, control); },
-                     out_dir.empty() ? default_out_dir(project_file) : out_dir, control, project_file.string());
+                     out_dir.empty() ? default_out_dir(project_file) : out_dir, control, project_file.string(), vtk);
 }
 
 }  // namespace stepframe

@@ -86,16 +86,19 @@ struct RunOutcome {
 
 /// analyse_project + write_outputs, with every failure mapped to its exit
 /// status and message (nothing is written unless the analysis completes).
-/// `out_dir` empty means default_out_dir(project_file).
+/// `out_dir` empty means default_out_dir(project_file). `vtk`, when given,
+/// sets every kind of VTK file (line models, surfaces, buckling modes) to
+/// that selection, whatever the project's `outputs` say.
 RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir = {},
-                       const RunControl& control = {});
+                       const RunControl& control = {}, std::optional<VtkSelection> vtk = std::nullopt);
 
 /// Runs `analyse`, writes the outputs under `out_dir` unless it is empty, and
 /// maps every failure to its exit status and message (`context` names the
 /// input in messages that do not already). Routes the log to control.log_sink
 /// for the duration. run_project and the embedding API share it.
 RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::filesystem::path& out_dir,
-                       const RunControl& control, const std::string& context);
+                       const RunControl& control, const std::string& context,
+                       std::optional<VtkSelection> vtk = std::nullopt);
 
 /// A short human summary: status, governing member and check, per-result extremes.
 std::string summary_text(const Analysis& analysis);

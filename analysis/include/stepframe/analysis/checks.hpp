@@ -9,6 +9,7 @@
 #include <cstddef>
 #include <limits>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace stepframe::analysis {
@@ -26,6 +27,10 @@ struct CheckResult {
   double limit = 0;         ///< its limit, same unit
   double utilisation = 0;   ///< value / limit
   bool pass = true;
+  /// The intermediate values the verdict stands on, in the order the clause
+  /// works them out (e.g. "Mcr", "lambda_LT", "chi_LT"), SI units or ratios:
+  /// what an engineer needs to follow the check by hand.
+  std::vector<std::pair<std::string, double>> details;
 };
 
 /// Elastic fibre stress: the von Mises stress at every stress point and
