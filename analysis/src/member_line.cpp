@@ -58,10 +58,11 @@ LineResult element_line(const FrameModel& model, const LoadResult& result, std::
   return recover_element(element_state(model, result, element), stations > 0 ? stations : result.stations, detail);
 }
 
-LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member, LineDetail detail) {
+LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member, LineDetail detail,
+                       std::size_t stations) {
   std::vector<LineResult> parts;
   parts.reserve(member.elements.size());
-  for (std::size_t e : member.elements) parts.push_back(element_line(model, result, e, 0, detail));
+  for (std::size_t e : member.elements) parts.push_back(element_line(model, result, e, stations, detail));
   return join_elements(parts);
 }
 

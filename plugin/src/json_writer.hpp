@@ -1,8 +1,9 @@
 #pragma once
 // A streaming JSON writer: text is appended to a buffer and handed to a sink
 // in large pieces, so a document of hundreds of megabytes is never held whole
-// (and never as a tree). Numbers are written in the shortest form that reads
-// back to the same double; non-finite numbers become null.
+// (and never as a tree). Numbers are written with twelve significant digits
+// (a relative rounding of 5e-13, far below any engineering tolerance, and a
+// quarter of the text of the full 17); non-finite numbers become null.
 
 #include <fmt/format.h>
 
@@ -40,7 +41,7 @@ class JsonWriter {
 
   void value(double v) {
     separate();
-    if (std::isfinite(v)) fmt::format_to(std::back_inserter(out_), "{}", v);
+    if (std::isfinite(v)) fmt::format_to(std::back_inserter(out_), "{:.12g}", v);
     else append("null");
   }
   void value(std::size_t v) {

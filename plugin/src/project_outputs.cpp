@@ -2,6 +2,8 @@
 
 #include "project_blocks.hpp"
 
+#include <cmath>
+
 namespace stepframe::detail {
 namespace {
 
@@ -18,7 +20,8 @@ VtkSelection read_selection(const Reader& r, const YAML::Node& node, const std::
 OutputsSpec read_outputs(const Reader& r, const YAML::Node& node) {
   OutputsSpec spec;
   if (!node) return spec;
-  r.check_keys(node, "outputs", {"line_models", "surfaces", "buckling_modes", "compression", "pictures"});
+  r.check_keys(node, "outputs", {"line_models", "surfaces", "buckling_modes", "compression", "pictures",
+                                 "line_model_points", "surface_sections"});
   if (node["line_models"]) spec.line_models = read_selection(r, node["line_models"], "outputs.line_models");
   if (node["surfaces"]) spec.surfaces = read_selection(r, node["surfaces"], "outputs.surfaces");
   if (node["buckling_modes"]) spec.buckling_modes = read_selection(r, node["buckling_modes"], "outputs.buckling_modes");
@@ -30,6 +33,15 @@ OutputsSpec read_outputs(const Reader& r, const YAML::Node& node) {
     else r.fail(node["compression"], "outputs.compression", "expected lz4, zlib or none, got '" + value + "'");
   }
   if (node["pictures"]) spec.pictures = r.boolean(node["pictures"], "outputs.pictures");
+  auto count = [&](const char* key, std::size_t& value) {
+    if (!node[key]) return;
+    const std::string path = std::string("outputs.") + key;
+    const double n = r.number(node[key], path, dimension::none);
+    if (!(n >= 2 && n <= 101 && n == std::floor(n))) r.fail(node[key], path, "must be a whole number from 2 to 101");
+    value = static_cast<std::size_t>(n);
+  };
+  count("line_model_points", spec.line_model_points);
+  count("surface_sections", spec.surface_sections);
   return spec;
 }
 

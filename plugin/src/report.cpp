@@ -108,14 +108,16 @@ std::string report_html(const Analysis& a) {
   h += fmt::format("<dt>Checks</dt><dd>{} of {} pass</dd>\n</dl>\n", a.checks.size() - static_cast<std::size_t>(failed),
                    a.checks.size());
 
-  const auto& strength = picture_result(a, false);
-  const auto& service = picture_result(a, true);
-  h += "<h2>Pictures</h2>\n";
-  h += figure(viz::draw_stress_picture(model, strength), "Stress under " + strength.name);
-  viz::PictureOptions deformed;
-  deformed.deformed = true;
-  const auto shape = viz::draw_stress_picture(model, service, deformed);
-  h += figure(shape, fmt::format("Deformed shape under {} (displacements x {:.0f})", service.name, shape.deformation_scale));
+  if (a.project.outputs.pictures) {
+    const auto& strength = picture_result(a, false);
+    const auto& service = picture_result(a, true);
+    h += "<h2>Pictures</h2>\n";
+    h += figure(viz::draw_stress_picture(model, strength), "Stress under " + strength.name);
+    viz::PictureOptions deformed;
+    deformed.deformed = true;
+    const auto shape = viz::draw_stress_picture(model, service, deformed);
+    h += figure(shape, fmt::format("Deformed shape under {} (displacements x {:.0f})", service.name, shape.deformation_scale));
+  }
 
   if (!frame_checks.empty()) {
     h += "<h2>Frame</h2>\n<table><tr><th>check</th><th>combination</th><th>value</th><th>utilisation</th>"

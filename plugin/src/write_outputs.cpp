@@ -113,12 +113,14 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
       const std::filesystem::path line = std::filesystem::path("vtk") / (stem + ".vtu");
       const std::filesystem::path surface = std::filesystem::path("vtk") / (stem + ".surface.vtu");
       if (wanted(outputs.line_models, i)) {
-        viz::write_line_model_vtu(start(out_dir / line), model, result, utilisation, outputs.compression);
+        viz::write_line_model_vtu(start(out_dir / line), model, result, utilisation,
+                                  {outputs.line_model_points, outputs.compression});
         index.push_back({"line model", result.name, line});
       }
       if (wanted(outputs.surfaces, i)) {
         viz::SurfaceOptions surface_options;
         surface_options.compression = outputs.compression;
+        surface_options.sections_per_element = outputs.surface_sections;
         viz::write_surface_vtu(start(out_dir / surface), model, result, surface_options);
         index.push_back({"surface model", result.name, surface});
       }

@@ -122,7 +122,7 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
   }
   SECTION("the surface model shows the fibre stresses") {
     const auto grid = read_vtu(out / "vtk" / "ULS.surface.vtu");
-    REQUIRE(grid->GetNumberOfCells() > 100);
+    REQUIRE(grid->GetNumberOfCells() > 50);  // three members, outlines at three sections of each element
     auto* fibre = grid->GetPointData()->GetArray("fibre_stress");
     REQUIRE(fibre);
     double range[2];
@@ -140,7 +140,7 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
     const auto mode = read_vtu(out / "vtk" / "ULS.mode1.vtu");
     REQUIRE(mode->GetPointData()->GetArray("mode_shape"));
     CHECK(mode->GetFieldData()->GetArray("alpha")->GetTuple1(0) ==
-          Approx(j["results"][2]["alpha_cr"].get<double>()).epsilon(1e-12));
+          Approx(j["results"][2]["alpha_cr"].get<double>()).epsilon(1e-11));  // results.json: twelve digits
     vtkNew<vtkXMLMultiBlockDataReader> reader;
     reader->SetFileName((out / "frame.vtm").string().c_str());
     reader->Update();

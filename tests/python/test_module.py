@@ -75,7 +75,7 @@ class RunTest(unittest.TestCase):
                 self.assertTrue(0.0 <= fraction <= 1.0)
                 if not stages or stages[-1] != stage:
                     stages.append(stage)
-            self.assertEqual(stages, ["project", "geometry", "model", "assembly", "factorisation", "recovery",
+            self.assertEqual(stages, ["project", "geometry", "wireframe", "model", "assembly", "factorisation", "recovery",
                                       "buckling", "checks", "vtk", "tables", "results.json", "report"])
             self.assertIn("PASS", run["summary"])
 

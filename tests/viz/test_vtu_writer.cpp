@@ -29,14 +29,16 @@ TEST_CASE("the line model carries every station of every member into the file") 
   const auto chains = analysis::member_chains(model);
 
   const auto file = std::filesystem::temp_directory_path() / "stepframe-test-line-model.vtu";
-  viz::write_line_model_vtu(file, model, result, {0.25, 0.75});
+  viz::LineModelOptions options;
+  options.points_per_element = 7;
+  viz::write_line_model_vtu(file, model, result, {0.25, 0.75}, options);
 
   vtkNew<vtkXMLUnstructuredGridReader> reader;
   reader->SetFileName(file.string().c_str());
   reader->Update();
   vtkUnstructuredGrid* grid = reader->GetOutput();
   REQUIRE(grid->GetNumberOfCells() == 2);
-  REQUIRE(grid->GetNumberOfPoints() == static_cast<vtkIdType>(2 * result.stations));
+  REQUIRE(grid->GetNumberOfPoints() == 2 * 7);
   CHECK(grid->GetCellType(0) == VTK_POLY_LINE);
 
   auto* displacement = grid->GetPointData()->GetArray("displacement");
@@ -53,7 +55,7 @@ TEST_CASE("the line model carries every station of every member into the file") 
   constexpr double single = 1e-6;  // 32-bit floats: about seven significant digits
   vtkIdType p = 0;
   for (std::size_t m = 0; m < chains.size(); ++m) {
-    const analysis::LineResult line = analysis::member_line(model, result, chains[m]);
+    const analysis::LineResult line = analysis::member_line(model, result, chains[m], analysis::LineDetail::stations, 7);
     const double u_scale = result.displacements.cwiseAbs().maxCoeff();
     for (const auto& st : line.stations) {
       double xyz[3];
@@ -75,7 +77,7 @@ TEST_CASE("the line model carries every station of every member into the file") 
   }
   // The second member's middle station sits 1 m up the vertical member from (2, 0, 0).
   double middle[3];
-  grid->GetPoint(static_cast<vtkIdType>(result.stations + result.stations / 2), middle);
+  grid->GetPoint(7 + 3, middle);
   CHECK(middle[0] == Approx(2.0));
   CHECK(middle[2] == Approx(1.0));
   CHECK(grid->GetCellData()->GetArray("utilisation")->GetTuple1(1) == Approx(0.75));

@@ -34,15 +34,19 @@ Picture draw_stress_picture(const analysis::FrameModel& model, const analysis::L
   // Every member's stations, recovered once (members spread over the cores).
   const auto chains = analysis::member_chains(model);
   std::vector<std::vector<analysis::Station>> lines(chains.size());
+  // A picture a few hundred pixels wide needs few points: five per element keep the deflected
+  // curve and the stress gradient, and a large frame draws several times faster than with every
+  // station. The scale's top is the members' exact largest stress.
+  constexpr std::size_t points_per_element = 5;
   analysis::parallel_for(chains.size(), [&](std::size_t m) {
-    lines[m] = analysis::member_line(model, result, chains[m], analysis::LineDetail::stations).stations;
+    lines[m] =
+        analysis::member_line(model, result, chains[m], analysis::LineDetail::stations, points_per_element).stations;
   });
+  if (options.stress_max <= 0)
+    for (const auto& member : result.members) picture.stress_max = std::max(picture.stress_max, member.max_von_mises);
   double largest_u = 0;
   for (const auto& stations : lines)
-    for (const auto& st : stations) {
-      if (options.stress_max <= 0) picture.stress_max = std::max(picture.stress_max, st.von_mises);
-      largest_u = std::max(largest_u, st.displacement.norm());
-    }
+    for (const auto& st : stations) largest_u = std::max(largest_u, st.displacement.norm());
   // Deformed pictures show the largest displacement as 5% of the frame's extent.
   picture.deformation_scale = options.deformed && largest_u > 0 ? 0.05 * span / largest_u : 0.0;
 
@@ -50,18 +54,12 @@ Picture draw_stress_picture(const analysis::FrameModel& model, const analysis::L
   scene.width = options.width;
   scene.height = options.height;
   scene.stress_max = picture.stress_max;
-  // A picture a few hundred pixels wide needs fewer points than the stations: about five per
-  // member keep the deflected curve and the stress gradient (the scale's top still comes from
-  // every station), and a large frame draws several times faster.
   for (const auto& stations : lines) {
     detail::ScenePolyline drawn, undeformed;
-    const std::size_t last = stations.size() - 1, step = std::max<std::size_t>(1, last / 4);
-    auto draw = [&](const analysis::Station& st) {
+    for (const auto& st : stations) {
       drawn.push_back({st.position + picture.deformation_scale * st.displacement, st.von_mises});
       undeformed.push_back({st.position, 0.0});
-    };
-    for (std::size_t k = 0; k < last; k += step) draw(stations[k]);
-    draw(stations[last]);
+    }
     scene.coloured.push_back(std::move(drawn));
     if (options.deformed) scene.grey.push_back(std::move(undeformed));
   }

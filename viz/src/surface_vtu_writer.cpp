@@ -64,14 +64,14 @@ analysis::SectionRing simplified(const analysis::SectionRing& ring, double toler
 }
 
 // The outline drawn for a section: its rings without the detail a picture
-// cannot show (deviations under 2% of the section's smaller extent), or a
+// cannot show (deviations under 5% of the section's smaller extent), or a
 // depth x width rectangle for sections given by properties.
 std::vector<analysis::SectionRing> drawn_outline(const analysis::Section& s) {
   if (s.outline.empty()) {
     const double y = 0.5 * s.width, z = 0.5 * s.depth;
     return {{{-y, -z}, {y, -z}, {y, z}, {-y, z}}};
   }
-  const double tolerance = 0.02 * std::min(s.depth, s.width);
+  const double tolerance = 0.05 * std::min(s.depth, s.width);
   std::vector<analysis::SectionRing> rings;
   for (const auto& ring : s.outline) rings.push_back(simplified(ring, tolerance));
   return rings;

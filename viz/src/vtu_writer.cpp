@@ -12,21 +12,23 @@
 #include <vtkStringArray.h>
 #include <vtkUnstructuredGrid.h>
 
+#include <algorithm>
 #include <stdexcept>
 
 namespace stepframe::viz {
 
 void write_line_model_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
                           const analysis::LoadResult& result, const std::vector<double>& member_utilisation,
-                          VtkCompression compression) {
+                          const LineModelOptions& options) {
   const auto chains = analysis::member_chains(model);
   if (result.members.size() != chains.size())
     throw std::invalid_argument("write_line_model_vtu: result does not belong to this model");
 
   // Every member's stations, in member order: member m owns points [first[m], first[m + 1]).
+  const std::size_t stations = std::max<std::size_t>(2, options.points_per_element);
   std::vector<vtkIdType> first(chains.size() + 1, 0);
   for (std::size_t m = 0; m < chains.size(); ++m)
-    first[m + 1] = first[m] + static_cast<vtkIdType>(chains[m].elements.size() * result.stations);
+    first[m + 1] = first[m] + static_cast<vtkIdType>(chains[m].elements.size() * stations);
   const vtkIdType count = first.back();
   auto positions = detail::float_array("positions", 3, count);
   auto displacement = detail::float_array("displacement", 3, count);
@@ -35,7 +37,8 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   auto moment_y = detail::float_array("My", 1, count);
   auto moment_z = detail::float_array("Mz", 1, count);
   analysis::parallel_for(chains.size(), [&](std::size_t m) {
-    const analysis::LineResult line = analysis::member_line(model, result, chains[m], analysis::LineDetail::stations);
+    const analysis::LineResult line =
+        analysis::member_line(model, result, chains[m], analysis::LineDetail::stations, stations);
     vtkIdType p = first[m];
     for (const analysis::Station& st : line.stations) {
       detail::set(positions, p, st.position);
@@ -83,7 +86,7 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   grid->GetCellData()->AddArray(member_id);
   grid->GetCellData()->AddArray(section_id);
   grid->GetCellData()->AddArray(section);
-  detail::write_grid(file, grid, compression);
+  detail::write_grid(file, grid, options.compression);
 }
 
 }  // namespace stepframe::viz

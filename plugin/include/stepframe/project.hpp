@@ -161,6 +161,8 @@ struct OutputsSpec {
   VtkSelection surfaces = VtkSelection::governing;       ///< outputs.surfaces
   VtkSelection buckling_modes = VtkSelection::governing;  ///< outputs.buckling_modes
   viz::VtkCompression compression = viz::VtkCompression::lz4;  ///< outputs.compression
+  std::size_t line_model_points = 11;  ///< outputs.line_model_points: points per element in line models
+  std::size_t surface_sections = 3;    ///< outputs.surface_sections: outlines per element in surfaces
   bool pictures = true;                                  ///< outputs.pictures: the report's pictures
 };
 

@@ -15,7 +15,8 @@
 namespace stepframe {
 
 /// Called as work goes on: a stage name and the fraction of that stage done,
-/// in [0, 1]. The stages, in order: "project", "geometry", "model",
+/// in [0, 1]. The stages, in order: "project", "geometry" (reading the
+/// STEP file), "wireframe" (members and nodes from it), "model",
 /// "assembly", "factorisation", "recovery", "buckling" (when asked for),
 /// "checks", then, when files are written, "vtk", "tables", "results.json"
 /// and "report", which reports 1 when every file is in place. Each stage

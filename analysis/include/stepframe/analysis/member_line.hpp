@@ -25,9 +25,10 @@ ElementState element_state(const FrameModel& model, const LoadResult& result, st
 LineResult element_line(const FrameModel& model, const LoadResult& result, std::size_t element,
                         std::size_t stations = 0, LineDetail detail = LineDetail::full);
 
-/// The member's results: its elements' lines joined (join_elements).
+/// The member's results: its elements' lines joined (join_elements), each
+/// element with `stations` stations (0: result.stations).
 LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member,
-                       LineDetail detail = LineDetail::full);
+                       LineDetail detail = LineDetail::full, std::size_t stations = 0);
 
 /// Joins the results of a member's elements (in order from its start):
 /// stations in order with x measured along the member from its start (both

@@ -16,7 +16,7 @@ struct SurfaceOptions {
   /// Outlines drawn along each element, ends included (at least 2): the
   /// stresses and the deflected shape between them are interpolated by the
   /// viewer; the line model carries every station.
-  std::size_t sections_per_element = 5;
+  std::size_t sections_per_element = 3;
   VtkCompression compression = VtkCompression::lz4;
 };
 
@@ -24,9 +24,9 @@ struct SurfaceOptions {
 /// at `sections_per_element` evenly spaced stations of every element the
 /// outline of its section placed in the local y-z plane, consecutive outlines
 /// joined by quads. The outline is Section::outline without the detail a
-/// picture cannot show (points within 2% of the section's smaller extent of
-/// the line through their neighbours are dropped: fillets become a chamfer),
-/// or a depth x width rectangle when the section has none.
+/// picture cannot show (points within 5% of the section's smaller extent of
+/// the line through their neighbours are dropped: an I section keeps its
+/// twelve corners), or a depth x width rectangle when the section has none.
 /// Point data: "fibre_stress" (sigma = N/A + My z/Iy - Mz y/Iz at that outline
 /// point [Pa]; active scalars), "displacement" (of each outline point [m]: the axis translation plus
 /// the section's small rotation times the point's arm; warping left out).

@@ -6,14 +6,23 @@
 #include "stepframe/analysis/results.hpp"
 #include "stepframe/viz/vtk_compression.hpp"
 
+#include <cstddef>
 #include <filesystem>
 #include <vector>
 
 namespace stepframe::viz {
 
+struct LineModelOptions {
+  /// Points along each element (ends included, at least 2), recovered here
+  /// from the result: the deflected curve and the diagrams between them are
+  /// interpolated by the viewer (results.json has the exact extremes).
+  std::size_t points_per_element = 11;
+  VtkCompression compression = VtkCompression::lz4;
+};
+
 /// Writes `result` for `model` to `file` (binary, compressed appended data;
-/// 32-bit floats). Points are the undeformed station positions [m]: every
-/// station of every element (LoadResult::stations each), recovered here.
+/// 32-bit floats). Points are the undeformed station positions [m],
+/// `points_per_element` evenly spaced along each element.
 /// Point data: "displacement" (vector [m]; warp by it to see the deformed shape,
 ///             which then follows the element's own interpolation),
 ///             "von_mises" (largest at the station [Pa]), "N" [N], "My", "Mz" [N m]
@@ -26,6 +35,6 @@ namespace stepframe::viz {
 /// name and rename it. Throws std::runtime_error naming the file on failure.
 void write_line_model_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
                           const analysis::LoadResult& result, const std::vector<double>& member_utilisation = {},
-                          VtkCompression compression = VtkCompression::lz4);
+                          const LineModelOptions& options = {});
 
 }  // namespace stepframe::viz
