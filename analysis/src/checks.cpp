@@ -67,6 +67,7 @@ std::vector<CheckResult> check_stress(const FrameModel& model, const std::vector
     const Material material = material_for_section(model.materials[first.material], model.sections[first.section]);
     CheckResult r;
     r.check = "stress";
+    r.unit = "Pa";
     r.clause = fmt::format("EN 1993-1-1 6.2.1(5), von Mises at the section's stress points <= fy / gamma_M0 "
                            "(fy = {:.0f} MPa, gamma_M0 = {:.2f})",
                            material.fy / 1e6, gamma_M0);
@@ -89,6 +90,7 @@ std::vector<CheckResult> check_deflection(const FrameModel& model, const std::ve
     const double ratio = span_ratios.at(m), length = line.length;
     CheckResult r;
     r.check = "deflection";
+    r.unit = "m";
     if (cantilever) {
       // The free end's movement across the member relative to its root (includes the root's rotation).
       const std::size_t tip = free_end ? end : start, root = free_end ? start : end;
@@ -119,6 +121,7 @@ std::vector<CheckResult> check_drift(const FrameModel& model, const std::vector<
     if (std::abs(chord.z()) < 0.99 * chord.norm()) return r;  // not a column: no drift check
     const Eigen::Vector3d sway = translation(result, end) - translation(result, start);
     r.check = "drift";
+    r.unit = "m";
     r.clause = fmt::format("storey drift <= h/{:g} (EN 1990 A1.4.3, limit set by the project)", storey_ratio);
     r.station = line.length;
     r.value = sway.head<2>().norm();

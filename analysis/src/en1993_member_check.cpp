@@ -75,9 +75,11 @@ bool has_lateral_torsional_buckling(const Section& s) {
          s.Iw > 0;
 }
 
-CheckResult result(const std::string& check, std::string clause, double station, double value, double limit) {
+CheckResult result(const std::string& check, std::string clause, double station, double value, double limit,
+                   const char* unit = "1") {
   CheckResult r;
   r.check = check;
+  r.unit = unit;
   r.clause = std::move(clause);
   r.station = station;
   r.value = value;
@@ -169,7 +171,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
                          fmt::format("EN 1993-1-1 6.3.1, curves {}/{} (y/z), chi_y = {:.3f}, chi_z = {:.3f}, "
                                      "Lcr = {:.3g}/{:.3g} m",
                                      curve_name(curves.y), curve_name(curves.z), chi_y, chi_z, Ly, Lz),
-                         line.stations[n_station].x, NEd, NbRd));
+                         line.stations[n_station].x, NEd, NbRd, "N"));
   }
 
   // 6.3.1.4: open sections can also buckle by twisting (torsional, or torsional-flexural when the shear
@@ -185,7 +187,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
                                      "curve {}, chi = {:.3f}, lT = {:.3g} m",
                                      shear_centre_off_centroid(s) ? "torsional-flexural" : "torsional", Ncr / 1e3, curve_name(curves.z),
                                      chi_t, lT),
-                         line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1));
+                         line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1, "N"));
   }
 
   const int cls_member = classify(s, fy, -NEd, my.peak).section_class;
@@ -221,7 +223,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
         "6.3.2 lateral-torsional buckling",
         fmt::format("EN 1993-1-1 6.3.2.2, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}; {}", curve_name(curve),
                     Mcr / 1e3, chi_lt, basis),
-        line.stations[my.peak_station].x, my.peak, MbRd));
+        line.stations[my.peak_station].x, my.peak, MbRd, "N*m"));
   }
 
   if (NEd > 0) {

@@ -32,6 +32,14 @@ double member_length(const analysis::FrameModel& model, std::size_t member) {
 
 }  // namespace
 
+PeopleUnit people_unit(const std::string& si_unit) {
+  if (si_unit == "Pa") return {"MPa", 1e-6};
+  if (si_unit == "m") return {"mm", 1e3};
+  if (si_unit == "N") return {"kN", 1e-3};
+  if (si_unit == "N*m") return {"kN*m", 1e-3};
+  return {"", 1.0};  // a ratio
+}
+
 std::string checks_csv(const Analysis& a) {
   const auto& model = a.built.model;
   std::vector<const analysis::CheckResult*> governing(model.members.size(), nullptr);
@@ -39,21 +47,42 @@ std::string checks_csv(const Analysis& a) {
     if (c.member != analysis::whole_frame && (!governing[c.member] || c.utilisation > governing[c.member]->utilisation))
       governing[c.member] = &c;
 
-  std::string out = "member,entity,name,section,utilisation,check,clause,combination,station_m,pass\n";
+  std::string out = "member,entity,name,section,utilisation,value,limit,unit,check,clause,combination,station_m,pass\n";
   for (std::size_t m = 0; m < model.members.size(); ++m) {
     const auto& src = a.built.member_sources[m];
     const auto& section = model.sections[first_element(model, m).section].designation;
-    if (const auto* c = governing[m])
-      out += fmt::format("{},{},{},{},{:.4f},{},{},{},{:.4f},{}\n", m, csv_field(src.entity), csv_field(src.name),
-                         csv_field(section), c->utilisation, c->check, csv_field(c->clause), csv_field(c->combination),
+    if (const auto* c = governing[m]) {
+      const auto unit = people_unit(c->unit);
+      out += fmt::format("{},{},{},{},{:.4f},{:.6g},{:.6g},{},{},{},{},{:.4f},{}\n", m, csv_field(src.entity),
+                         csv_field(src.name), csv_field(section), c->utilisation, c->value * unit.factor,
+                         c->limit * unit.factor, unit.name, c->check, csv_field(c->clause), csv_field(c->combination),
                          c->station, c->pass ? "pass" : "FAIL");
-    else
-      out += fmt::format("{},{},{},{},,,,,,not checked\n", m, csv_field(src.entity), csv_field(src.name), csv_field(section));
+    } else {
+      out += fmt::format("{},{},{},{},,,,,,,,,not checked\n", m, csv_field(src.entity), csv_field(src.name),
+                         csv_field(section));
+    }
   }
   return out;
 }
 
 std::string takeoff_csv(const Analysis& a) {
+  const auto& model = a.built.model;
+  std::string out = "member,entity,name,section,material,centreline_length_mm,kg_per_m,mass_kg\n";
+  for (std::size_t m = 0; m < model.members.size(); ++m) {
+    const auto& element = first_element(model, m);
+    const auto& section = model.sections[element.section];
+    const auto& material = model.materials[element.material];
+    const double length = member_length(model, m);
+    const double per_metre = section.A * material.density;  // kg/m = A [m^2] x density [kg/m^3]
+    const auto& src = a.built.member_sources[m];
+    out += fmt::format("{},{},{},{},{},{:.1f},{:.2f},{:.2f}\n", m, csv_field(src.entity), csv_field(src.name),
+                       csv_field(section.designation), csv_field(material.name), length * 1e3, per_metre,
+                       per_metre * length);
+  }
+  return out;
+}
+
+std::string takeoff_by_section_csv(const Analysis& a) {
   const auto& model = a.built.model;
   struct Total {
     std::size_t count = 0;
@@ -61,25 +90,38 @@ std::string takeoff_csv(const Analysis& a) {
   };
   std::map<std::string, Total> per_section;
   Total overall;
-  std::string out = "member,entity,name,section,material,cut_length_mm,mass_per_metre_kg,mass_kg\n";
   for (std::size_t m = 0; m < model.members.size(); ++m) {
     const auto& element = first_element(model, m);
     const auto& section = model.sections[element.section];
-    const auto& material = model.materials[element.material];
     const double length = member_length(model, m);
-    const double per_metre = section.A * material.density;  // kg/m = A [m^2] x density [kg/m^3]
-    const double mass = per_metre * length;
-    const auto& src = a.built.member_sources[m];
-    out += fmt::format("{},{},{},{},{},{:.1f},{:.2f},{:.2f}\n", m, csv_field(src.entity), csv_field(src.name),
-                       csv_field(section.designation), csv_field(material.name), length * 1e3, per_metre, mass);
+    const double mass = section.A * model.materials[element.material].density * length;  // kg = A rho L
     auto& t = per_section[section.designation];
     ++t.count, t.length += length, t.mass += mass;
     ++overall.count, overall.length += length, overall.mass += mass;
   }
-  out += "\nsection,members,total_length_m,total_mass_kg\n";
+  std::string out = "section,members,centreline_length_m,mass_kg\n";
   for (const auto& [designation, t] : per_section)
     out += fmt::format("{},{},{:.3f},{:.2f}\n", csv_field(designation), t.count, t.length, t.mass);
   out += fmt::format("TOTAL,{},{:.3f},{:.2f}\n", overall.count, overall.length, overall.mass);
+  return out;
+}
+
+std::string reactions_csv(const Analysis& a) {
+  const auto& model = a.built.model;
+  std::vector<bool> supported(model.nodes.size(), false);
+  for (const auto& s : model.supports) supported[s.node] = true;
+  std::string out = "node,x_mm,y_mm,z_mm,result,kind,Fx_kN,Fy_kN,Fz_kN,Mx_kNm,My_kNm,Mz_kNm\n";
+  for (std::size_t n = 0; n < model.nodes.size(); ++n) {
+    if (!supported[n]) continue;
+    const auto& p = model.nodes[n];
+    for (const auto& r : a.results) {
+      const auto f = r.reactions.segment<6>(static_cast<Eigen::Index>(6 * n));
+      // Forces of the supports on the frame, global axes; kN and kN*m for people.
+      out += fmt::format("{},{:.1f},{:.1f},{:.1f},{},{},{:.3f},{:.3f},{:.3f},{:.3f},{:.3f},{:.3f}\n", n, p.x() * 1e3,
+                         p.y() * 1e3, p.z() * 1e3, csv_field(r.name), r.is_combination ? "combination" : "case",
+                         f(0) / 1e3, f(1) / 1e3, f(2) / 1e3, f(3) / 1e3, f(4) / 1e3, f(5) / 1e3);
+    }
+  }
   return out;
 }
 

@@ -137,6 +137,8 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
     control.report("tables", 0);
     text_file("checks.csv", checks_csv(analysis));
     text_file("takeoff.csv", takeoff_csv(analysis));
+    text_file("takeoff_by_section.csv", takeoff_by_section_csv(analysis));
+    text_file("reactions.csv", reactions_csv(analysis));
     text_file("end_forces.csv", end_forces_csv(analysis));
     control.report("results.json", 0);
     {

@@ -163,19 +163,34 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
     CHECK_THAT(html, Contains("competent engineer") && Contains("data:image/png;base64,"));
     CHECK_THAT(html, Contains("computed from nominal dimensions and must be checked against the current edition"));
   }
-  SECTION("tables: checks, take-off and end forces") {
+  SECTION("tables: checks, take-off, reactions and end forces") {
     const auto checks = csv_rows(test::read_text(out / "checks.csv"));
-    CHECK(checks.size() == 4);  // header + 3 members
+    REQUIRE(checks.size() == 4);  // header + 3 members
+    CHECK(checks[0][5] == "value");
+    CHECK(checks[0][6] == "limit");
+    CHECK(checks[0][7] == "unit");
+    for (std::size_t row = 1; row < 4; ++row)  // value / limit is the utilisation shown
+      CHECK(std::stod(checks[row][5]) / std::stod(checks[row][6]) == Approx(std::stod(checks[row][4])).margin(1e-4));
     const auto takeoff = csv_rows(test::read_text(out / "takeoff.csv"));
+    CHECK(takeoff.size() == 4);  // one table: header + 3 members
+    CHECK(takeoff[0][5] == "centreline_length_mm");
+    CHECK(takeoff[0][6] == "kg_per_m");
     // Total mass = sum of A rho L (IPE 300: 42.2 kg/m, HEB 200: 61.3 kg/m, EN 10365).
+    const auto sections = csv_rows(test::read_text(out / "takeoff_by_section.csv"));
     double expected = 0;
     for (const auto& member : j["members"]) expected += member["length"].get<double>();
-    const auto& total = takeoff.back();
+    const auto& total = sections.back();
     REQUIRE(total[0] == "TOTAL");
     CHECK(std::stod(total[2]) == Approx(expected).epsilon(1e-6));
     CHECK(std::stod(total[3]) == Approx(2 * 3 * 61.3 + 5 * 42.2).epsilon(0.01));
     const auto ends = csv_rows(test::read_text(out / "end_forces.csv"));
     CHECK(ends.size() == 1 + 3 * 2 * 6);
+    // Reactions: per supported node and result, equal to results.json's (kN).
+    const auto reactions = csv_rows(test::read_text(out / "reactions.csv"));
+    const auto& first = j["results"][0]["reactions"][0];
+    REQUIRE(reactions.size() == 1 + 2 * j["results"].size());  // two supported nodes
+    CHECK(std::stoul(reactions[1][0]) == first["node"].get<std::size_t>());
+    CHECK(std::stod(reactions[1][8]) == Approx(first["force"][2].get<double>() / 1e3).margin(1e-3));
   }
   SECTION("the frame stability and EN 1993 checks are in results.json") {
     bool stability = false, buckling = false;

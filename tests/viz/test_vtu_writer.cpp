@@ -10,6 +10,7 @@
 #include <Eigen/Geometry>
 #include <vtkCellData.h>
 #include <vtkDataArray.h>
+#include <vtkFieldData.h>
 #include <vtkNew.h>
 #include <vtkPointData.h>
 #include <vtkStringArray.h>
@@ -87,6 +88,16 @@ TEST_CASE("the line model carries every station of every member into the file") 
   auto* section = vtkStringArray::SafeDownCast(grid->GetCellData()->GetAbstractArray("section"));
   REQUIRE(section);
   CHECK(section->GetValue(0) == "BOX");
+  // Shears and torque too, and the units and caution in field data.
+  for (const char* name : {"Vy", "Vz", "T"}) CHECK(grid->GetPointData()->GetArray(name));
+  auto* units = vtkStringArray::SafeDownCast(grid->GetFieldData()->GetAbstractArray("units"));
+  REQUIRE(units);
+  bool n_unit = false;
+  for (vtkIdType i = 0; i < units->GetNumberOfValues(); ++i) n_unit |= units->GetValue(i).rfind("N: N", 0) == 0;
+  CHECK(n_unit);
+  auto* caution = vtkStringArray::SafeDownCast(grid->GetFieldData()->GetAbstractArray("caution"));
+  REQUIRE(caution);
+  CHECK(caution->GetValue(0).find("competent engineer") != std::string::npos);
   std::filesystem::remove(file);
 }
 

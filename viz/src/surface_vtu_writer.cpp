@@ -164,6 +164,7 @@ void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameM
   grid->GetPointData()->SetVectors(displacement);
   grid->GetCellData()->AddArray(member_id);
   grid->GetCellData()->AddArray(element_id);
+  detail::describe(grid->GetFieldData(), {{"fibre_stress", "Pa (tension > 0)"}, {"displacement", "m"}, {"points", "m"}});
   detail::write_grid(file, grid, options.compression);
 }
 
@@ -203,6 +204,7 @@ void write_mode_vtu(const std::filesystem::path& file, const analysis::FrameMode
   alpha->SetName("alpha");
   alpha->InsertNextValue(m.alpha);
   grid->GetFieldData()->AddArray(alpha);
+  detail::describe(grid->GetFieldData(), {{"mode_shape", "1 (largest translation 1)"}, {"alpha", "1"}, {"points", "m"}});
   detail::write_grid(file, grid, compression);
 }
 

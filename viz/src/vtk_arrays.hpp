@@ -4,12 +4,16 @@
 
 #include <Eigen/Core>
 #include <vtkCellArray.h>
+#include <vtkFieldData.h>
+#include <vtkStringArray.h>
 #include <vtkFloatArray.h>
 #include <vtkIntArray.h>
 #include <vtkNew.h>
 #include <vtkSmartPointer.h>
 #include <vtkTypeInt32Array.h>
 
+#include <string>
+#include <utility>
 #include <vector>
 
 namespace stepframe::viz::detail {
@@ -35,6 +39,20 @@ inline vtkSmartPointer<vtkIntArray> int_array(const char* name, vtkIdType values
 inline void set(vtkFloatArray* a, vtkIdType i, const Eigen::Vector3d& v) {
   float* p = a->GetPointer(3 * i);
   p[0] = static_cast<float>(v.x()), p[1] = static_cast<float>(v.y()), p[2] = static_cast<float>(v.z());
+}
+
+/// Field data every stepframe VTK file carries: "units" (one "array: unit"
+/// line per array, SI) and "caution" (the screening-aid caution).
+inline void describe(vtkFieldData* field, const std::vector<std::pair<std::string, std::string>>& units) {
+  vtkNew<vtkStringArray> unit_list;
+  unit_list->SetName("units");
+  for (const auto& [array, unit] : units) unit_list->InsertNextValue(array + ": " + unit);
+  field->AddArray(unit_list);
+  vtkNew<vtkStringArray> caution;
+  caution->SetName("caution");
+  caution->InsertNextValue(
+      "Screening aid only: a competent engineer must review these results; local codes and licensed practice govern.");
+  field->AddArray(caution);
 }
 
 /// Cells of consecutive points: cell c runs through points [first[c], first[c + 1]).

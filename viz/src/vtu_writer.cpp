@@ -7,6 +7,7 @@
 
 #include <vtkCellArray.h>
 #include <vtkCellData.h>
+#include <vtkFieldData.h>
 #include <vtkPointData.h>
 #include <vtkPoints.h>
 #include <vtkStringArray.h>
@@ -34,6 +35,9 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   auto displacement = detail::float_array("displacement", 3, count);
   auto von_mises = detail::float_array("von_mises", 1, count);
   auto axial = detail::float_array("N", 1, count);
+  auto shear_y = detail::float_array("Vy", 1, count);
+  auto shear_z = detail::float_array("Vz", 1, count);
+  auto torque = detail::float_array("T", 1, count);
   auto moment_y = detail::float_array("My", 1, count);
   auto moment_z = detail::float_array("Mz", 1, count);
   analysis::parallel_for(chains.size(), [&](std::size_t m) {
@@ -45,6 +49,9 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
       detail::set(displacement, p, st.displacement);
       von_mises->SetValue(p, static_cast<float>(st.von_mises));
       axial->SetValue(p, static_cast<float>(st.forces(0)));
+      shear_y->SetValue(p, static_cast<float>(st.forces(1)));
+      shear_z->SetValue(p, static_cast<float>(st.forces(2)));
+      torque->SetValue(p, static_cast<float>(st.forces(3)));
       moment_y->SetValue(p, static_cast<float>(st.forces(4)));
       moment_z->SetValue(p, static_cast<float>(st.forces(5)));
       ++p;
@@ -78,7 +85,9 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   grid->SetCells(VTK_POLY_LINE, detail::consecutive_cells(first));
   grid->GetPointData()->AddArray(displacement);
   grid->GetPointData()->SetVectors(displacement);
-  for (auto* array : {von_mises.Get(), axial.Get(), moment_y.Get(), moment_z.Get()}) grid->GetPointData()->AddArray(array);
+  for (auto* array : {von_mises.Get(), axial.Get(), shear_y.Get(), shear_z.Get(), torque.Get(), moment_y.Get(),
+                      moment_z.Get()})
+    grid->GetPointData()->AddArray(array);
   grid->GetCellData()->AddArray(stress);
   grid->GetCellData()->SetActiveScalars("stress");
   grid->GetCellData()->AddArray(normal_stress);
@@ -86,6 +95,10 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   grid->GetCellData()->AddArray(member_id);
   grid->GetCellData()->AddArray(section_id);
   grid->GetCellData()->AddArray(section);
+  detail::describe(grid->GetFieldData(), {{"displacement", "m"}, {"von_mises", "Pa"}, {"N", "N (tension > 0)"},
+                                          {"Vy", "N"}, {"Vz", "N"}, {"T", "N*m"}, {"My", "N*m"}, {"Mz", "N*m"},
+                                          {"stress", "Pa"}, {"normal_stress", "Pa"}, {"utilisation", "1"},
+                                          {"points", "m"}});
   detail::write_grid(file, grid, options.compression);
 }
 

@@ -9,13 +9,30 @@
 
 namespace stepframe {
 
-/// checks.csv: one row per member: governing utilisation, check, clause,
-/// combination and station, plus pass/fail.
+/// A unit people read and the factor from SI to it: "Pa" -> MPa (1e-6),
+/// "m" -> mm, "N" -> kN, "N*m" -> kN*m; a ratio ("1") stays as it is (name "").
+struct PeopleUnit {
+  std::string name;
+  double factor = 1;
+};
+PeopleUnit people_unit(const std::string& si_unit);
+
+/// checks.csv: one row per member: governing utilisation, the checked value
+/// and its limit in the unit named beside them, check, clause, combination and
+/// station, plus pass/fail.
 std::string checks_csv(const Analysis& analysis);
 
-/// takeoff.csv: one row per member (section, material, cut length, mass),
-/// then a total per section and an overall total.
+/// takeoff.csv: one row per member: section, material, centreline length
+/// (the CAD edge: not yet a cut length), mass per metre and mass.
 std::string takeoff_csv(const Analysis& analysis);
+
+/// takeoff_by_section.csv: per section the member count, total centreline
+/// length and mass, then the overall total.
+std::string takeoff_by_section_csv(const Analysis& analysis);
+
+/// reactions.csv: the support reactions (foundation loads) of every case and
+/// combination, per supported node, global axes.
+std::string reactions_csv(const Analysis& analysis);
 
 /// end_forces.csv: per member end, the envelope (largest and smallest value
 /// over the combinations, or over the cases when there are none) of N, Vy,

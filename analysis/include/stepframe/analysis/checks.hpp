@@ -23,8 +23,9 @@ struct CheckResult {
   std::string clause;       ///< what the limit stands on
   std::string combination;  ///< the governing case or combination
   double station = 0;       ///< distance from the member's start where it governs [m]
-  double value = 0;         ///< the checked quantity [Pa, m, N, N m or a ratio]
+  double value = 0;         ///< the checked quantity, in `unit`
   double limit = 0;         ///< its limit, same unit
+  std::string unit = "1";   ///< SI unit of value and limit: "Pa", "m", "N", "N*m" or "1" (a ratio)
   double utilisation = 0;   ///< value / limit
   bool pass = true;
   /// The intermediate values the verdict stands on, in the order the clause
