@@ -2,6 +2,8 @@
 
 #include "project_blocks.hpp"
 
+#include <fmt/format.h>
+
 #include <cmath>
 
 namespace stepframe::detail {
@@ -21,7 +23,7 @@ OutputsSpec read_outputs(const Reader& r, const YAML::Node& node) {
   OutputsSpec spec;
   if (!node) return spec;
   r.check_keys(node, "outputs", {"line_models", "surfaces", "buckling_modes", "compression", "pictures",
-                                 "line_model_points", "surface_sections"});
+                                 "line_model_points", "surface_sections", "browser_view", "calculation_sheets"});
   if (node["line_models"]) spec.line_models = read_selection(r, node["line_models"], "outputs.line_models");
   if (node["surfaces"]) spec.surfaces = read_selection(r, node["surfaces"], "outputs.surfaces");
   if (node["buckling_modes"]) spec.buckling_modes = read_selection(r, node["buckling_modes"], "outputs.buckling_modes");
@@ -33,6 +35,13 @@ OutputsSpec read_outputs(const Reader& r, const YAML::Node& node) {
     else r.fail(node["compression"], "outputs.compression", "expected lz4, zlib or none, got '" + value + "'");
   }
   if (node["pictures"]) spec.pictures = r.boolean(node["pictures"], "outputs.pictures");
+  if (node["browser_view"]) spec.browser_view = r.boolean(node["browser_view"], "outputs.browser_view");
+  if (const auto sheets = node["calculation_sheets"]) {
+    if (!sheets.IsSequence())
+      r.fail(sheets, "outputs.calculation_sheets", "expected a list of members: indices, entities (\"#123\") or names");
+    for (std::size_t i = 0; i < sheets.size(); ++i)
+      spec.calculation_sheets.push_back(r.text(sheets[i], fmt::format("outputs.calculation_sheets[{}]", i)));
+  }
   auto count = [&](const char* key, std::size_t& value) {
     if (!node[key]) return;
     const std::string path = std::string("outputs.") + key;

@@ -1,59 +1,135 @@
 #include "stepframe/report.hpp"
 
-#include "stepframe/analysis/section.hpp"
-#include "stepframe/viz/markup.hpp"
-#include "stepframe/viz/picture.hpp"
+#include "report_parts.hpp"
+#include "stepframe/viz/colour_scale.hpp"
 
 #include <fmt/format.h>
 
 #include <algorithm>
-#include <map>
 
 namespace stepframe {
 namespace {
 
-std::string escaped(const std::string& text) { return viz::escape_markup(text); }
+using report::esc;
+using report::num;
+using report::with_unit;
 
-// RFC 4648 base64, for the embedded pictures.
-std::string base64(const std::vector<std::uint8_t>& bytes) {
-  static constexpr char table[] = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/";
-  std::string out;
-  for (std::size_t i = 0; i < bytes.size(); i += 3) {
-    const std::uint32_t n = (std::uint32_t{bytes[i]} << 16) | (i + 1 < bytes.size() ? std::uint32_t{bytes[i + 1]} << 8 : 0u) |
-                            (i + 2 < bytes.size() ? std::uint32_t{bytes[i + 2]} : 0u);
-    out += table[(n >> 18) & 63];
-    out += table[(n >> 12) & 63];
-    out += i + 1 < bytes.size() ? table[(n >> 6) & 63] : '=';
-    out += i + 2 < bytes.size() ? table[n & 63] : '=';
-  }
-  return out;
-}
-
-std::string rgb(double fraction) {
-  const auto c = viz::stress_colour(fraction);
-  return fmt::format("rgb({},{},{})", c[0], c[1], c[2]);
-}
-
-// The combination a picture shows: the one with the largest stress (or local
-// deflection, for the deformed shape); the first result when there are no combinations.
-const analysis::LoadResult& picture_result(const Analysis& a, bool by_deflection) {
-  auto peak = [&](const analysis::LoadResult& r) {
-    double value = 0;
-    for (const auto& m : r.members) value = std::max(value, by_deflection ? m.max_local_deflection : m.max_von_mises);
-    return r.is_combination ? value : -1.0;
-  };
-  return *std::max_element(a.results.begin(), a.results.end(),
-                           [&](const auto& x, const auto& y) { return peak(x) < peak(y); });
-}
-
-std::string figure(const viz::Picture& p, const std::string& caption) {
-  std::string legend;
-  for (int i = 0; i <= 10; ++i) legend += fmt::format("{}{} {}%", i ? ", " : "", rgb(i / 10.0), i * 10);
+/// The page's style: the colours of the utilisation scale and its flag, nothing borrowed.
+std::string style() {
+  const auto flag = viz::above_limit_colour();
+  viz::Rgb tint{};  // 12% of the flag colour over white: failing rows
+  for (std::size_t c = 0; c < 3; ++c) tint[c] = static_cast<std::uint8_t>(255 - 0.12 * (255 - flag[c]));
   return fmt::format(
-      "<figure><img alt=\"{0}\" src=\"data:image/png;base64,{1}\"><figcaption>{0}<div class=\"scale\" "
-      "style=\"background: linear-gradient(to right, {2})\"></div><div class=\"scale-labels\"><span>0</span>"
-      "<span>von Mises stress, MPa</span><span>{3:.0f}</span></div></figcaption></figure>\n",
-      escaped(caption), base64(p.png), legend, p.stress_max / 1e6);
+      "body{{font-family:system-ui,sans-serif;margin:0 auto;max-width:1180px;padding:1em;color:#222}}\n"
+      ".verdict{{font-size:1.5em;padding:.5em 1em;border-radius:3px}}.pass{{background:{sand};color:#222}}"
+      ".fail{{background:{flag};color:#fff}}\n"
+      ".caution{{border:1px solid #999;border-left:6px solid #555;padding:.5em 1em;margin:.6em 0 1em}}\n"
+      "table{{border-collapse:collapse;width:100%;font-size:.88em;margin:.4em 0}}td,th{{border-bottom:1px solid #ddd;"
+      "padding:3px 6px;text-align:left;vertical-align:top}}td.num{{text-align:right;font-variant-numeric:tabular-nums}}"
+      "tr.failed td,.check.failed{{background:{tint}}}\n"
+      "figure{{margin:1em 0}}.picture{{position:relative;display:inline-block}}.picture img{{max-width:100%;"
+      "border:1px solid #ccc;display:block}}.label{{position:absolute;transform:translate(-50%,-130%);font-size:.75em;"
+      "background:#fffe;border:1px solid #555;padding:0 3px;white-space:nowrap}}\n"
+      ".legend{{display:flex;align-items:center;gap:.5em;flex-wrap:wrap;font-size:.85em;margin:.3em 0}}"
+      ".legend .bar,.sf-bar{{display:inline-block;width:300px;height:12px;border:1px solid #888}}"
+      ".ticks{{display:inline-flex;flex-direction:column}}.tick-labels{{display:flex;justify-content:space-between;"
+      "width:302px;font-size:.85em}}.swatch,.sf-swatch{{display:inline-block;width:18px;height:12px;border:1px solid #888}}\n"
+      "dl{{display:grid;grid-template-columns:max-content auto;gap:2px 1em}}dt{{font-weight:bold}}.hash{{font-family:"
+      "monospace;font-size:.8em;color:#555}}\n"
+      ".view-row{{display:flex;gap:1em}}#sf-view{{flex:1;height:520px;border:1px solid #ccc}}#sf-view-panel{{width:330px;"
+      "font-size:.85em;max-height:520px;overflow:auto}}.sheet{{border-top:2px solid #555;margin-top:1em}}"
+      ".check{{padding:.2em .5em}}table.details{{width:auto}}\n",
+      fmt::arg("sand", viz::hex(viz::utilisation_colour(0.25))), fmt::arg("flag", viz::hex(flag)),
+      fmt::arg("tint", viz::hex(tint)));
+}
+
+std::string check_row(const Analysis& a, const analysis::CheckResult& c) {
+  const std::string who = c.member == analysis::whole_frame
+                              ? "whole frame"
+                              : fmt::format("<a href=\"#{}\">{}</a> {}", report::sheet_anchor(c.member), c.member,
+                                            esc(report::member_label(a, c.member)));
+  return fmt::format("<tr{}><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
+                     "<td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}</td></tr>\n",
+                     c.pass ? "" : " class=\"failed\"", who, esc(c.check), esc(c.combination),
+                     c.member == analysis::whole_frame ? "" : num(c.station, 3), with_unit(c.value, c.unit),
+                     with_unit(c.limit, c.unit), num(c.utilisation, 3), esc(c.clause));
+}
+
+constexpr const char* check_header =
+    "<tr><th>member</th><th>check</th><th>result</th><th>x m</th><th>value</th><th>limit</th><th>utilisation</th>"
+    "<th>clause</th></tr>\n";
+
+/// Every failing check (frame checks first), then the highest passing ones, and where the rest are.
+std::string failures_first(const Analysis& a) {
+  std::vector<const analysis::CheckResult*> failing, passing;
+  for (const auto& c : a.checks) (c.pass ? passing : failing).push_back(&c);
+  auto order = [](const auto* x, const auto* y) {
+    const bool fx = x->member == analysis::whole_frame, fy = y->member == analysis::whole_frame;
+    return fx != fy ? fx : x->utilisation > y->utilisation;
+  };
+  std::stable_sort(failing.begin(), failing.end(), order);
+  std::stable_sort(passing.begin(), passing.end(), [](const auto* x, const auto* y) { return x->utilisation > y->utilisation; });
+  std::string h = fmt::format("<h2 id=\"failing\">Failing checks ({})</h2>\n", failing.size());
+  if (failing.empty()) h += "<p>No check fails.</p>\n";
+  else {
+    h += "<table id=\"failing-checks\">" + std::string(check_header);
+    for (const auto* c : failing) h += check_row(a, *c);
+    h += "</table>\n";
+  }
+  constexpr std::size_t shown = 10;
+  h += fmt::format("<h2 id=\"passing\">Highest passing checks</h2>\n<table id=\"passing-checks\">{}", check_header);
+  for (std::size_t i = 0; i < std::min(shown, passing.size()); ++i) h += check_row(a, *passing[i]);
+  h += "</table>\n";
+  if (passing.size() > shown)
+    h += fmt::format("<p>{} more passing {}: every check is in checks.csv and results.json; every member's governing "
+                     "one is in the member table below.</p>\n",
+                     passing.size() - shown, passing.size() - shown == 1 ? "check" : "checks");
+  return h;
+}
+
+std::string frame_checks(const Analysis& a) {
+  std::string rows;
+  for (const auto& c : a.checks)
+    if (c.member == analysis::whole_frame) rows += check_row(a, c);
+  if (rows.empty()) return {};
+  return "<h2 id=\"frame\">Frame checks</h2>\n<table id=\"frame-checks\">" + std::string(check_header) + rows + "</table>\n";
+}
+
+std::string members_table(const Analysis& a) {
+  const auto& model = a.built.model;
+  const auto governing = report::governing_per_member(a);
+  std::string h = "<h2 id=\"members\">Members by utilisation</h2>\n<table id=\"members-table\"><tr><th>member</th><th>entity</th>"
+                  "<th>name</th><th>section</th><th>material</th><th>length m</th><th>governing check</th><th>result</th>"
+                  "<th>x m</th><th>value</th><th>limit</th><th>utilisation</th></tr>\n";
+  for (std::size_t m : report::members_by_utilisation(a)) {
+    const auto& el = model.elements[model.members[m].elements.front()];
+    const auto& src = a.built.member_sources[m];
+    double length = 0;
+    for (std::size_t e : model.members[m].elements)
+      length += (model.nodes[model.elements[e].nodes[1]] - model.nodes[model.elements[e].nodes[0]]).norm();
+    const auto* c = governing[m];
+    h += fmt::format("<tr{}><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{}</td>",
+                     c && !c->pass ? " class=\"failed\"" : "", m, esc(src.entity), esc(src.name),
+                     esc(model.sections[el.section].designation), esc(model.materials[el.material].name), num(length));
+    if (c)
+      h += fmt::format("<td>{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
+                       "<td class=\"num\">{}</td></tr>\n",
+                       esc(c->check), esc(c->combination), num(c->station, 3), with_unit(c->value, c->unit),
+                       with_unit(c->limit, c->unit), num(c->utilisation, 3));
+    else
+      h += "<td colspan=\"6\">not checked</td></tr>\n";
+  }
+  return h + "</table>\n";
+}
+
+std::string diagnostics(const Analysis& a) {
+  std::string h = "<h2 id=\"diagnostics\">Model diagnostics</h2>\n";
+  if (a.wireframe.diagnostics.empty()) return h + "<p>None.</p>\n";
+  h += "<table><tr><th>severity</th><th>code</th><th>message</th><th>entities</th></tr>\n";
+  for (const auto& d : a.wireframe.diagnostics)
+    h += fmt::format("<tr><td>{}</td><td>{}</td><td>{}</td><td>{}</td></tr>\n", geometry::to_string(d.severity),
+                     esc(d.code), esc(d.message), esc(fmt::format("{}", fmt::join(d.entities, " "))));
+  return h + "</table>\n";
 }
 
 }  // namespace
@@ -61,140 +137,47 @@ std::string figure(const viz::Picture& p, const std::string& caption) {
 std::string report_html(const Analysis& a) {
   const auto& model = a.built.model;
   const bool pass = a.status() == ExitStatus::pass;
+  const std::string title = a.project.file.filename().string();
 
-  // Governing check per member, the frame checks apart.
-  std::vector<const analysis::CheckResult*> governing(model.members.size(), nullptr);
-  std::vector<const analysis::CheckResult*> frame_checks;
-  for (const auto& c : a.checks) {
-    if (c.member == analysis::whole_frame) frame_checks.push_back(&c);
-    else if (!governing[c.member] || c.utilisation > governing[c.member]->utilisation) governing[c.member] = &c;
-  }
   double max_utilisation = 0;
   for (const auto& c : a.checks) max_utilisation = std::max(max_utilisation, c.utilisation);
   std::optional<double> alpha_cr;
   for (const auto& r : a.results)
     if (r.alpha_cr) alpha_cr = alpha_cr ? std::min(*alpha_cr, *r.alpha_cr) : *r.alpha_cr;
   double total_mass = 0;
-  for (const auto& member : model.members)
-    for (std::size_t e : member.elements) {
-      const auto& el = model.elements[e];
-      total_mass += model.sections[el.section].A * model.materials[el.material].density *
-                    (model.nodes[el.nodes[1]] - model.nodes[el.nodes[0]]).norm();  // kg = A rho L
-    }
+  for (const auto& el : model.elements)  // kg = A rho L
+    total_mass += model.sections[el.section].A * model.materials[el.material].density *
+                  (model.nodes[el.nodes[1]] - model.nodes[el.nodes[0]]).norm();
+  const auto failed = static_cast<std::size_t>(std::count_if(a.checks.begin(), a.checks.end(), [](const auto& c) { return !c.pass; }));
 
-  std::string h;
-  h += "<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\"><title>stepframe report: " +
-       escaped(a.project.file.filename().string()) + "</title>\n<style>\n"
-       "body{font-family:sans-serif;margin:0 auto;max-width:1100px;padding:1em;color:#222}\n"
-       ".verdict{font-size:1.6em;padding:.6em 1em;color:#fff}.pass{background:#2e7d32}.fail{background:#c62828}\n"
-       ".caution{background:#fff4d6;border-left:6px solid #e0a800;padding:.6em 1em;margin:.5em 0 1em}\n"
-       "table{border-collapse:collapse;width:100%;font-size:.9em}td,th{border-bottom:1px solid #ddd;padding:3px 6px;"
-       "text-align:left}td.num{text-align:right}tr.failed td{background:#fde7e7}\n"
-       "figure{margin:1em 0}img{max-width:100%;border:1px solid #ccc}.scale{height:12px;width:320px;margin-top:4px}\n"
-       ".scale-labels{display:flex;justify-content:space-between;width:320px;font-size:.8em}dl{display:grid;"
-       "grid-template-columns:max-content auto;gap:2px 1em}dt{font-weight:bold}\n</style></head><body>\n";
-  h += fmt::format("<div class=\"verdict {}\" id=\"verdict\" data-status=\"{}\">{}: {}</div>\n", pass ? "pass" : "fail",
-                   pass ? "pass" : "fail", pass ? "PASS" : "FAIL", escaped(a.project.file.filename().string()));
-  h += "<div class=\"caution\">" + escaped(std::string(caution)) + "</div>\n";
+  std::string h = "<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\"><title>stepframe report: " + esc(title) +
+                  "</title>\n<style>\n" + style() + "</style></head><body>\n";
+  h += fmt::format("<div class=\"verdict {0}\" id=\"verdict\" data-status=\"{0}\">{1}: {2} ({3} of {4} checks fail)</div>\n",
+                   pass ? "pass" : "fail", pass ? "PASS" : "FAIL", esc(title), failed, a.checks.size());
+  h += "<div class=\"caution\">" + esc(std::string(caution)) + "</div>\n";
 
   h += "<h2>Summary</h2>\n<dl>\n";
-  h += fmt::format("<dt>Model</dt><dd>{} ({} members, {} nodes; file unit {})</dd>\n",
-                   escaped(a.project.model.filename().string()), model.members.size(), model.nodes.size(),
-                   escaped(a.file_length_unit));
+  h += fmt::format("<dt>Model</dt><dd>{} ({} {}, {} {}; file unit {})</dd>\n", esc(a.project.model.filename().string()),
+                   model.members.size(), model.members.size() == 1 ? "member" : "members", model.nodes.size(),
+                   model.nodes.size() == 1 ? "node" : "nodes", esc(a.file_length_unit));
   h += fmt::format("<dt>Largest utilisation</dt><dd id=\"max-utilisation\">{:.3f}</dd>\n", max_utilisation);
-  h += fmt::format("<dt>Lowest alpha_cr</dt><dd>{}</dd>\n", alpha_cr ? fmt::format("{:.2f}", *alpha_cr) : "not computed");
+  h += fmt::format("<dt>Lowest alpha_cr</dt><dd>{}</dd>\n", alpha_cr ? num(*alpha_cr, 3) : "not computed");
   h += fmt::format("<dt>Total steel mass</dt><dd>{:.0f} kg</dd>\n", total_mass);
-  const auto failed = std::count_if(a.checks.begin(), a.checks.end(), [](const auto& c) { return !c.pass; });
-  h += fmt::format("<dt>Checks</dt><dd>{} of {} pass</dd>\n</dl>\n", a.checks.size() - static_cast<std::size_t>(failed),
-                   a.checks.size());
+  h += fmt::format("<dt>Checks</dt><dd>{} of {} pass</dd>\n</dl>\n", a.checks.size() - failed, a.checks.size());
+  h += "<p>Contents: <a href=\"#failing\">failing checks</a> · <a href=\"#pictures\">pictures</a> · <a href=\"#view\">3D "
+       "view</a> · <a href=\"#members\">members</a> · <a href=\"#sheets\">calculation sheets</a> · <a "
+       "href=\"#reactions\">reactions</a> · <a href=\"#diagnostics\">diagnostics</a> · <a href=\"#inputs\">inputs</a></p>\n";
 
-  if (a.project.outputs.pictures) {
-    const auto& strength = picture_result(a, false);
-    const auto& service = picture_result(a, true);
-    h += "<h2>Pictures</h2>\n";
-    h += figure(viz::draw_stress_picture(model, strength), "Stress under " + strength.name);
-    viz::PictureOptions deformed;
-    deformed.deformed = true;
-    const auto shape = viz::draw_stress_picture(model, service, deformed);
-    h += figure(shape, fmt::format("Deformed shape under {} (displacements x {:.0f})", service.name, shape.deformation_scale));
-  }
-
-  if (!frame_checks.empty()) {
-    h += "<h2>Frame</h2>\n<table><tr><th>check</th><th>combination</th><th>value</th><th>utilisation</th>"
-         "<th>clause</th></tr>\n";
-    for (const auto* c : frame_checks)
-      h += fmt::format("<tr{}><td>{}</td><td>{}</td><td class=\"num\">{:.3g}</td><td class=\"num\">{:.3f}</td><td>{}</td></tr>\n",
-                       c->pass ? "" : " class=\"failed\"", escaped(c->check), escaped(c->combination), c->value,
-                       c->utilisation, escaped(c->clause));
-    h += "</table>\n";
-  }
-
-  h += "<h2>Members by utilisation</h2>\n<table id=\"members\"><tr><th>member</th><th>entity</th><th>name</th>"
-       "<th>section</th><th>material</th><th>length m</th><th>governing check</th><th>combination</th>"
-       "<th>x m</th><th>utilisation</th><th>clause</th></tr>\n";
-  std::vector<std::size_t> order(model.members.size());
-  for (std::size_t i = 0; i < order.size(); ++i) order[i] = i;
-  auto util = [&](std::size_t m) { return governing[m] ? governing[m]->utilisation : -1.0; };
-  std::stable_sort(order.begin(), order.end(), [&](std::size_t x, std::size_t y) { return util(x) > util(y); });
-  for (std::size_t m : order) {
-    const auto& el = model.elements[model.members[m].elements.front()];
-    const auto& src = a.built.member_sources[m];
-    double length = 0;
-    for (std::size_t e : model.members[m].elements)
-      length += (model.nodes[model.elements[e].nodes[1]] - model.nodes[model.elements[e].nodes[0]]).norm();
-    const auto* c = governing[m];
-    h += fmt::format("<tr{}><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{:.3f}</td>", c && !c->pass ? " class=\"failed\"" : "",
-                     m, escaped(src.entity), escaped(src.name), escaped(model.sections[el.section].designation),
-                     escaped(model.materials[el.material].name), length);
-    if (c)
-      h += fmt::format("<td>{}</td><td>{}</td><td class=\"num\">{:.3f}</td><td class=\"num\">{:.3f}</td><td>{}</td></tr>\n",
-                       escaped(c->check), escaped(c->combination), c->station, c->utilisation, escaped(c->clause));
-    else
-      h += "<td colspan=\"5\">not checked</td></tr>\n";
-  }
-  h += "</table>\n";
-
-  h += "<h2>Model diagnostics</h2>\n";
-  if (a.wireframe.diagnostics.empty()) h += "<p>None.</p>\n";
-  else {
-    h += "<table><tr><th>severity</th><th>code</th><th>message</th><th>entities</th></tr>\n";
-    for (const auto& d : a.wireframe.diagnostics)
-      h += fmt::format("<tr><td>{}</td><td>{}</td><td>{}</td><td>{}</td></tr>\n", geometry::to_string(d.severity),
-                       escaped(d.code), escaped(d.message), escaped(fmt::format("{}", fmt::join(d.entities, " "))));
-    h += "</table>\n";
-  }
-
-  const auto& p = a.project;
-  h += "<h2>Inputs</h2>\n<dl>\n";
-  h += fmt::format("<dt>Project file</dt><dd>{}</dd>\n", escaped(p.file.string()));
-  h += fmt::format("<dt>Units of the project file</dt><dd>length {}, force {}; results in SI (m, N, Pa)</dd>\n",
-                   escaped(p.length_unit), escaped(p.force_unit));
-  h += fmt::format("<dt>Merge tolerance</dt><dd>{:g} mm</dd>\n", p.merge_tolerance * 1e3);
-  h += "<dt>Section properties</dt><dd>" + escaped(std::string(analysis::catalogue_caution)) + "</dd>\n";
-  h += fmt::format("<dt>Partial factors</dt><dd>gamma_M0 = {:g}, gamma_M1 = {:g}</dd>\n", p.checks.gamma_M0, p.checks.gamma_M1);
-  h += "<dt>Rules</dt><dd><ol>";
-  for (const auto& rule : p.rules) {
-    std::vector<std::string> sets;
-    if (rule.section) sets.push_back("section " + *rule.section);
-    if (rule.material) sets.push_back("material " + *rule.material);
-    if (rule.roll) sets.push_back(fmt::format("roll {:g} deg", *rule.roll * 180 / 3.141592653589793));
-    if (rule.release) sets.push_back("end releases");
-    if (rule.buckling_y || rule.buckling_z || rule.buckling_lt) sets.push_back("buckling lengths");
-    if (rule.deflection_ratio) sets.push_back(fmt::format("deflection L/{:g}", *rule.deflection_ratio));
-    h += fmt::format("<li>{}: {}</li>", escaped(rule.where.origin.describe()), escaped(fmt::format("{}", fmt::join(sets, ", "))));
-  }
-  h += "</ol></dd>\n<dt>Load cases</dt><dd><ul>";
-  for (const auto& c : p.cases)
-    h += fmt::format("<li>{}: {}{} member load(s), {} node load(s)</li>", escaped(c.name), c.self_weight ? "self weight, " : "",
-                     c.member_loads.size(), c.node_loads.size());
-  h += "</ul></dd>\n<dt>Combinations</dt><dd><ul>";
-  for (const auto& c : p.combinations) {
-    std::vector<std::string> terms;
-    for (const auto& [name, factor] : c.factors) terms.push_back(fmt::format("{:g} {}", factor, name));
-    h += fmt::format("<li>{} = {}</li>", escaped(c.name), escaped(fmt::format("{}", fmt::join(terms, " + "))));
-  }
-  h += "</ul></dd>\n</dl>\n";
-  h += "<p class=\"caution\">" + escaped(std::string(caution)) + "</p>\n</body></html>\n";
+  h += failures_first(a);
+  h += report::pictures_section(a);
+  h += report::browser_view_section(a);
+  h += frame_checks(a);
+  h += members_table(a);
+  h += report::sheets_section(a);
+  h += report::reactions_section(a);
+  h += diagnostics(a);
+  h += report::inputs_section(a);
+  h += "<p class=\"caution\">" + esc(std::string(caution)) + "</p>\n</body></html>\n";
   return h;
 }
 

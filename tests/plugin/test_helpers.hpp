@@ -61,4 +61,14 @@ inline CommandResult run_stepframe(const std::string& args, const ScratchDir& sc
   return r;
 }
 
+/// Runs a shell command (an independent tool); its exit status and output.
+inline CommandResult run_shell(const std::string& command, const ScratchDir& scratch) {
+  const auto out = scratch / "shell-stdout.txt";
+  const int raw = std::system((command + " >\"" + out.string() + "\"").c_str());
+  CommandResult r;
+  r.status = WIFEXITED(raw) ? WEXITSTATUS(raw) : -1;
+  r.out = read_text(out);
+  return r;
+}
+
 }  // namespace stepframe::test

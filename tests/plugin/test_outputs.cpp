@@ -1,7 +1,7 @@
 // Every output file of a run, read back: VTK files with VTK's own readers,
 // the report against results.json, the tables against the model.
 
-#include "stepframe/geometry/step_writer.hpp"
+#include "portal_project.hpp"
 #include "test_helpers.hpp"
 
 #include <catch2/catch.hpp>
@@ -24,55 +24,6 @@ using namespace stepframe;
 using Catch::Matchers::Contains;
 
 namespace {
-
-/// A portal: two 3 m HEB 200 columns and a 5 m IPE 300 beam, fixed bases, a
-/// vertical load on the beam and a sway load, two combinations and buckling.
-void write_portal(const test::ScratchDir& dir) {
-  auto line = [](Eigen::Vector3d a, Eigen::Vector3d b, const char* name, const char* layer) {
-    geometry::LineToWrite l{a, b, {}};
-    l.attributes.name = name;
-    l.attributes.layers = {layer};
-    l.attributes.product = "PORTAL";
-    return l;
-  };
-  geometry::write_step_wireframe(dir / "portal.stp",
-                                 {line({0, 0, 0}, {0, 0, 3}, "HE 200 B", "COLUMNS"),
-                                  line({5, 0, 0}, {5, 0, 3}, "HE 200 B", "COLUMNS"),
-                                  line({0, 0, 3}, {5, 0, 3}, "IPE 300", "BEAMS")},
-                                 "mm");
-  test::write_text(dir / "portal.yaml", R"(model: portal.stp
-units: {length: m, force: kN, stress: MPa, line_load: kN/m}
-rules:
-  - where: {}
-    material: S355
-supports:
-  - where: {z: 0}
-    fix: fixed
-cases:
-  - name: G
-    self_weight: true
-    member_loads:
-      - where: {layer: BEAMS}
-        w: [0, 0, -20]
-  - name: W
-    node_loads:
-      - near: [0, 0, 3]
-        force: [8, 0, 0]
-combinations:
-  - name: ULS
-    factors: {G: 1.35, W: 1.5}
-  - name: SLS
-    factors: {G: 1.0, W: 1.0}
-analysis:
-  buckling_modes: 2
-checks:
-  stress: {combinations: [ULS]}
-  en1993: {combinations: [ULS]}
-  stability: {combinations: [ULS]}
-  deflection: {span_ratio: 300, combinations: [SLS]}
-  drift: {storey_ratio: 300, combinations: [SLS]}
-)");
-}
 
 vtkSmartPointer<vtkUnstructuredGrid> read_vtu(const std::filesystem::path& file) {
   vtkNew<vtkXMLUnstructuredGridReader> reader;
@@ -98,7 +49,7 @@ std::vector<std::vector<std::string>> csv_rows(const std::string& text) {
 
 TEST_CASE("a run writes every output, and each reads back consistently") {
   test::ScratchDir dir;
-  write_portal(dir);
+  test::write_portal(dir);
   const auto out = dir / "out";
   const auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\" --out \"" + out.string() + "\"", dir);
   INFO(r.out << r.err);

@@ -1,7 +1,10 @@
-// Report pictures: not blank, and the colour scale spans the stresses drawn.
+// Report pictures: real PNGs in the colours of the utilisation scale, whatever draws them, and
+// member labels placed where the members are drawn.
 
 #include "solved_frames.hpp"
+#include "stepframe/analysis/material.hpp"
 #include "stepframe/analysis/member_line.hpp"
+#include "stepframe/viz/colour_scale.hpp"
 #include "stepframe/viz/picture.hpp"
 
 #include <catch2/catch.hpp>
@@ -9,39 +12,22 @@
 #include <vtkNew.h>
 #include <vtkPNGReader.h>
 
+#include <algorithm>
+#include <cmath>
 #include <cstdlib>
 #include <fstream>
-#include <algorithm>
-#include <set>
+#include <limits>
+#include <map>
 
 using namespace stepframe;
 
 namespace {
 
-// The smallest and largest von Mises stress of the segments a picture draws (five points per
-// element; a segment shows the mean of its ends on the canvas, and every value between them in
-// OpenGL's interpolated colours).
-std::pair<double, double> drawn_von_mises(const analysis::FrameModel& model, const analysis::LoadResult& result) {
-  double low = 1e300, high = 0;
-  for (const auto& member : analysis::member_chains(model)) {
-    const auto stations = analysis::member_line(model, result, member, analysis::LineDetail::stations, 5).stations;
-    for (std::size_t k = 0; k + 1 < stations.size(); ++k) {
-      const double mean = 0.5 * (stations[k].von_mises + stations[k + 1].von_mises);
-      low = std::min(low, mean), high = std::max(high, mean);
-    }
-  }
-  return {low, high};
-}
-
-}  // namespace
-
-namespace {
-
-/// Decodes the PNG and counts its non-white pixels and the colours they show.
+/// The decoded PNG: its size and the colour of every pixel, rows from the top.
 struct Decoded {
   int width = 0, height = 0;
-  std::size_t coloured = 0;
-  std::set<std::array<int, 3>> colours;
+  std::vector<viz::Rgb> pixels;
+  const viz::Rgb& at(int x, int y) const { return pixels[static_cast<std::size_t>(y * width + x)]; }
 };
 
 Decoded decode(const viz::Picture& picture) {
@@ -55,56 +41,108 @@ Decoded decode(const viz::Picture& picture) {
   vtkImageData* image = reader->GetOutput();
   int dims[3];
   image->GetDimensions(dims);
-  Decoded d{dims[0], dims[1], 0, {}};
   REQUIRE(image->GetNumberOfScalarComponents() >= 3);
-  for (int y = 0; y < dims[1]; ++y)
+  Decoded d{dims[0], dims[1], {}};
+  for (int y = dims[1] - 1; y >= 0; --y)  // VTK images: y up
     for (int x = 0; x < dims[0]; ++x) {
       const auto* p = static_cast<unsigned char*>(image->GetScalarPointer(x, y, 0));
-      if (p[0] == 255 && p[1] == 255 && p[2] == 255) continue;
-      ++d.coloured;
-      d.colours.insert({p[0], p[1], p[2]});
+      d.pixels.push_back({p[0], p[1], p[2]});
     }
   return d;
 }
 
+bool close(const viz::Rgb& a, const viz::Rgb& b, int tolerance = 6) {
+  return std::abs(a[0] - b[0]) + std::abs(a[1] - b[1]) + std::abs(a[2] - b[2]) <= tolerance;
+}
+
+std::size_t count(const Decoded& d, const viz::Rgb& colour) {
+  return static_cast<std::size_t>(std::count_if(d.pixels.begin(), d.pixels.end(), [&](const auto& p) { return close(p, colour); }));
+}
+
+/// Whether a pixel of `colour` lies within `radius` pixels of (x, y).
+bool near(const Decoded& d, double x, double y, const viz::Rgb& colour, int radius = 4) {
+  for (int dy = -radius; dy <= radius; ++dy)
+    for (int dx = -radius; dx <= radius; ++dx) {
+      const int px = static_cast<int>(std::lround(x)) + dx, py = static_cast<int>(std::lround(y)) + dy;
+      if (px >= 0 && py >= 0 && px < d.width && py < d.height && close(d.at(px, py), colour)) return true;
+    }
+  return false;
+}
+
 }  // namespace
 
-TEST_CASE("the stress picture is a real PNG with the colour scale drawn") {
-  // Both ways of drawing: OpenGL offscreen (EGL on Mesa, which setup.sh installs) and the image canvas.
+TEST_CASE("a picture coloured by member values shows the scale's colours, the flag and the labels where the members are") {
+  const auto model = viz::testing::l_frame();
+  const auto result = viz::testing::solved(model);
   for (const bool opengl : {true, false}) {
-    viz::PictureOptions options{400, 300, false, 0};
+    viz::PictureOptions options;
+    options.width = 400;
+    options.height = 300;
     options.opengl = opengl;
-    const auto model = viz::testing::l_frame();
-    const auto result = viz::testing::solved(model);
-    const auto picture = viz::draw_stress_picture(model, result, options);
+    options.member_values = {0.3, 1.4};  // the second member above its limit
+    options.labelled = {0, 1};
+    const auto picture = viz::draw_frame_picture(model, result, options);
     INFO("drawn by " << picture.drawn_by);
     CHECK(picture.drawn_by == (opengl ? "OpenGL (offscreen)" : "image canvas"));
-    double largest = 0;  // the scale's top: the members' exact largest stress
-    for (const auto& m : result.members) largest = std::max(largest, m.max_von_mises);
-    CHECK(picture.stress_max == Approx(largest));
-    const auto [low_stress, high_stress] = drawn_von_mises(model, result);
     if (const char* keep = std::getenv("STEPFRAME_KEEP_PICTURE"); keep && opengl)
       std::ofstream(keep, std::ios::binary)
           .write(reinterpret_cast<const char*>(picture.png.data()), static_cast<std::streamsize>(picture.png.size()));
-
     const Decoded d = decode(picture);
     REQUIRE(d.width == 400);
     REQUIRE(d.height == 300);
-    CHECK(d.coloured > 500);  // two members, 3 to 4 px wide
-    // The colours of the lowest and the highest stress drawn both appear.
-    const auto low = viz::stress_colour(low_stress / largest), high = viz::stress_colour(high_stress / largest);
-    auto shows = [&](const std::array<std::uint8_t, 3>& c) {
-      return std::any_of(d.colours.begin(), d.colours.end(), [&](const std::array<int, 3>& p) {
-        return std::abs(p[0] - c[0]) + std::abs(p[1] - c[1]) + std::abs(p[2] - c[2]) <= 6;
-      });
-    };
-    CHECK(shows(low));
-    CHECK(shows(high));
+    const auto low = viz::utilisation_colour(0.3), flag = viz::above_limit_colour();
+    CHECK(count(d, low) > 100);   // a 2 m member, 3 to 4 px wide
+    CHECK(count(d, flag) > 100);
+    REQUIRE(picture.labels.size() == 2);
+    // Each label sits on its own member's colour: the renderer's projection, not a guess.
+    CHECK(picture.labels[0].member == 0);
+    CHECK(near(d, picture.labels[0].x * d.width, picture.labels[0].y * d.height, low));
+    CHECK(near(d, picture.labels[1].x * d.width, picture.labels[1].y * d.height, flag));
+    CHECK_FALSE(near(d, picture.labels[0].x * d.width, picture.labels[0].y * d.height, flag, 1));
   }
 }
 
-TEST_CASE("the colour scale runs from blue to red") {
-  CHECK(viz::stress_colour(0.0) == std::array<std::uint8_t, 3>{0, 0, 255});
-  CHECK(viz::stress_colour(1.0) == std::array<std::uint8_t, 3>{220, 0, 0});
-  CHECK(viz::stress_colour(-1.0) == viz::stress_colour(0.0));
+TEST_CASE("a stress picture colours every point by von Mises over fy; members without a value are drawn as not checked") {
+  const auto model = viz::testing::l_frame();
+  const auto result = viz::testing::solved(model);
+  const auto& el = model.elements.front();
+  const double fy = analysis::material_for_section(model.materials[el.material], model.sections[el.section]).fy;
+  // The largest ratio drawn: at a member's fixed end, where the stress is largest.
+  double largest = 0;
+  for (const auto& m : result.members) largest = std::max(largest, m.max_von_mises / fy);
+  REQUIRE(largest > 0.01);
+  viz::PictureOptions options;
+  options.width = 400;
+  options.height = 300;
+  options.opengl = false;  // one colour per segment: its first point's
+  const Decoded d = decode(viz::draw_frame_picture(model, result, options));
+  // The colour of the largest ratio drawn appears (a segment starting at a fixed end carries it).
+  const auto stations = analysis::member_line(model, result, analysis::member_chains(model)[0], analysis::LineDetail::stations, 5).stations;
+  CHECK(count(d, viz::utilisation_colour(stations.front().von_mises / fy)) > 5);
+
+  options.member_values = {std::numeric_limits<double>::quiet_NaN(), 0.5};
+  const Decoded m = decode(viz::draw_frame_picture(model, result, options));
+  CHECK(count(m, viz::not_checked_colour()) > 100);
+  CHECK(count(m, viz::utilisation_colour(0.5)) > 100);
+}
+
+TEST_CASE("a deformed picture draws the undeformed frame behind it and reports its scale") {
+  const auto model = viz::testing::l_frame();
+  const auto result = viz::testing::solved(model);
+  viz::PictureOptions options;
+  options.width = 400;
+  options.height = 300;
+  options.deformed = true;
+  options.opengl = false;
+  options.member_values = {0.2, 0.2};
+  const auto picture = viz::draw_frame_picture(model, result, options);
+  double largest = 0;
+  for (const auto& member : analysis::member_chains(model))
+    for (const auto& st : analysis::member_line(model, result, member, analysis::LineDetail::stations, 5).stations)
+      largest = std::max(largest, st.displacement.norm());
+  CHECK(picture.largest_displacement == Approx(largest));
+  // 5% of the frame's extent (the diagonal of its 2 m x 2 m bounding box) over the largest displacement.
+  CHECK(picture.deformation_scale == Approx(0.05 * std::sqrt(8.0) / largest));
+  const Decoded d = decode(picture);
+  CHECK(count(d, viz::undeformed_colour()) > 50);
 }

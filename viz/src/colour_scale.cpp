@@ -20,6 +20,8 @@ constexpr std::array<Lab, 5> utilisation_anchors{{
     {27, 28, -10},  // 1: plum
 }};
 constexpr Lab above_limit{56, -4, -46};  // a clear blue, far from every scale colour
+constexpr Lab not_checked{40, 0, 0};   // dark neutral grey
+constexpr Lab undeformed{84, 0, 0};    // pale neutral grey
 constexpr std::array<Lab, 3> signed_anchors{{
     {38, -18, -14},  // -1: deep teal
     {94, 0, 0},      // 0: light grey
@@ -71,6 +73,9 @@ Rgb utilisation_colour(double utilisation) {
 }
 
 Rgb above_limit_colour() { return to_rgb(above_limit); }
+
+Rgb not_checked_colour() { return to_rgb(not_checked); }
+Rgb undeformed_colour() { return to_rgb(undeformed); }
 
 Rgb signed_colour(double fraction) {
   if (std::isnan(fraction)) fraction = 0;

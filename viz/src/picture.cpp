@@ -1,33 +1,22 @@
 #include "stepframe/viz/picture.hpp"
 
 #include "picture_scene.hpp"
+#include "stepframe/analysis/material.hpp"
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/analysis/parallel.hpp"
+#include "stepframe/viz/colour_scale.hpp"
 
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 
 namespace stepframe::viz {
 
-std::array<std::uint8_t, 3> stress_colour(double f) {
-  f = std::clamp(f, 0.0, 1.0);
-  // Piecewise linear through blue, cyan, green, yellow, red at 0, 1/4, 1/2, 3/4, 1.
-  static constexpr double stops[5][3] = {{0, 0, 255}, {0, 200, 255}, {0, 190, 0}, {250, 210, 0}, {220, 0, 0}};
-  const double s = f * 4;
-  const int i = std::min(static_cast<int>(s), 3);
-  const double t = s - i;
-  std::array<std::uint8_t, 3> rgb{};
-  for (int c = 0; c < 3; ++c)
-    rgb[static_cast<std::size_t>(c)] = static_cast<std::uint8_t>(std::lround(stops[i][c] + t * (stops[i + 1][c] - stops[i][c])));
-  return rgb;
-}
-
-Picture draw_stress_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
-                            const PictureOptions& options) {
+Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
+                           const PictureOptions& options) {
   Picture picture;
-  picture.stress_max = options.stress_max;
   Eigen::Vector3d low = model.nodes.front(), high = model.nodes.front();
   for (const auto& p : model.nodes) low = low.cwiseMin(p), high = high.cwiseMax(p);
   const double span = std::max((high - low).norm(), 1e-6);
@@ -35,44 +24,56 @@ Picture draw_stress_picture(const analysis::FrameModel& model, const analysis::L
   const auto chains = analysis::member_chains(model);
   std::vector<std::vector<analysis::Station>> lines(chains.size());
   // A picture a few hundred pixels wide needs few points: five per element keep the deflected
-  // curve and the stress gradient, and a large frame draws several times faster than with every
-  // station. The scale's top is the members' exact largest stress.
+  // curve and the stress gradient, and a large frame draws several times faster than with every station.
   constexpr std::size_t points_per_element = 5;
   analysis::parallel_for(chains.size(), [&](std::size_t m) {
     lines[m] =
         analysis::member_line(model, result, chains[m], analysis::LineDetail::stations, points_per_element).stations;
   });
-  if (options.stress_max <= 0)
-    for (const auto& member : result.members) picture.stress_max = std::max(picture.stress_max, member.max_von_mises);
-  double largest_u = 0;
   for (const auto& stations : lines)
-    for (const auto& st : stations) largest_u = std::max(largest_u, st.displacement.norm());
+    for (const auto& st : stations) picture.largest_displacement = std::max(picture.largest_displacement, st.displacement.norm());
   // Deformed pictures show the largest displacement as 5% of the frame's extent.
-  picture.deformation_scale = options.deformed && largest_u > 0 ? 0.05 * span / largest_u : 0.0;
+  picture.deformation_scale =
+      options.deformed && picture.largest_displacement > 0 ? 0.05 * span / picture.largest_displacement : 0.0;
 
+  const bool by_member = !options.member_values.empty();
   detail::PictureScene scene;
   scene.width = options.width;
   scene.height = options.height;
-  scene.stress_max = picture.stress_max;
-  for (const auto& stations : lines) {
+  for (std::size_t m = 0; m < lines.size(); ++m) {
+    const auto& first = model.elements[chains[m].elements.front()];
+    // Stress pictures: von Mises over the fy the checks use for this member (EN 1993-1-1 3.2.1).
+    const double fy = analysis::material_for_section(model.materials[first.material], model.sections[first.section]).fy;
+    const double member_value = by_member && m < options.member_values.size()
+                                    ? options.member_values[m] : std::numeric_limits<double>::quiet_NaN();
     detail::ScenePolyline drawn, undeformed;
-    for (const auto& st : stations) {
-      drawn.push_back({st.position + picture.deformation_scale * st.displacement, st.von_mises});
-      undeformed.push_back({st.position, 0.0});
+    for (const auto& st : lines[m]) {
+      const double value = by_member ? member_value : st.von_mises / fy;
+      drawn.push_back({st.position + picture.deformation_scale * st.displacement,
+                       std::isnan(value) ? not_checked_colour() : utilisation_colour(value)});
+      undeformed.push_back({st.position, undeformed_colour()});
     }
     scene.coloured.push_back(std::move(drawn));
     if (options.deformed) scene.grey.push_back(std::move(undeformed));
   }
+  for (std::size_t m : options.labelled) {
+    const auto& stations = lines.at(m);
+    const auto& mid = stations[stations.size() / 2];
+    scene.anchors.push_back(mid.position + picture.deformation_scale * mid.displacement);
+  }
 
   std::string why_not = "not asked for";
-  if (auto png = options.opengl ? detail::render_with_opengl(scene, why_not) : std::nullopt) {
-    picture.png = std::move(*png);
+  auto drawn = options.opengl ? detail::render_with_opengl(scene, why_not) : std::nullopt;
+  if (drawn) {
     picture.drawn_by = "OpenGL (offscreen)";
   } else {
     spdlog::debug("picture drawn on the image canvas: {}", why_not);
-    picture.png = detail::draw_on_canvas(scene);
+    drawn = detail::draw_on_canvas(scene);
     picture.drawn_by = "image canvas";
   }
+  picture.png = std::move(drawn->png);
+  for (std::size_t k = 0; k < options.labelled.size(); ++k)
+    picture.labels.push_back({options.labelled[k], drawn->anchors[k][0] / options.width, drawn->anchors[k][1] / options.height});
   return picture;
 }
 

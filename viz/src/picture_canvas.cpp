@@ -13,7 +13,7 @@
 
 namespace stepframe::viz::detail {
 
-std::vector<std::uint8_t> draw_on_canvas(const PictureScene& scene) {
+DrawnScene draw_on_canvas(const PictureScene& scene) {
   // Screen coordinates: the view's orthographic projection fitted into the picture with a margin.
   auto project = [](const Eigen::Vector3d& p) { return Eigen::Vector2d(p.dot(view_right), p.dot(view_up)); };
   Eigen::Vector2d lo(1e300, 1e300), hi(-1e300, -1e300);
@@ -43,18 +43,26 @@ std::vector<std::uint8_t> draw_on_canvas(const PictureScene& scene) {
     for (int dx = -thickness / 2; dx <= thickness / 2; ++dx)
       for (int dy = -thickness / 2; dy <= thickness / 2; ++dy) canvas->DrawSegment(a[0] + dx, a[1] + dy, b[0] + dx, b[1] + dy);
   };
-  canvas->SetDrawColor(200, 200, 200);
-  for (const auto& line : scene.grey)
-    for (std::size_t k = 0; k + 1 < line.size(); ++k) segment(pixel(line[k].position), pixel(line[k + 1].position), 1);
+  auto draw = [&](const std::vector<ScenePolyline>& lines, int thickness) {
+    for (const auto& line : lines)
+      for (std::size_t k = 0; k + 1 < line.size(); ++k) {
+        const auto& c = line[k].colour;  // a segment takes its first point's colour
+        canvas->SetDrawColor(c[0], c[1], c[2]);
+        segment(pixel(line[k].position), pixel(line[k + 1].position), thickness);
+      }
+  };
+  draw(scene.grey, 1);
+  canvas->SetDrawColor(casing_colour[0], casing_colour[1], casing_colour[2]);  // cased: the palest colours show on white
   for (const auto& line : scene.coloured)
-    for (std::size_t k = 0; k + 1 < line.size(); ++k) {
-      const double stress = 0.5 * (line[k].stress + line[k + 1].stress);
-      const auto rgb = stress_colour(scene.stress_max > 0 ? stress / scene.stress_max : 0.0);
-      canvas->SetDrawColor(rgb[0], rgb[1], rgb[2]);
-      segment(pixel(line[k].position), pixel(line[k + 1].position), 3);
-    }
+    for (std::size_t k = 0; k + 1 < line.size(); ++k) segment(pixel(line[k].position), pixel(line[k + 1].position), 5);
+  draw(scene.coloured, 3);
   canvas->Update();
-  return png_bytes(canvas->GetOutput());
+  DrawnScene drawn{png_bytes(canvas->GetOutput()), {}};
+  for (const auto& anchor : scene.anchors) {
+    const auto [x, y] = pixel(anchor);
+    drawn.anchors.push_back({static_cast<double>(x), static_cast<double>(scene.height - 1 - y)});  // y from the top
+  }
+  return drawn;
 }
 
 }  // namespace stepframe::viz::detail

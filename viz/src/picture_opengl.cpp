@@ -21,9 +21,7 @@
 #include <vtkAutoInit.h>
 #include <vtkCamera.h>
 #include <vtkCellArray.h>
-#include <vtkDoubleArray.h>
 #include <vtkGenericOpenGLRenderWindow.h>
-#include <vtkLookupTable.h>
 #include <vtkNew.h>
 #include <vtkObjectFactory.h>
 #include <vtkPointData.h>
@@ -31,15 +29,13 @@
 #include <vtkPolyData.h>
 #include <vtkPolyDataMapper.h>
 #include <vtkProperty.h>
+#include <vtkUnsignedCharArray.h>
 #include <vtkRenderer.h>
-#include <vtkScalarBarActor.h>
-#include <vtkTextProperty.h>
 #include <vtkWindowToImageFilter.h>
 
 #include <thread>
 
 VTK_MODULE_INIT(vtkRenderingOpenGL2);
-VTK_MODULE_INIT(vtkRenderingFreeType);
 
 namespace stepframe::viz::detail {
 namespace {
@@ -110,28 +106,28 @@ class ContextWindow : public vtkGenericOpenGLRenderWindow {
 };
 vtkStandardNewMacro(ContextWindow);
 
-/// The polylines as VTK poly data, stresses in MPa for the colour bar's labels.
+/// The polylines as VTK poly data with their colours as direct RGB scalars.
 vtkSmartPointer<vtkPolyData> polylines(const std::vector<ScenePolyline>& lines) {
   vtkNew<vtkPoints> points;
   points->SetDataTypeToDouble();
   vtkNew<vtkCellArray> cells;
-  vtkNew<vtkDoubleArray> stress;
-  stress->SetName("von Mises [MPa]");
+  vtkNew<vtkUnsignedCharArray> colours;
+  colours->SetNumberOfComponents(3);
   for (const auto& line : lines) {
     cells->InsertNextCell(static_cast<int>(line.size()));
     for (const auto& p : line) {
       cells->InsertCellPoint(points->InsertNextPoint(p.position.data()));
-      stress->InsertNextValue(p.stress / 1e6);  // Pa -> MPa, for people
+      colours->InsertNextTypedTuple(p.colour.data());
     }
   }
   auto data = vtkSmartPointer<vtkPolyData>::New();
   data->SetPoints(points);
   data->SetLines(cells);
-  data->GetPointData()->SetScalars(stress);
+  data->GetPointData()->SetScalars(colours);
   return data;
 }
 
-std::vector<std::uint8_t> render(const PictureScene& scene) {
+DrawnScene render(const PictureScene& scene) {
   const OffscreenContext context;
   vtkNew<ContextWindow> window;
   window->SetSize(scene.width, scene.height);
@@ -146,58 +142,31 @@ std::vector<std::uint8_t> render(const PictureScene& scene) {
   renderer->SetBackground(1, 1, 1);
   window->AddRenderer(renderer);
 
-  // The report's colour scale as a 256-entry table over [0, stress_max].
-  vtkNew<vtkLookupTable> table;
-  table->SetNumberOfTableValues(256);
-  table->SetTableRange(0, std::max(scene.stress_max / 1e6, 1e-9));
-  for (int i = 0; i < 256; ++i) {
-    const auto rgb = stress_colour(i / 255.0);
-    table->SetTableValue(i, rgb[0] / 255.0, rgb[1] / 255.0, rgb[2] / 255.0, 1.0);
-  }
-  table->Build();
-
-  auto add_lines = [&](const std::vector<ScenePolyline>& lines, bool coloured, float width) {
+  // Members are drawn cased: a dark line under each coloured one (a layer of its own below), so
+  // the palest colours of the scale still show on white.
+  vtkNew<vtkRenderer> casing;
+  casing->SetBackground(1, 1, 1);
+  window->SetNumberOfLayers(2);
+  casing->SetLayer(0);
+  renderer->SetLayer(1);
+  renderer->SetBackgroundAlpha(0);
+  window->AddRenderer(casing);
+  auto add_lines = [&](vtkRenderer* target, const std::vector<ScenePolyline>& lines, float width, const Rgb* single) {
     if (lines.empty()) return;
     vtkNew<vtkPolyDataMapper> mapper;
     mapper->SetInputData(polylines(lines));
-    mapper->SetScalarVisibility(coloured);
-    mapper->SetLookupTable(table);
-    mapper->UseLookupTableScalarRangeOn();
-    mapper->InterpolateScalarsBeforeMappingOn();
+    mapper->SetColorModeToDirectScalars();  // our colours as they are, no lookup table
+    mapper->SetScalarVisibility(single == nullptr);
     vtkNew<vtkActor> actor;
     actor->SetMapper(mapper);
     actor->GetProperty()->LightingOff();  // flat colours: the scale reads the same everywhere
     actor->GetProperty()->SetLineWidth(width);
-    if (!coloured) actor->GetProperty()->SetColor(0.78, 0.78, 0.78);
-    renderer->AddActor(actor);
+    if (single) actor->GetProperty()->SetColor((*single)[0] / 255.0, (*single)[1] / 255.0, (*single)[2] / 255.0);
+    target->AddActor(actor);
   };
-  add_lines(scene.grey, false, 1.5f);
-  add_lines(scene.coloured, true, 4.0f);
-
-  // The colour bar in a strip of its own on the right.
-  vtkNew<vtkRenderer> strip;
-  strip->SetBackground(1, 1, 1);
-  strip->SetViewport(0.82, 0, 1, 1);
-  renderer->SetViewport(0, 0, 0.82, 1);
-  window->AddRenderer(strip);
-  vtkNew<vtkScalarBarActor> bar;
-  bar->SetLookupTable(table);
-  bar->SetTitle("MPa");
-  bar->SetNumberOfLabels(5);
-  bar->SetLabelFormat("%.0f");
-  bar->UnconstrainedFontSizeOn();
-  bar->SetPosition(0.15, 0.05);
-  bar->SetWidth(0.7);
-  bar->SetHeight(0.8);
-  bar->SetBarRatio(0.3);
-  for (vtkTextProperty* text : {bar->GetTitleTextProperty(), bar->GetLabelTextProperty()}) {
-    text->SetColor(0.1, 0.1, 0.1);
-    text->SetFontSize(14);
-    text->ShadowOff();
-    text->ItalicOff();
-    text->BoldOff();
-  }
-  strip->AddViewProp(bar);
+  add_lines(renderer, scene.grey, 1.5f, nullptr);
+  add_lines(renderer, scene.coloured, 4.0f, nullptr);
+  add_lines(casing, scene.coloured, 6.5f, &casing_colour);
 
   // The view of the canvas pictures: orthographic, from above the (+X, -Y) corner.
   vtkCamera* camera = renderer->GetActiveCamera();
@@ -207,6 +176,7 @@ std::vector<std::uint8_t> render(const PictureScene& scene) {
   camera->SetViewUp(view_up.data());
   renderer->ResetCamera();
   camera->Zoom(0.95);
+  casing->SetActiveCamera(camera);
 
   window->Render();
   vtkNew<vtkWindowToImageFilter> grab;
@@ -215,14 +185,21 @@ std::vector<std::uint8_t> render(const PictureScene& scene) {
   grab->ReadFrontBufferOff();
   grab->Update();
   if (glGetError() != GL_NO_ERROR) throw std::runtime_error("OpenGL reported an error while rendering");
-  return png_bytes(grab->GetOutput());
+  DrawnScene drawn{png_bytes(grab->GetOutput()), {}};
+  for (const auto& anchor : scene.anchors) {
+    renderer->SetWorldPoint(anchor.x(), anchor.y(), anchor.z(), 1.0);
+    renderer->WorldToDisplay();
+    const double* display = renderer->GetDisplayPoint();  // pixels from the bottom-left corner
+    drawn.anchors.push_back({display[0], scene.height - display[1]});
+  }
+  return drawn;
 }
 
 }  // namespace
 
-std::optional<std::vector<std::uint8_t>> render_with_opengl(const PictureScene& scene, std::string& why_not) {
+std::optional<DrawnScene> render_with_opengl(const PictureScene& scene, std::string& why_not) {
   // A thread of its own: its OpenGL "current context" is its own, whatever the caller's thread has current.
-  std::optional<std::vector<std::uint8_t>> png;
+  std::optional<DrawnScene> png;
   std::thread worker([&] {
     try {
       png = render(scene);

@@ -1,10 +1,13 @@
 #pragma once
-// What a report picture shows, ready to draw: polylines in model space with a
-// stress per point, and the colour scale. Internal to the viz stage; the two
-// ways of drawing it (OpenGL offscreen, image canvas) share it.
+// What a report picture shows, ready to draw: coloured polylines in model
+// space and the points to report as labels. Internal to the viz stage; the
+// two ways of drawing it (OpenGL offscreen, image canvas) share it.
+
+#include "stepframe/viz/colour_scale.hpp"
 
 #include <Eigen/Core>
 
+#include <array>
 #include <cstdint>
 #include <optional>
 #include <string>
@@ -14,26 +17,35 @@ namespace stepframe::viz::detail {
 
 struct ScenePoint {
   Eigen::Vector3d position;  ///< as drawn (deformed pictures: scaled displacement added) [m]
-  double stress = 0;         ///< von Mises [Pa]
+  Rgb colour{};
 };
 using ScenePolyline = std::vector<ScenePoint>;
 
 struct PictureScene {
-  int width = 0, height = 0;            ///< [px]
-  std::vector<ScenePolyline> coloured;  ///< members, coloured by stress
-  std::vector<ScenePolyline> grey;      ///< the undeformed frame behind a deformed one (may be empty)
-  double stress_max = 0;                ///< top of the colour scale [Pa]; its bottom is 0
+  int width = 0, height = 0;              ///< [px]
+  std::vector<ScenePolyline> coloured;    ///< members
+  std::vector<ScenePolyline> grey;        ///< the undeformed frame behind a deformed one (may be empty)
+  std::vector<Eigen::Vector3d> anchors;   ///< model points whose place in the picture is wanted
 };
+
+/// A drawn scene: the PNG and where each anchor landed, in pixels from the top-left corner.
+struct DrawnScene {
+  std::vector<std::uint8_t> png;
+  std::vector<std::array<double, 2>> anchors;
+};
+
+/// The dark line drawn under every member (CIELAB L* about 25, neutral).
+inline constexpr Rgb casing_colour{60, 60, 60};
 
 /// Orthographic view from above the (+X, -Y) corner: screen axes in global components.
 inline const Eigen::Vector3d view_right = Eigen::Vector3d(1, 1, 0).normalized();
 inline const Eigen::Vector3d view_up = Eigen::Vector3d(-0.35, 0.35, 1).normalized();
 
-/// The scene rendered by OpenGL in an offscreen (EGL, surfaceless) context as
-/// PNG bytes, or nothing when no such context can be had here (`why_not` says why).
-std::optional<std::vector<std::uint8_t>> render_with_opengl(const PictureScene& scene, std::string& why_not);
+/// The scene rendered by OpenGL in an offscreen (EGL, surfaceless) context,
+/// or nothing when no such context can be had here (`why_not` says why).
+std::optional<DrawnScene> render_with_opengl(const PictureScene& scene, std::string& why_not);
 
-/// The scene drawn on VTK's image canvas (no OpenGL) as PNG bytes.
-std::vector<std::uint8_t> draw_on_canvas(const PictureScene& scene);
+/// The scene drawn on VTK's image canvas (no OpenGL).
+DrawnScene draw_on_canvas(const PictureScene& scene);
 
 }  // namespace stepframe::viz::detail

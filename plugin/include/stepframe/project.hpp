@@ -164,6 +164,13 @@ struct OutputsSpec {
   std::size_t line_model_points = 11;  ///< outputs.line_model_points: points per element in line models
   std::size_t surface_sections = 3;    ///< outputs.surface_sections: outlines per element in surfaces
   bool pictures = true;                                  ///< outputs.pictures: the report's pictures
+  /// outputs.browser_view: the report's interactive 3D view; unset: on up to
+  /// browser_view_members members (the page grows by about 1 kB per member).
+  std::optional<bool> browser_view;
+  static constexpr std::size_t browser_view_members = 20000;
+  /// outputs.calculation_sheets: members (index, entity "#123" or CAD name)
+  /// whose calculation sheets the report shows besides the governing ones.
+  std::vector<std::string> calculation_sheets;
 };
 
 struct Project {

@@ -29,6 +29,11 @@ Rgb utilisation_colour(double utilisation);
 /// The flag colour for "above limit".
 Rgb above_limit_colour();
 
+/// A member that no check covers: a dark neutral grey, outside both scales'
+/// hues (and the undeformed frame behind a deformed one: a pale grey).
+Rgb not_checked_colour();
+Rgb undeformed_colour();
+
 /// Colour of a signed value as a fraction of the largest magnitude shown,
 /// -1 to 1 (clamped).
 Rgb signed_colour(double fraction);

@@ -1,17 +1,19 @@
 #pragma once
 // Pictures of a load result for reports: the frame seen from above one
-// corner, members drawn through their stations and coloured by stress, with a
-// colour bar. Rendered by VTK with OpenGL in an offscreen context (EGL without
-// a window system: Mesa's software renderer on servers, no display needed) on
-// a thread of its own, so a host application's current OpenGL context is left
-// alone. Where no such context can be created, the same picture is drawn
-// without OpenGL on VTK's image canvas (lines only, no colour bar). PNG
-// encoded by VTK.
+// corner, members drawn through their stations in the colours of the
+// utilisation scale (colour_scale.hpp: 0 to 1 the same in every picture, one
+// flag colour above 1), so a colour means the same thing in every picture.
+// The legend is not drawn into the picture: the report draws it, horizontally,
+// under the picture, and places the member labels over it where `labels` says.
+// Rendered by VTK with OpenGL in an offscreen context (EGL without a window
+// system: Mesa's software renderer on servers, no display needed) on a thread
+// of its own, so a host application's current OpenGL context is left alone.
+// Where no such context can be created, the same picture is drawn without
+// OpenGL on VTK's image canvas. PNG encoded by VTK.
 
 #include "stepframe/analysis/frame_model.hpp"
 #include "stepframe/analysis/results.hpp"
 
-#include <array>
 #include <cstdint>
 #include <string>
 #include <vector>
@@ -21,25 +23,35 @@ namespace stepframe::viz {
 struct PictureOptions {
   int width = 960;
   int height = 600;
-  bool deformed = false;     ///< draw the deformed shape over a grey undeformed one
-  double stress_max = 0;     ///< colour scale top [Pa]; 0 = the result's largest von Mises stress
-  bool opengl = true;        ///< false: draw on the image canvas even where OpenGL is available
+  bool deformed = false;  ///< draw the deformed shape over a pale undeformed one
+  bool opengl = true;     ///< false: draw on the image canvas even where OpenGL is available
+  /// One value per member (member_chains order) on the utilisation scale,
+  /// drawn along the whole member: e.g. its governing utilisation. NaN: not
+  /// checked (not_checked_colour). Empty: every point is coloured by its
+  /// von Mises stress over fy (fy of the member's material for its section).
+  std::vector<double> member_values;
+  /// Members (member_chains order) whose mid-length the picture reports in `labels`.
+  std::vector<std::size_t> labelled;
 };
 
-/// What was drawn: the PNG and the colour scale used.
+/// Where a labelled member's mid-length appears, as fractions of the
+/// picture's width and height from its top-left corner.
+struct PictureLabel {
+  std::size_t member = 0;
+  double x = 0, y = 0;
+};
+
+/// What was drawn.
 struct Picture {
   std::vector<std::uint8_t> png;
-  double stress_max = 0;         ///< [Pa], the colour scale's top (its bottom is 0)
-  double deformation_scale = 0;  ///< displacements were multiplied by this (deformed pictures)
-  std::string drawn_by;          ///< "OpenGL (offscreen)" or "image canvas"
+  double deformation_scale = 0;     ///< displacements were multiplied by this (deformed pictures)
+  double largest_displacement = 0;  ///< the largest displacement drawn [m]
+  std::string drawn_by;             ///< "OpenGL (offscreen)" or "image canvas"
+  std::vector<PictureLabel> labels; ///< one per PictureOptions::labelled member, in that order
 };
 
-/// Colour of a value in [0, 1] on the scale the pictures and the report share:
-/// blue (0) - cyan - green - yellow - red (1), as 8-bit RGB.
-std::array<std::uint8_t, 3> stress_colour(double fraction);
-
-/// Draws the members of `result` coloured by the von Mises stress at each station.
-Picture draw_stress_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
-                            const PictureOptions& options = {});
+/// Draws the members of `result` coloured as `options` say.
+Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
+                           const PictureOptions& options = {});
 
 }  // namespace stepframe::viz

@@ -1,0 +1,117 @@
+// The browser view in report.html: the page's part (controls, panel, data)
+// around viz's scripts. The data is the model's members as node paths, each
+// result's forces and stress ratio per member, and each member's checks.
+
+#include "report_parts.hpp"
+
+#include "stepframe/analysis/material.hpp"
+#include "stepframe/viz/browser_view.hpp"
+
+#include <fmt/format.h>
+#include <nlohmann/json.hpp>
+#include <spdlog/spdlog.h>
+
+namespace stepframe::report {
+namespace {
+
+std::string quoted(const std::string& text) { return nlohmann::json(text).dump(); }
+
+/// JSON numbers: 5 significant digits (a view, not a result file).
+std::string n5(double value) { return std::isfinite(value) ? fmt::format("{:.5g}", value) : "null"; }
+
+/// The view's data; its shapes are what viz/web/frame_view.js reads.
+std::string view_data(const Analysis& a) {
+  const auto& model = a.built.model;
+  const auto chains = analysis::member_chains(model);
+  const auto governing = governing_per_member(a);
+  const auto sheets = sheet_members(a);
+  std::vector<bool> has_sheet(chains.size(), false);
+  for (std::size_t m : sheets)
+    if (m < has_sheet.size()) has_sheet[m] = true;
+
+  std::string d = "{\"scales\":" + viz::colour_scales_json() + ",\"nodes\":[";
+  for (std::size_t i = 0; i < model.nodes.size(); ++i)
+    d += fmt::format("{}{:.4f},{:.4f},{:.4f}", i ? "," : "", model.nodes[i].x(), model.nodes[i].y(), model.nodes[i].z());
+  d += "],\"members\":[";
+  std::vector<double> fy(chains.size());
+  for (std::size_t m = 0; m < chains.size(); ++m) {
+    const auto& el = model.elements[chains[m].elements.front()];
+    fy[m] = analysis::material_for_section(model.materials[el.material], model.sections[el.section]).fy;
+    std::string path = std::to_string(el.nodes[0]);
+    double length = 0;
+    for (std::size_t e : chains[m].elements) {
+      const auto& part = model.elements[e];
+      path += "," + std::to_string(part.nodes[1]);
+      length += (model.nodes[part.nodes[1]] - model.nodes[part.nodes[0]]).norm();
+    }
+    const auto* g = m < governing.size() ? governing[m] : nullptr;
+    d += fmt::format("{}{{\"id\":{},\"label\":{},\"section\":{},\"material\":{},\"length\":{},\"path\":[{}],\"u\":{}{}}}",
+                     m ? "," : "", m, quoted(m < a.built.member_sources.size() ? member_label(a, m) : ""),
+                     quoted(model.sections[el.section].designation), quoted(model.materials[el.material].name),
+                     n5(length), path, g ? n5(g->utilisation) : "null",
+                     has_sheet[m] ? ",\"sheet\":" + quoted(sheet_anchor(m)) : "");
+  }
+  d += "],\"results\":[";
+  for (std::size_t r = 0; r < a.results.size(); ++r) {
+    const auto& result = a.results[r];
+    d += fmt::format("{}{{\"name\":{},\"kind\":\"{}\",\"stress\":[", r ? "," : "", quoted(result.name),
+                     result.is_combination ? "combination" : "case");
+    for (std::size_t m = 0; m < result.members.size(); ++m)
+      d += (m ? "," : "") + n5(result.members[m].max_von_mises / fy[m]);
+    d += "],\"extremes\":[";
+    for (std::size_t m = 0; m < result.members.size(); ++m) {
+      d += m ? ",[" : "[";
+      for (std::size_t c = 0; c < 6; ++c)
+        d += (c ? "," : "") + n5(result.members[m].extremes[c].max) + "," + n5(result.members[m].extremes[c].min);
+      d += "]";
+    }
+    d += "]}";
+  }
+  // Per member: [check, result, value, limit, utilisation, pass], values with their units for people.
+  std::vector<std::string> checks(chains.size());
+  for (const auto& c : a.checks)
+    if (c.member < checks.size())
+      checks[c.member] += fmt::format("{}[{},{},{},{},{},{}]", checks[c.member].empty() ? "" : ",", quoted(c.check),
+                                      quoted(c.combination), quoted(with_unit(c.value, c.unit)),
+                                      quoted(with_unit(c.limit, c.unit)), n5(c.utilisation), c.pass ? "true" : "false");
+  d += "],\"checks\":[";
+  for (std::size_t m = 0; m < checks.size(); ++m) d += (m ? ",[" : "[") + checks[m] + "]";
+  const auto order = members_by_utilisation(a);
+  const std::string initial = !order.empty() && governing[order.front()] ? governing[order.front()]->combination : "";
+  d += "],\"initial_result\":" + quoted(initial) + "}";
+  return d;
+}
+
+/// Text inside <script>: "</" would end the element early (HTML 4.01 B.3.2 / the HTML standard's script data state).
+std::string script_safe(std::string text) {
+  for (std::size_t at = text.find("</"); at != std::string::npos; at = text.find("</", at + 3)) text.replace(at, 2, "<\\/");
+  return text;
+}
+
+}  // namespace
+
+std::string browser_view_section(const Analysis& a) {
+  const auto& outputs = a.project.outputs;
+  const std::size_t members = a.built.model.members.size();
+  const bool wanted = outputs.browser_view.value_or(members <= OutputsSpec::browser_view_members);
+  if (!wanted || a.results.empty()) {
+    if (!outputs.browser_view)
+      spdlog::info("report: no 3D view for {} members (over {}; outputs.browser_view: true adds it)", members,
+                   OutputsSpec::browser_view_members);
+    return {};
+  }
+  std::string h =
+      "<h2 id=\"view\">3D view</h2>\n<p class=\"hint\">Drag to orbit, wheel to zoom, right-drag to pan; click a member "
+      "for its checks and forces.</p>\n<div class=\"view-controls\"><label>Quantity <select id=\"sf-view-quantity\">"
+      "</select></label> <label>Result <select id=\"sf-view-result\"></select></label></div>\n"
+      "<div class=\"view-row\"><div id=\"sf-view\"></div><div id=\"sf-view-panel\"><p>Click a member.</p></div></div>\n"
+      "<div id=\"sf-view-legend\" class=\"legend\"></div>\n";
+  h += "<script type=\"application/json\" id=\"sf-view-data\">" + script_safe(view_data(a)) + "</script>\n";
+  h += "<script>" + script_safe(std::string(viz::three_js_bundle())) + "</script>\n";
+  h += "<script>" + script_safe(std::string(viz::frame_view_script())) + "</script>\n";
+  h += "<details class=\"licence\"><summary>The 3D view is drawn with three.js (MIT licence)</summary><pre>" +
+       esc(std::string(viz::three_js_licence())) + "</pre></details>\n";
+  return h;
+}
+
+}  // namespace stepframe::report
