@@ -4,6 +4,7 @@
 #include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/viz/surface_vtu_writer.hpp"
+#include "stepframe/viz/colour_scale.hpp"
 #include "stepframe/viz/vtu_writer.hpp"
 
 #include <catch2/catch.hpp>
@@ -82,6 +83,11 @@ TEST_CASE("the line model carries every station of every member into the file") 
   CHECK(middle[0] == Approx(2.0));
   CHECK(middle[2] == Approx(1.0));
   CHECK(grid->GetCellData()->GetArray("utilisation")->GetTuple1(1) == Approx(0.75));
+  // The report's colour of that utilisation, as bytes a viewer shows directly.
+  auto* colour = grid->GetCellData()->GetArray("utilisation_colour");
+  REQUIRE(colour);
+  const auto expected = viz::utilisation_colour(0.75);
+  for (int c = 0; c < 3; ++c) CHECK(colour->GetComponent(1, c) == expected[static_cast<std::size_t>(c)]);
   REQUIRE(grid->GetCellData()->GetScalars());
   CHECK(std::string(grid->GetCellData()->GetScalars()->GetName()) == "stress");
   CHECK(grid->GetCellData()->GetArray("member_id")->GetTuple1(1) == 1);

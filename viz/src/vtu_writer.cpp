@@ -1,5 +1,7 @@
 #include "stepframe/viz/vtu_writer.hpp"
 
+#include "stepframe/viz/colour_scale.hpp"
+
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/analysis/parallel.hpp"
 #include "vtk_arrays.hpp"
@@ -11,6 +13,7 @@
 #include <vtkPointData.h>
 #include <vtkPoints.h>
 #include <vtkStringArray.h>
+#include <vtkUnsignedCharArray.h>
 #include <vtkUnstructuredGrid.h>
 
 #include <algorithm>
@@ -64,6 +67,12 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   auto utilisation = detail::float_array("utilisation", 1, cells);
   auto member_id = detail::int_array("member_id", cells);
   auto section_id = detail::int_array("section_id", cells);
+  // Our utilisation colours as RGB, so a viewer can show the report's colours as they are
+  // (direct colours rather than its own colour map).
+  vtkNew<vtkUnsignedCharArray> utilisation_rgb;
+  utilisation_rgb->SetName("utilisation_colour");
+  utilisation_rgb->SetNumberOfComponents(3);
+  utilisation_rgb->SetNumberOfTuples(cells);
   vtkNew<vtkStringArray> section;
   section->SetName("section");
   section->SetNumberOfValues(cells);
@@ -73,6 +82,8 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
     stress->SetValue(i, static_cast<float>(result.members[m].max_von_mises));
     normal_stress->SetValue(i, static_cast<float>(result.members[m].max_abs_stress));
     utilisation->SetValue(i, m < member_utilisation.size() ? static_cast<float>(member_utilisation[m]) : 0.0f);
+    const Rgb colour = m < member_utilisation.size() ? utilisation_colour(member_utilisation[m]) : not_checked_colour();
+    utilisation_rgb->SetTypedTuple(i, colour.data());
     member_id->SetValue(i, static_cast<int>(m));
     section_id->SetValue(i, static_cast<int>(section_index));
     section->SetValue(i, model.sections[section_index].designation);
@@ -91,13 +102,17 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   grid->GetCellData()->AddArray(stress);
   grid->GetCellData()->SetActiveScalars("stress");
   grid->GetCellData()->AddArray(normal_stress);
-  if (!member_utilisation.empty()) grid->GetCellData()->AddArray(utilisation);
+  if (!member_utilisation.empty()) {
+    grid->GetCellData()->AddArray(utilisation);
+    grid->GetCellData()->AddArray(utilisation_rgb);
+  }
   grid->GetCellData()->AddArray(member_id);
   grid->GetCellData()->AddArray(section_id);
   grid->GetCellData()->AddArray(section);
   detail::describe(grid->GetFieldData(), {{"displacement", "m"}, {"von_mises", "Pa"}, {"N", "N (tension > 0)"},
                                           {"Vy", "N"}, {"Vz", "N"}, {"T", "N*m"}, {"My", "N*m"}, {"Mz", "N*m"},
                                           {"stress", "Pa"}, {"normal_stress", "Pa"}, {"utilisation", "1"},
+                                          {"utilisation_colour", "sRGB 0-255, stepframe's utilisation scale"},
                                           {"points", "m"}});
   detail::write_grid(file, grid, options.compression);
 }

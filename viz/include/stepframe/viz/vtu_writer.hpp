@@ -29,7 +29,9 @@ struct LineModelOptions {
 ///             (internal forces, results.hpp convention).
 /// Cell data:  "stress" (largest von Mises stress over the member [Pa]; the
 ///             active scalar, so any VTK viewer colours by it), "normal_stress"
-///             (largest |sigma| [Pa]), "utilisation" (when given), "member_id",
+///             (largest |sigma| [Pa]), "utilisation" (when given) and
+///             "utilisation_colour" (its colour on stepframe's scale as sRGB
+///             bytes: shown as they are, the report's colours), "member_id",
 ///             "section_id", "section" (designation).
 /// Writes exactly `file`; callers that need atomic output pass a temporary
 /// name and rename it. Throws std::runtime_error naming the file on failure.
