@@ -13,6 +13,22 @@
 #include <limits>
 
 namespace stepframe::viz {
+namespace {
+
+/// The point halfway along a polyline, as drawn.
+Eigen::Vector3d halfway(const detail::ScenePolyline& line) {
+  double length = 0;
+  for (std::size_t k = 0; k + 1 < line.size(); ++k) length += (line[k + 1].position - line[k].position).norm();
+  double left = 0.5 * length;
+  for (std::size_t k = 0; k + 1 < line.size(); ++k) {
+    const double piece = (line[k + 1].position - line[k].position).norm();
+    if (piece >= left && piece > 0) return line[k].position + (left / piece) * (line[k + 1].position - line[k].position);
+    left -= piece;
+  }
+  return line.front().position;
+}
+
+}  // namespace
 
 Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
                            const PictureOptions& options) {
@@ -26,17 +42,27 @@ Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::Lo
   // A picture a few hundred pixels wide needs few points: five per element keep the deflected
   // curve and the stress gradient, and a large frame draws several times faster than with every station.
   constexpr std::size_t points_per_element = 5;
-  analysis::parallel_for(chains.size(), [&](std::size_t m) {
-    lines[m] =
-        analysis::member_line(model, result, chains[m], analysis::LineDetail::stations, points_per_element).stations;
-  });
+  const bool by_member = !options.member_values.empty();
+  if (by_member && !options.deformed) {
+    // Nothing drawn depends on the result: the elements' end nodes are the whole picture.
+    for (std::size_t m = 0; m < chains.size(); ++m) {
+      const auto& elements = chains[m].elements;
+      lines[m].resize(elements.size() + 1);
+      lines[m][0].position = model.nodes[model.elements[elements[0]].nodes[0]];
+      for (std::size_t k = 0; k < elements.size(); ++k) lines[m][k + 1].position = model.nodes[model.elements[elements[k]].nodes[1]];
+    }
+  } else {
+    analysis::parallel_for(chains.size(), [&](std::size_t m) {
+      lines[m] =
+          analysis::member_line(model, result, chains[m], analysis::LineDetail::stations, points_per_element).stations;
+    });
+  }
   for (const auto& stations : lines)
     for (const auto& st : stations) picture.largest_displacement = std::max(picture.largest_displacement, st.displacement.norm());
   // Deformed pictures show the largest displacement as 5% of the frame's extent.
   picture.deformation_scale =
       options.deformed && picture.largest_displacement > 0 ? 0.05 * span / picture.largest_displacement : 0.0;
 
-  const bool by_member = !options.member_values.empty();
   detail::PictureScene scene;
   scene.width = options.width;
   scene.height = options.height;
@@ -56,11 +82,7 @@ Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::Lo
     scene.coloured.push_back(std::move(drawn));
     if (options.deformed) scene.grey.push_back(std::move(undeformed));
   }
-  for (std::size_t m : options.labelled) {
-    const auto& stations = lines.at(m);
-    const auto& mid = stations[stations.size() / 2];
-    scene.anchors.push_back(mid.position + picture.deformation_scale * mid.displacement);
-  }
+  for (std::size_t m : options.labelled) scene.anchors.push_back(halfway(scene.coloured.at(m)));
 
   std::string why_not = "not asked for";
   auto drawn = options.opengl ? detail::render_with_opengl(scene, why_not) : std::nullopt;
