@@ -1,5 +1,6 @@
 // The stepframe command line: data on stdout, logs on stderr.
 
+#include "batch_command.hpp"
 #include "init_command.hpp"
 #include "progress_display.hpp"
 #include "sections_command.hpp"
@@ -135,6 +136,9 @@ int main(int argc, char** argv) {
   init->add_flag("--force", init_force, "Overwrite the project file if it exists");
   init->add_option("--tolerance", init_tolerance_mm, "Merge tolerance for end points, in mm")->capture_default_str();
 
+  stepframe::cli::BatchCommandOptions batch_options;
+  auto* batch = stepframe::cli::add_batch_command(app, batch_options);
+
   stepframe::cli::SectionsOptions sections_options;
   auto* sections = stepframe::cli::add_sections_command(app, sections_options);
 
@@ -149,6 +153,7 @@ int main(int argc, char** argv) {
   try {
     if (*run) return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk);
     if (*sections) return stepframe::cli::sections_command(sections_options);
+    if (*batch) return stepframe::cli::batch_command(batch_options, terminal && !quiet);
     if (*init) return stepframe::cli::init_command(init_model, init_output, init_force, init_tolerance_mm);
     return inspect_command(model, tolerance_mm, inspect_json);
   } catch (const std::exception& e) {

@@ -4,6 +4,7 @@
 // with their SHA-256, the supports found, every load with its magnitude and
 // selector, the section properties used, and the rules by their selectors.
 
+#include "file_digest.hpp"
 #include "report_parts.hpp"
 
 #include "stepframe/analysis/material.hpp"
@@ -11,7 +12,6 @@
 #include "stepframe/api.hpp"
 
 #include <fmt/format.h>
-#include <openssl/evp.h>
 
 #include <chrono>
 #include <cstdlib>
@@ -21,25 +21,6 @@
 
 namespace stepframe::report {
 namespace {
-
-/// SHA-256 (FIPS 180-4) of a file's bytes as lowercase hex; "unreadable" when it cannot be read.
-std::string file_sha256(const std::filesystem::path& file) {
-  std::ifstream in(file, std::ios::binary);
-  if (!in) return "unreadable";
-  std::unique_ptr<EVP_MD_CTX, decltype(&EVP_MD_CTX_free)> context(EVP_MD_CTX_new(), &EVP_MD_CTX_free);
-  EVP_DigestInit_ex(context.get(), EVP_sha256(), nullptr);
-  std::vector<char> buffer(1 << 16);
-  while (in) {
-    in.read(buffer.data(), static_cast<std::streamsize>(buffer.size()));
-    EVP_DigestUpdate(context.get(), buffer.data(), static_cast<std::size_t>(in.gcount()));
-  }
-  unsigned char digest[EVP_MAX_MD_SIZE];
-  unsigned int length = 0;
-  EVP_DigestFinal_ex(context.get(), digest, &length);
-  std::string hex;
-  for (unsigned int i = 0; i < length; ++i) hex += fmt::format("{:02x}", digest[i]);
-  return hex;
-}
 
 /// The run's date, UTC; SOURCE_DATE_EPOCH (reproducible-builds.org) when set, so re-runs can be byte-identical.
 std::string run_date() {
@@ -138,10 +119,10 @@ std::string inputs_section(const Analysis& a) {
   std::string h = "<h2 id=\"inputs\">Inputs</h2>\n<dl>\n";
   h += fmt::format("<dt>Program</dt><dd>stepframe {}, run on {}</dd>\n", library_version(), run_date());
   h += fmt::format("<dt>Project file</dt><dd>{} <span class=\"hash\">SHA-256 {}</span></dd>\n",
-                   esc(p.file.filename().string()), file_sha256(p.file));
+                   esc(p.file.filename().string()), detail::file_sha256(p.file));
   h += fmt::format("<dt>Model</dt><dd>{} <span class=\"hash\">SHA-256 {}</span> (paths relative to the project's "
                    "folder)</dd>\n",
-                   esc(relative_to(p.model, folder)), file_sha256(p.model));
+                   esc(relative_to(p.model, folder)), detail::file_sha256(p.model));
   h += fmt::format("<dt>Units of the project file</dt><dd>length {}, force {}; results in SI (m, N, Pa), shown here in "
                    "mm, kN, MPa</dd>\n",
                    esc(p.length_unit), esc(p.force_unit));
