@@ -8,6 +8,7 @@
 #include "stepframe/api.hpp"
 #include "stepframe/inspect.hpp"
 
+#include <pybind11/eval.h>
 #include <pybind11/functional.h>
 #include <pybind11/pybind11.h>
 #include <pybind11/stl.h>
@@ -182,6 +183,10 @@ py::object inspect(const py::object& model, const std::optional<double>& toleran
 
 }  // namespace
 
+namespace stepframe::python {
+std::string_view python_batch_source();  // plugin/python/batch.py, compiled in
+}
+
 PYBIND11_MODULE(stepframe, m) {
   m.doc() = "stepframe: analyse steel frames drawn as STEP wireframes (screening aid; a competent engineer "
             "must review the results).";
@@ -215,4 +220,6 @@ or {'status': 'error', ...}), files (written paths), summary (the text `stepfram
         "the wireframe its settings build and the members its rules leave without a section or material\n"
         "('unassigned_members'). tolerance_mm: the merge tolerance (default 1 mm, or the project's).\n"
         "Raises ValueError when a file cannot be read.");
+  // stepframe.batch and its helpers, in Python, run in the module's own namespace.
+  py::exec(std::string(stepframe::python::python_batch_source()), m.attr("__dict__"));
 }
