@@ -53,16 +53,23 @@ TEST_CASE("stepframe init writes a starter project that loads as written") {
   REQUIRE(project.supports.size() == 1);
   REQUIRE(project.supports[0].where.z);
   CHECK(*project.supports[0].where.z == Approx(0.25));  // the column feet, read back in metres
-  CHECK(project.supports[0].fixed == std::array<bool, 6>{true, true, true, false, false, false});
-  CHECK(project.rules.empty());  // every rule is a commented stub
+  // The portal lies in the x-z plane: pinned in it, held out of it (rx, rz).
+  CHECK(project.supports[0].fixed == std::array<bool, 6>{true, true, true, true, false, true});
   CHECK_THAT(text, Contains("the 2 lowest nodes"));
 
-  // Attributes become commented rule stubs, with the designations recognised in them.
-  CHECK_THAT(text, Contains("#   - where: {layer: \"COLUMNS\"}") && Contains("# 2 members"));
-  CHECK_THAT(text, Contains("#   - where: {layer: \"BEAMS\"}") && Contains("# 1 member\n"));
-  CHECK_THAT(text, Contains("#   - where: {product: \"PORTAL-1\"}"));
-  CHECK_THAT(text, Contains("#   - where: {name: \"HE 200 B\"}") && Contains("section: HEB200"));
-  CHECK_THAT(text, Contains("#   - where: {name: \"IPE 300\"}") && Contains("section: IPE300"));
+  // The designations recognised in the names become active rules after one material rule for every member.
+  REQUIRE(project.rules.size() == 3);
+  CHECK(project.rules[0].material == "S355");
+  CHECK_FALSE(project.rules[0].where.name);
+  CHECK(project.rules[1].where.name == "HE 200 B");
+  CHECK(project.rules[1].section == "HEB200");
+  CHECK(project.rules[2].where.name == "IPE 300");
+  CHECK(project.rules[2].section == "IPE300");
+  CHECK_THAT(text, Contains("material: S355") && Contains("CHECK: assumed for every member"));
+  // The other attribute values become commented stubs with their member counts.
+  CHECK_THAT(text, Contains("#  - where: {layer: \"COLUMNS\"}") && Contains("# 2 members"));
+  CHECK_THAT(text, Contains("#  - where: {layer: \"BEAMS\"}") && Contains("# 1 member\n"));
+  CHECK_THAT(text, Contains("#  - where: {product: \"PORTAL-1\"}"));
 
   SECTION("an existing file is kept unless --force") {
     test::write_text(dir / "portal.yaml", "# mine\n");

@@ -72,7 +72,7 @@ TEST_CASE("inspect through a project lists the members left without a section", 
   // `run` refuses the same member, by the same entity.
   r = test::run_stepframe("run \"" + (dir / "shed.yaml").string() + "\" --out \"" + (dir / "out").string() + "\"", dir);
   CHECK(r.status == 2);
-  CHECK_THAT(r.err, Contains("1 member(s) have no section") && Contains(entity));
+  CHECK_THAT(r.err, Contains("1 member has no section") && Contains(entity));
 
   // A rule for the brace leaves nothing unassigned.
   const std::string fixed = shed_project.substr(0, shed_project.find("supports:")) +
