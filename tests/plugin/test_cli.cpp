@@ -110,6 +110,20 @@ TEST_CASE("command-line conventions") {
     CHECK_THAT(version.out, Contains("stepframe 0."));
     CHECK(test::run_stepframe("no-such-command", dir).status == 2);
   }
+  SECTION("help names the program, the exit statuses and what each subcommand writes") {
+    const auto help = test::run_stepframe("--help", dir);
+    CHECK(help.status == 0);
+    CHECK_THAT(help.out, Contains("Usage: stepframe [OPTIONS] SUBCOMMAND"));
+    CHECK(help.out.find(STEPFRAME_EXE) == std::string::npos);  // not the path it was started by
+    CHECK_THAT(help.out, Contains("Exit status: 0 every check passes; 1 ") && Contains("2 bad input") &&
+                             Contains("3 the frame is unstable") && Contains("4 internal error"));
+    CHECK_THAT(help.out, Contains("Writes results.json, report.html, checks.csv") && Contains("writes no file") &&
+                             Contains("Writes MODEL.yaml"));
+    const auto run_help = test::run_stepframe("run --help", dir);
+    CHECK_THAT(run_help.out, Contains("Usage: stepframe run") && Contains("also when checks fail") &&
+                                 Contains("Exit status:"));
+    CHECK_THAT(test::run_stepframe("sections --help", dir).out, Contains("writes no file"));
+  }
   SECTION("a run off a terminal: data on stdout, no progress line, -q and -v after the subcommand") {
     write_portal(dir / "portal.stp");
     test::write_text(dir / "portal.yaml", R"(model: portal.stp
