@@ -116,7 +116,7 @@ analysis::Section read_section(const Reader& r, const YAML::Node& node, const st
 const std::vector<std::string> member_selector_keys{"name", "layer", "product", "colour"};
 const std::vector<std::string> node_selector_keys{"x", "y", "z", "near", "point_name", "point_layer"};
 // The keys that stand beside `where:` in rules, loads, supports and settlements.
-const std::vector<std::string> item_keys{"section", "material", "roll",  "orient_to", "release", "buckling",
+const std::vector<std::string> item_keys{"section", "material", "roll", "orient_to", "release", "buckling",
                                          "deflection_ratio", "join_crossings", "w", "w_end", "from", "to",
                                          "point", "at", "axes", "fix", "springs", "force", "moment", "displacement"};
 enum class Selects { members, nodes };
@@ -125,15 +125,14 @@ bool one_of(const std::string& key, const std::vector<std::string>& keys) {
   return std::find(keys.begin(), keys.end(), key) != keys.end();
 }
 
-// `{key: value}` with the value as written, for messages.
-std::string as_written(const std::string& key, const YAML::Node& value) {
-  std::string text = value.IsScalar() ? value.Scalar() : "...";
-  if (value.IsSequence()) {
-    text.clear();
-    for (std::size_t i = 0; i < value.size(); ++i) text += (i ? ", " : "") + (value[i].IsScalar() ? value[i].Scalar() : "...");
-    text = "[" + text + "]";
-  }
-  return "{" + key + ": " + text + "}";
+// A value as written, for messages: a scalar, or a flat list such as [0, 0, 0].
+std::string as_written(const YAML::Node& value) {
+  if (value.IsScalar()) return value.Scalar();
+  if (!value.IsSequence()) return "...";
+  std::string text;
+  for (std::size_t i = 0; i < value.size(); ++i)
+    text += (i ? ", " : "") + (value[i].IsScalar() ? value[i].Scalar() : std::string("..."));
+  return "[" + text + "]";
 }
 
 std::string how_to_select(Selects selects) {
@@ -142,49 +141,54 @@ std::string how_to_select(Selects selects) {
              : "choose members with where: {layer: ...} (name, layer, product, colour)";
 }
 
+// A selector key of the other kind: `layer` for a support, `z` for a rule.
+[[noreturn]] void fail_wrong_kind(const Reader& r, const YAML::Node& key_node, const std::string& path,
+                                  const std::string& key, Selects selects) {
+  const bool nodes = selects == Selects::nodes;
+  r.fail(key_node, Reader::join(path, key),
+         "'" + key + "' chooses " + (nodes ? "members" : "nodes") + ", but this item applies to " +
+             (nodes ? "nodes" : "members") + ": " + how_to_select(selects));
+}
+
 // check_keys for an item that selects with `where:` (a rule, a load, a support, a settlement).
 void check_item_keys(const Reader& r, const YAML::Node& item, const std::string& path,
                      const std::vector<std::string>& allowed, Selects selects) {
+  const auto& own = selects == Selects::nodes ? node_selector_keys : member_selector_keys;
+  const auto& other = selects == Selects::nodes ? member_selector_keys : node_selector_keys;
   if (item.IsMap())
     for (const auto& entry : item) {
       const auto key = entry.first.as<std::string>();
       if (one_of(key, allowed)) continue;
-      const bool node_key = one_of(key, node_selector_keys), member_key = one_of(key, member_selector_keys);
-      if (!node_key && !member_key) continue;
-      if (node_key == (selects == Selects::nodes))
+      if (one_of(key, own))
         r.fail(entry.first, Reader::join(path, key),
-               "'" + key + "' chooses " + (node_key ? "nodes" : "members") + " and goes inside where: write where: " +
-                   as_written(key, entry.second));
-      r.fail(entry.first, Reader::join(path, key),
-             "'" + key + "' chooses " + (node_key ? "nodes" : "members") + ", but this item applies to " +
-                 (node_key ? "members" : "nodes") + ": " + how_to_select(selects));
+               "'" + key + "' goes inside where: write where: {" + key + ": " + as_written(entry.second) + "}");
+      if (one_of(key, other)) fail_wrong_kind(r, entry.first, path, key, selects);
     }
   r.check_keys(item, path, allowed);
 }
 
 // check_keys for a `where:` selector: an item's own key written inside it belongs beside it.
 void check_selector_keys(const Reader& r, const YAML::Node& where, const std::string& path, Selects selects) {
-  const auto& allowed = selects == Selects::nodes ? node_selector_keys : member_selector_keys;
+  const auto& own = selects == Selects::nodes ? node_selector_keys : member_selector_keys;
+  const auto& other = selects == Selects::nodes ? member_selector_keys : node_selector_keys;
   if (where.IsMap())
     for (const auto& entry : where) {
       const auto key = entry.first.as<std::string>();
-      if (one_of(key, allowed)) continue;
-      if (one_of(key, selects == Selects::nodes ? member_selector_keys : node_selector_keys))
+      if (one_of(key, own)) continue;
+      if (one_of(key, other)) fail_wrong_kind(r, entry.first, path, key, selects);
+      if (one_of(key, item_keys))
         r.fail(entry.first, Reader::join(path, key),
-               "'" + key + "' chooses " + (selects == Selects::nodes ? "members" : "nodes") + ", but this item applies to " +
-                   (selects == Selects::nodes ? "nodes" : "members") + ": " + how_to_select(selects));
-      if (!one_of(key, item_keys)) continue;  // anything else: check_keys lists what is known
-      r.fail(entry.first, Reader::join(path, key),
-             "'" + key + "' goes beside where:, not inside it: write `- where: {...}` and, on the next line at "
-                 "the indent of where:, `" + key + ": " + (entry.second.IsScalar() ? entry.second.Scalar() : "...") + "`");
+               "'" + key + "' goes beside where:, not inside it: write `- where: {...}` and, on the next line at "
+               "the indent of where:, `" + key + ": " + as_written(entry.second) + "`");
     }
-  r.check_keys(where, path, allowed);
+  r.check_keys(where, path, own);
 }
 
 // The nodes a support, node load or settlement applies to: `where: {...}`, or the
 // shorthand `near: [x, y, z]` beside the item's other keys, alike in all three.
 NodeSelector read_node_selector(const Reader& r, const YAML::Node& node, const std::string& path);
-NodeSelector read_node_target(const Reader& r, const YAML::Node& item, const std::string& path, const std::string& what) {
+NodeSelector read_node_target(const Reader& r, const YAML::Node& item, const std::string& path,
+                              const std::string& what) {
   if (item["near"] && item["where"]) r.fail(item, path, "use either 'near' or 'where', not both");
   if (item["near"]) {
     NodeSelector sel;
@@ -192,8 +196,7 @@ NodeSelector read_node_target(const Reader& r, const YAML::Node& item, const std
     sel.near = r.vector3(item["near"], path + ".near", dimension::length);
     return sel;
   }
-  if (!item["where"])
-    r.fail(item, path, what + " needs its nodes: where: {z: 0} (planes x, y, z), near: [x, y, z] or where: {point_name: ...}");
+  if (!item["where"]) r.fail(item, path, what + " needs its nodes: " + how_to_select(Selects::nodes));
   return read_node_selector(r, item["where"], path + ".where");
 }
 

@@ -194,6 +194,6 @@ TEST_CASE("a selector key on the wrong level is refused with the form it belongs
     };
     INFO(list);
     CHECK_THAT(message(with("near: [0, 0, 0], where: {z: 0},")), Contains("use either 'near' or 'where', not both"));
-    CHECK_THAT(message(with("")), Contains("needs its nodes") && Contains("near: [x, y, z]"));
+    CHECK_THAT(message(with("")), Contains("needs its nodes: choose nodes with") && Contains("near: [x, y, z]"));
   }
 }
