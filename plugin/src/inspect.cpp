@@ -76,9 +76,7 @@ Inspection inspect_project(const std::filesystem::path& project_file, std::optio
     const auto& p = inspection.properties[m];
     if (!p.section || !p.material) inspection.unassigned.push_back({m, !p.section, !p.material});
   }
-  for (std::size_t r : rules_matching_nothing(project, inspection.wireframe))
-    inspection.warnings.push_back(project.rules[r].where.origin.describe() +
-                                  ": this rule matches no member; check its patterns against the attributes above");
+  inspection.warnings = selectors_matching_nothing(project, inspection.wireframe);
   inspection.supports = support_nodes(project, inspection.wireframe);
   inspection.support_specs = project.supports;
   for (const auto& s : inspection.supports)

@@ -411,13 +411,29 @@ std::vector<UnassignedMember> members_without_properties(const Project& project,
   return unassigned;
 }
 
-std::vector<std::size_t> rules_matching_nothing(const Project& project, const geometry::Wireframe& wireframe) {
-  std::vector<std::size_t> idle;
-  for (std::size_t r = 0; r < project.rules.size(); ++r) {
-    const CompiledSelector where(project.rules[r].where);
-    if (std::none_of(wireframe.members.begin(), wireframe.members.end(),
-                     [&](const geometry::WireMember& m) { return where.matches(m.source); }))
-      idle.push_back(r);
+std::vector<std::string> selectors_matching_nothing(const Project& project, const geometry::Wireframe& wireframe) {
+  std::vector<std::string> idle;
+  const auto matches_none = [&](const MemberSelector& sel) {
+    const CompiledSelector where(sel);
+    return std::none_of(wireframe.members.begin(), wireframe.members.end(),
+                        [&](const geometry::WireMember& m) { return where.matches(m.source); });
+  };
+  const std::string hint = "; check its patterns against the attributes `stepframe inspect` lists";
+  for (const auto& rule : project.rules)
+    if (matches_none(rule.where)) idle.push_back(rule.where.origin.describe() + ": this rule matches no member" + hint);
+  for (const auto& c : project.cases) {
+    for (const auto& load : c.member_loads)
+      if (matches_none(load.where))
+        idle.push_back(load.where.origin.describe() + ": this load matches no member (`run` stops here)" + hint);
+    const auto check_nodes = [&](const NodeSelector& sel) {
+      try {
+        select_nodes(sel, wireframe.nodes, wireframe.labels, project.merge_tolerance);
+      } catch (const InputError& e) {
+        idle.push_back(std::string(e.what()) + " (`run` stops here)");
+      }
+    };
+    for (const auto& load : c.node_loads) check_nodes(load.where);
+    for (const auto& settlement : c.settlements) check_nodes(settlement.where);
   }
   return idle;
 }

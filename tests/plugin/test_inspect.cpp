@@ -153,7 +153,9 @@ TEST_CASE("inspect through a project shows each member's section and material an
                    "  - where: {layer: ROOF}\n    section: IPE200\n"  // matches nothing: a warning
                    "supports:\n  - near: [6, 0, 0]\n    fix: pinned\n"
                    "  - where: {point_name: BASE}\n    fix: fixed\n"  // the model has no named points
-                   "cases:\n  - name: G\n    self_weight: true\n");
+                   "cases:\n  - name: G\n    self_weight: true\n"
+                   "    member_loads:\n      - where: {name: PURLIN}\n        w: [0, 0, -1]\n"  // no such member
+                   "    node_loads:\n      - near: [40, 0, 0]\n        force: [0, 0, -1]\n");  // 34 m off
 
   auto r = test::run_stepframe("inspect \"" + (dir / "shed.yaml").string() + "\"", dir);
   INFO(r.out << r.err);
@@ -167,6 +169,8 @@ TEST_CASE("inspect through a project shows each member's section and material an
   // The rule and the support that select nothing are warned about, by line.
   CHECK_THAT(r.out, Contains("warning: ") && Contains("shed.yaml:8 (rules[2].where)") && Contains("matches no member"));
   CHECK_THAT(r.out, Contains("supports[1]") && Contains("no named or layered point"));
+  CHECK_THAT(r.out, Contains("shed.yaml:19 (cases[0].member_loads[0].where): this load matches no member"));
+  CHECK_THAT(r.out, Contains("cases[0].node_loads[0].near): no node near (40, 0, 0) m"));
   CHECK_THAT(r.out, Contains("0 errors, 0 warnings, 0 notes"));
 
   r = test::run_stepframe("inspect \"" + (dir / "shed.yaml").string() + "\" --json", dir);
@@ -181,5 +185,5 @@ TEST_CASE("inspect through a project shows each member's section and material an
   CHECK(j["supports"][0]["fixity"] == "pinned");
   CHECK(j["supports"][1]["nodes"].empty());
   CHECK_THAT(j["supports"][1]["problem"].get<std::string>(), Contains("point_name 'BASE'"));
-  CHECK(j["warnings"].size() == 2);
+  CHECK(j["warnings"].size() == 4);
 }

@@ -32,7 +32,8 @@ struct Inspection {
   /// With a project: the nodes each support selects (one per project support) and its fixity.
   std::vector<SupportNodes> supports;
   std::vector<SupportSpec> support_specs;
-  /// With a project: one line per rule or support that selects nothing, naming it and what to do.
+  /// With a project: one line per rule, load, settlement or support that selects nothing, naming it
+  /// and what to do.
   std::vector<std::string> warnings;
 };
 
@@ -42,7 +43,7 @@ Inspection inspect_step(const std::filesystem::path& file, double merge_toleranc
 /// Reads a project file and its STEP file, builds the wireframe with the
 /// project's options (`merge_tolerance` overrides the project's when given),
 /// gives each member its section and material, finds the support nodes, and
-/// notes the rules and supports that select nothing. Throws
+/// notes the rules, loads and supports that select nothing. Throws
 /// InputError for a bad project file or a rule naming an unknown section or
 /// material, geometry::StepReadError for a bad STEP file.
 Inspection inspect_project(const std::filesystem::path& project_file,

@@ -58,8 +58,10 @@ std::optional<std::string> designation_in(const std::string& value);
 /// The standard material grade a CAD attribute value names ("S355 plate" -> "S355").
 std::optional<std::string> material_in(const std::string& value);
 
-/// Indices of the project's rules whose `where` matches no member.
-std::vector<std::size_t> rules_matching_nothing(const Project& project, const geometry::Wireframe& wireframe);
+/// One message (naming the project-file line) per rule, member load, node load
+/// or settlement whose selector matches nothing; `run` stops at the loads,
+/// while a rule matching nothing is only suspicious. Supports: support_nodes.
+std::vector<std::string> selectors_matching_nothing(const Project& project, const geometry::Wireframe& wireframe);
 
 /// The nodes one support of the project selects, or why it selects none.
 struct SupportNodes {
