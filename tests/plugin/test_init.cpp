@@ -70,6 +70,9 @@ TEST_CASE("init on the demo STEP file writes a project that runs", "[plugin][cli
   const auto run = test::run_stepframe("run " + quoted(dir / "platform.yaml") + " --out " + quoted(dir / "as-written"), dir);
   INFO(run.out << run.err);
   CHECK(run.status == 0);
+  // Counts read as English in the summary and the log.
+  CHECK_THAT(run.out, Contains("(21 members, 16 nodes, 1 load case, 2 combinations)"));
+  CHECK_THAT(run.err, Contains("1 load case, 2 combinations"));
   const auto written = results(dir / "as-written");
   std::size_t deflections = 0;
   for (const auto& c : written["checks"])
