@@ -272,9 +272,9 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
       }
     }
   }
-  spdlog::info("frame analysed: {} nodes, {} elements, {} free DOFs, {} load cases, {} combinations",
+  spdlog::info("frame analysed: {} nodes, {} elements, {} free DOFs, {} load case{}, {} combination{}",
                model.nodes.size(), model.elements.size(), dofs.free_count(), model.cases.size(),
-               model.combinations.size());
+               model.cases.size() == 1 ? "" : "s", model.combinations.size(), model.combinations.size() == 1 ? "" : "s");
   return results;
 }
 

@@ -9,9 +9,14 @@
 namespace stepframe::cli {
 
 /// The starter project text for `inspection`, to be saved as `project_file`.
-/// It loads with read_project as written: one self-weight case, the lowest
-/// nodes suggested as pinned supports, and every layer, product and name the
-/// model holds as a commented rule to fill in.
+/// It runs as written: units following the model's (US customary for a model
+/// in feet or inches), one material for every member (marked CHECK), a rule
+/// for each layer, product and name that holds a designation, placeholder
+/// sections (marked CHECK) for members without one, the lowest nodes as
+/// pinned supports, a self-weight case, an ultimate and a serviceability
+/// combination, and stress, EN 1993 and deflection checks. Commented stubs
+/// (rules for the other attribute values, loads, more checks) become valid
+/// YAML when the '#' at the start of their lines is deleted.
 std::string starter_project(const Inspection& inspection, const std::filesystem::path& project_file);
 
 /// Writes the starter project for `model` to `project_file` (default: the

@@ -21,6 +21,10 @@ namespace {
 
 constexpr int internal_error = 4;
 
+constexpr const char* exit_statuses =
+    "Exit status: 0 every check passes; 1 the analysis ran and a check fails (its files are written); "
+    "2 bad input (the message names the file and line or STEP entity); 3 the frame is unstable; 4 internal error.";
+
 // Each stage's wall time on stderr, as `--timings` asks.
 void print_timings(stepframe::cli::ProgressDisplay& display) {
   std::string table = "stage           seconds\n";
@@ -88,7 +92,9 @@ int main(int argc, char** argv) {
   logger->set_pattern(terminal ? "\r\033[K%^%l%$: %v" : "%^%l%$: %v");
   spdlog::set_default_logger(logger);
 
-  CLI::App app{"stepframe: analyse steel frames drawn as STEP wireframes.\n" + std::string(stepframe::caution)};
+  // Named here, so help shows `stepframe`, not the path it was started by.
+  CLI::App app{"stepframe: analyse steel frames drawn as STEP wireframes.\n" + std::string(stepframe::caution), "stepframe"};
+  app.footer(exit_statuses);
   app.set_version_flag("--version", std::string("stepframe ") + STEPFRAME_VERSION);
   app.require_subcommand(1);
   app.fallthrough();  // -v / -q may follow the subcommand too
@@ -96,7 +102,11 @@ int main(int argc, char** argv) {
   app.add_flag("-v,--verbose", verbose, "Log details (debug level)");
   app.add_flag("-q,--quiet", quiet, "Log only warnings and errors");
 
-  auto* run = app.add_subcommand("run", "Analyse a project and write results.json and VTK files");
+  auto* run = app.add_subcommand(
+      "run", "Analyse a project. Writes results.json, report.html, checks.csv, takeoff.csv, takeoff_by_section.csv, "
+             "reactions.csv, end_forces.csv, frame.vtm and vtk/*.vtu into the output folder (also when checks fail; "
+             "nothing on bad input), and a summary on stdout");
+  run->footer(exit_statuses);
   std::filesystem::path project, out;
   bool run_json = false;
   run->add_option("PROJECT", project, "Project file (YAML)")->required()->check(CLI::ExistingFile);
@@ -116,8 +126,9 @@ int main(int argc, char** argv) {
       ->transform(CLI::CheckedTransformer(vtk_choices, CLI::ignore_case));
 
   auto* inspect = app.add_subcommand("inspect", "Show what a STEP file holds: unit, extent, attributes, diagnostics; "
-                                                "through a project file also the members its rules leave without "
-                                                "section or material");
+                                                "through a project file also each member's section and material, the "
+                                                "support nodes and the rules that match nothing. Prints on stdout, "
+                                                "writes no file");
   std::filesystem::path model;
   std::optional<double> tolerance_mm;
   bool inspect_json = false;
@@ -126,8 +137,10 @@ int main(int argc, char** argv) {
                       "Merge tolerance for end points, in mm (default: the project's, else 1 mm)");
   inspect->add_flag("--json", inspect_json, "Print JSON (results.json shapes) instead of tables");
 
-  auto* init = app.add_subcommand("init", "Write a starter project file for a STEP file: its layers, parts and names "
-                                          "as rule stubs, its lowest nodes as supports");
+  auto* init = app.add_subcommand("init", "Write a starter project file for a STEP file, one that runs as written: "
+                                          "rules for the designations its attributes hold, its lowest nodes as "
+                                          "supports, self weight, checks. Writes MODEL.yaml (or --output) and prints "
+                                          "its path");
   std::filesystem::path init_model, init_output;
   bool init_force = false;
   double init_tolerance_mm = 1.0;

@@ -1,12 +1,16 @@
 #include "sections_command.hpp"
 
 #include "stepframe/analysis/section.hpp"
+#include "stepframe/counted.hpp"
 
 #include <fmt/format.h>
 #include <nlohmann/json.hpp>
 #include <spdlog/spdlog.h>
 
+#include <algorithm>
+#include <cmath>
 #include <iostream>
+#include <map>
 #include <numbers>
 
 namespace stepframe::cli {
@@ -26,6 +30,22 @@ std::string_view part_kind(analysis::PartKind kind) {
   return "internal";
 }
 
+// What each catalogue family is, in the trade's words (common practice).
+std::string family_name(const std::string& family) {
+  static const std::map<std::string, std::string> names{
+      {"IPE", "I beams, parallel flanges"},          {"IPEA", "I beams, light series (A)"},
+      {"IPEO", "I beams, heavy series (O)"},          {"HEA", "wide flange H beams, light series (A)"},
+      {"HEB", "wide flange H beams"},                 {"HEM", "wide flange H beams, heavy series (M)"},
+      {"UPE", "channels, parallel flanges"},          {"UPN", "channels, tapered flanges"},
+      {"L", "angles"},                                {"CHS", "circular hollow sections"},
+      {"SHS", "square hollow sections"},              {"RHS", "rectangular hollow sections"},
+      {"W", "wide flange shapes"},                    {"C", "channels, tapered flanges"},
+      {"HSS", "hollow structural sections"},          {"PL", "flat plates"},
+      {"RD", "round bars"}};
+  const auto it = names.find(family);
+  return it == names.end() ? family : it->second;
+}
+
 nlohmann::json section_json(const analysis::Section& s) {
   nlohmann::json parts = nlohmann::json::array();
   for (const auto& p : s.parts)
@@ -40,6 +60,7 @@ nlohmann::json section_json(const analysis::Section& s) {
   for (const auto& q : s.stress_points) stress_points.push_back({q.y, q.z});
   return {{"designation", s.designation},
           {"family", s.family},
+          {"family_name", family_name(s.family)},
           {"standard", s.standard},
           {"shape", analysis::shape_name(s.shape)},
           {"units", "SI: m, m^2, m^3, m^4, m^6, rad, kg/m"},
@@ -69,12 +90,34 @@ nlohmann::json section_json(const analysis::Section& s) {
           {"outline", outline}};
 }
 
+/// A number with four significant digits, in fixed notation without trailing
+/// zeros and with thousands set apart by a space (1 711 000, 569.6, 9.652).
+std::string readable(double value) {
+  if (value == 0 || !std::isfinite(value)) return fmt::format("{}", value);
+  const int digits = static_cast<int>(std::floor(std::log10(std::abs(value)))) + 1;
+  const double scale = std::pow(10.0, digits - 4);
+  const double rounded = digits > 4 ? std::round(value / scale) * scale : value;
+  std::string text = fmt::format("{:.{}f}", rounded, std::max(0, 4 - digits));
+  if (text.find('.') != std::string::npos) {
+    text.erase(text.find_last_not_of('0') + 1);
+    if (text.back() == '.') text.pop_back();
+  }
+  const auto end = text.find('.') == std::string::npos ? text.size() : text.find('.');
+  const std::size_t first = text.front() == '-' ? 1 : 0;
+  if (end - first > 4)
+    for (auto at = static_cast<std::ptrdiff_t>(end) - 3; at > static_cast<std::ptrdiff_t>(first); at -= 3)
+      text.insert(static_cast<std::size_t>(at), " ");
+  return text;
+}
+
 // People read sections in mm and cm: converted here, at the edge.
 std::string section_text(const analysis::Section& s) {
-  std::string out = fmt::format("{}  ({}, {}, {})\n\n", s.designation, s.family.empty() ? "custom" : s.family,
-                                s.standard.empty() ? "no standard" : s.standard, analysis::shape_name(s.shape));
+  std::string out =
+      fmt::format("{}  ({}, {}, {})\n\n", s.designation,
+                  s.family.empty() ? "custom" : s.family + ": " + family_name(s.family),
+                  s.standard.empty() ? "no standard" : s.standard, analysis::shape_name(s.shape));
   const auto row = [&](std::string_view name, double value, std::string_view unit, std::string_view what) {
-    out += fmt::format("  {:<16}{:>12.4g} {:<7}{}\n", name, value, unit, what);
+    out += fmt::format("  {:<16}{:>12} {:<9}{}\n", name, readable(value), unit, what);
   };
   row("depth", s.depth * 1e3, "mm", "extent along z");
   row("width", s.width * 1e3, "mm", "extent along y");
@@ -90,7 +133,7 @@ std::string section_text(const analysis::Section& s) {
   row("Wpl_y", s.Wpl_y * 1e6, "cm3", "plastic modulus");
   row("Wpl_z", s.Wpl_z * 1e6, "cm3", "plastic modulus");
   row("J", s.J * 1e8, "cm4", "St Venant torsion constant");
-  row("Iw", s.Iw * 1e12, "cm6", "warping constant");
+  row("Iw", s.Iw * 1e9, "10^3 cm6", "warping constant");
   row("Avy", s.Avy * 1e4, "cm2", "shear area, force along y");
   row("Avz", s.Avz * 1e4, "cm2", "shear area, force along z");
   if (s.principal_angle != 0) row("principal angle", s.principal_angle * 180 / std::numbers::pi, "deg", "leg axes to y, z");
@@ -107,13 +150,13 @@ std::string list_text(const std::vector<analysis::CatalogueEntry>& entries) {
   // One line per family: its standard and the designations.
   std::vector<std::pair<std::string, std::vector<const analysis::CatalogueEntry*>>> groups;
   for (const auto& e : entries) {
-    const std::string key = e.family + " (" + e.standard + ")";
+    const std::string key = e.family + ", " + family_name(e.family) + " (" + e.standard + ")";
     if (groups.empty() || groups.back().first != key) groups.push_back({key, {}});
     groups.back().second.push_back(&e);
   }
   std::string out;
   for (const auto& [key, members] : groups) {
-    out += fmt::format("{}: {} section(s)\n", key, members.size());
+    out += fmt::format("{}: {}\n", key, counted(members.size(), "section"));
     std::string line = " ";
     for (const auto* e : members) {
       std::string name = " " + e->designation + (e->alias.empty() ? "" : " [" + e->alias + "]");
@@ -132,7 +175,8 @@ std::string list_text(const std::vector<analysis::CatalogueEntry>& entries) {
 
 CLI::App* add_sections_command(CLI::App& app, SectionsOptions& options) {
   auto* cmd = app.add_subcommand(
-      "sections", "List the built-in sections, or show one section's properties (\"IPE\", \"HE 200 B\", \"SHS 100x100x5\")");
+      "sections", "List the built-in sections by family, or show one section's properties (\"IPE\", \"HE 200 B\", "
+                  "\"SHS 100x100x5\") in mm and cm. Prints on stdout, writes no file");
   cmd->add_option("QUERY", options.query, "A designation, a family or the start of a designation; empty lists all");
   cmd->add_flag("--json", options.json, "Print JSON in SI units");
   return cmd;
@@ -160,7 +204,8 @@ int sections_command(const SectionsOptions& options) {
   if (options.json) {
     nlohmann::json list = nlohmann::json::array();
     for (const auto& e : entries)
-      list.push_back({{"designation", e.designation}, {"family", e.family}, {"standard", e.standard}, {"alias", e.alias}});
+      list.push_back({{"designation", e.designation}, {"family", e.family}, {"family_name", family_name(e.family)},
+                      {"standard", e.standard}, {"alias", e.alias}});
     std::cout << nlohmann::json{{"query", options.query}, {"sections", list}, {"note", analysis::catalogue_caution}}.dump(1)
               << '\n';
   } else {

@@ -1,6 +1,7 @@
 #include "stepframe/inspect.hpp"
 
 #include "json_shapes.hpp"
+#include "stepframe/counted.hpp"
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/project_reader.hpp"
 
@@ -37,6 +38,19 @@ Inspection inspect_read(const geometry::StepModel& step, const geometry::Wirefra
   return inspection;
 }
 
+std::string fixity(const SupportSpec& spec) {
+  static constexpr const char* names[] = {"ux", "uy", "uz", "rx", "ry", "rz"};
+  std::vector<std::string> fixed, springs;
+  for (std::size_t d = 0; d < 6; ++d) {
+    if (spec.fixed[d]) fixed.push_back(names[d]);
+    if (spec.spring[d] > 0) springs.push_back(names[d]);
+  }
+  std::string out = fixed.size() == 6 ? "fixed" : fixed == std::vector<std::string>{"ux", "uy", "uz"} ? "pinned"
+                                                                                               : fmt::format("{}", fmt::join(fixed, " "));
+  if (!springs.empty()) out += fmt::format("{}springs {}", out.empty() ? "" : ", ", fmt::join(springs, " "));
+  return out;
+}
+
 std::vector<std::string> missing(const UnassignedMember& u) {
   std::vector<std::string> out;
   if (u.no_section) out.push_back("section");
@@ -57,7 +71,18 @@ Inspection inspect_project(const std::filesystem::path& project_file, std::optio
   if (merge_tolerance) project.merge_tolerance = *merge_tolerance;
   Inspection inspection = inspect_read(geometry::read_step(project.model), wireframe_options(project));
   inspection.project = project_file;
-  inspection.unassigned = members_without_properties(project, inspection.wireframe);
+  inspection.properties = member_properties(project, inspection.wireframe);
+  for (std::size_t m = 0; m < inspection.properties.size(); ++m) {
+    const auto& p = inspection.properties[m];
+    if (!p.section || !p.material) inspection.unassigned.push_back({m, !p.section, !p.material});
+  }
+  inspection.warnings = selectors_matching_nothing(project, inspection.wireframe);
+  inspection.supports = support_nodes(project, inspection.wireframe);
+  inspection.support_specs = project.supports;
+  for (const auto& s : inspection.supports)
+    if (!s.problem.empty()) inspection.warnings.push_back(s.problem + " (`run` stops here)");
+  if (project.supports.empty())
+    inspection.warnings.push_back(project_file.string() + ": no supports; `run` needs some, e.g. supports: [{where: {z: 0}, fix: pinned}]");
   return inspection;
 }
 
@@ -109,6 +134,18 @@ nlohmann::json inspection_json(const Inspection& in) {
       w.key("length").value(geometry::path_length(wf, m));
       w.key("source");
       json_shapes::source(w, m.source);
+      if (i < in.properties.size()) {
+        const auto& p = in.properties[i];
+        const auto optional = [&](const char* key, const std::optional<std::string>& value) {
+          w.key(key);
+          if (value) w.value(*value);
+          else w.null();
+        };
+        optional("section", p.section);
+        w.key("section_from").value(p.section_from);
+        optional("material", p.material);
+        w.key("material_from").value(p.material_from);
+      }
       w.end_object();
     }
     w.end_array();
@@ -138,6 +175,19 @@ nlohmann::json inspection_json(const Inspection& in) {
         w.end_object();
       }
       w.end_array();
+      w.key("supports").begin_array();
+      for (std::size_t s = 0; s < in.supports.size(); ++s) {
+        w.begin_object();
+        w.key("where").value(in.support_specs[s].where.origin.describe());
+        w.key("nodes").begin_array();
+        for (std::size_t n : in.supports[s].nodes) w.value(n);
+        w.end_array();
+        w.key("fixity").value(fixity(in.support_specs[s]));
+        w.key("problem").value(in.supports[s].problem);
+        w.end_object();
+      }
+      w.end_array();
+      w.key("warnings").strings(in.warnings);
     }
     w.end_object();
   }
@@ -168,6 +218,29 @@ std::string inspection_text(const Inspection& in) {
     }
   }
   if (!in.project.empty()) {
+    out += fmt::format("\n  {:>6}  {:<10} {:<20} {:<16} {:<14} {:<24} {:<10} {}\n", "member", "entity", "name", "layers",
+                       "section", "from", "material", "from");
+    for (std::size_t m = 0; m < in.properties.size() && m < wf.members.size(); ++m) {
+      const auto& src = wf.members[m].source;
+      const auto& p = in.properties[m];
+      out += fmt::format("  {:>6}  {:<10} {:<20} {:<16} {:<14} {:<24} {:<10} {}\n", m,
+                         src.entity.empty() ? "-" : src.entity, src.name.empty() ? "-" : src.name,
+                         src.layers.empty() ? "-" : fmt::format("{}", fmt::join(src.layers, ", ")),
+                         p.section.value_or("NONE"), p.section ? p.section_from : "-", p.material.value_or("NONE"),
+                         p.material ? p.material_from : "-");
+    }
+    std::size_t supported = 0;
+    for (const auto& s : in.supports) supported += s.nodes.size();
+    out += fmt::format("\n  supports: {} found\n", counted(supported, "node"));
+    if (supported > 0)
+      out += fmt::format("  {:>6}  {:<28} {:<22} {}\n", "node", "at (m)", "fixity", "selected by");
+    for (std::size_t s = 0; s < in.supports.size(); ++s)
+      for (std::size_t n : in.supports[s].nodes) {
+        const auto& p = wf.nodes[n];
+        out += fmt::format("  {:>6}  {:<28} {:<22} {}\n", n, fmt::format("({:.3f}, {:.3f}, {:.3f})", p[0], p[1], p[2]),
+                           fixity(in.support_specs[s]), in.support_specs[s].where.origin.describe());
+      }
+    for (const auto& warning : in.warnings) out += "  warning: " + warning + "\n";
     out += fmt::format("\n  members without section or material: {}{}\n", in.unassigned.size(),
                        in.unassigned.empty() ? "" : " (`run` refuses them; add rules that match them)");
     if (!in.unassigned.empty())
@@ -183,7 +256,8 @@ std::string inspection_text(const Inspection& in) {
   }
   std::size_t counts[3] = {0, 0, 0};
   for (const auto& d : wf.diagnostics) ++counts[static_cast<int>(d.severity)];
-  out += fmt::format("\n  diagnostics   {} errors, {} warnings, {} notes\n", counts[2], counts[1], counts[0]);
+  out += fmt::format("\n  diagnostics   {}, {}, {}\n", counted(counts[2], "error"), counted(counts[1], "warning"),
+                     counted(counts[0], "note"));
   if (wf.diagnostics.empty()) return out;
   out += fmt::format("  {:<8} {:<22} {:<18} {:<28} {}\n", "severity", "code", "entities", "at (m)", "message");
   for (const auto& d : wf.diagnostics) {

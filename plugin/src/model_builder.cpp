@@ -1,6 +1,7 @@
 #include "stepframe/model_builder.hpp"
 
 #include "stepframe/analysis/local_axes.hpp"
+#include "stepframe/counted.hpp"
 #include "stepframe/errors.hpp"
 #include "stepframe/suggest.hpp"
 
@@ -13,6 +14,7 @@
 #include <memory>
 #include <optional>
 #include <regex>
+#include <tuple>
 
 namespace stepframe {
 namespace {
@@ -101,14 +103,18 @@ class Library {
     return material_lookups_[name] = index;
   }
 
-  /// The first phrase of the member's name, product, then layers that names a section / material.
+  /// The first phrase of the member's name, product, then layers that names a section / material;
+  /// `from` says which attribute it was found in ("name 'IPE 300'").
   template <class Lookup>
-  std::optional<std::size_t> from_attributes(const geometry::SourceInfo& src, Lookup lookup) {
-    std::vector<std::string> values{src.name, src.product};
-    values.insert(values.end(), src.layers.begin(), src.layers.end());
-    for (const auto& value : values)
+  std::optional<std::size_t> from_attributes(const geometry::SourceInfo& src, Lookup lookup, std::string& from) {
+    std::vector<std::pair<std::string, std::string>> values{{"name", src.name}, {"product", src.product}};
+    for (const auto& layer : src.layers) values.emplace_back("layer", layer);
+    for (const auto& [kind, value] : values)
       for (const auto& phrase : candidate_phrases(value))
-        if (auto index = lookup(phrase)) return index;
+        if (auto index = lookup(phrase)) {
+          from = kind + " '" + value + "'";
+          return index;
+        }
     return std::nullopt;
   }
 
@@ -309,6 +315,7 @@ void check_rule_names(const Project& project, Library& library, analysis::FrameM
 
 struct Assignment {
   std::optional<std::size_t> section, material;  ///< indices into the model's sections and materials
+  std::string section_from, material_from;       ///< what set each (MemberProperties)
 };
 
 // The rules whose selectors match a member, in the project's order.
@@ -326,13 +333,18 @@ Assignment assign(const geometry::SourceInfo& source, const std::vector<const Ru
                   analysis::FrameModel& model) {
   Assignment a;
   for (const Rule* rule : matching) {
-    if (rule->section) a.section = library.section(*rule->section, model);
-    if (rule->material) a.material = library.material(*rule->material, model);
+    const auto& origin = rule->where.origin;
+    const std::string rule_name = origin.key.substr(0, origin.key.find('.'));
+    const std::string from = origin.line > 0 ? fmt::format("{} (line {})", rule_name, origin.line) : rule_name;
+    if (rule->section) a.section = library.section(*rule->section, model), a.section_from = from;
+    if (rule->material) a.material = library.material(*rule->material, model), a.material_from = from;
   }
   if (!a.section)
-    a.section = library.from_attributes(source, [&](const std::string& s) { return library.section(s, model); });
+    a.section = library.from_attributes(
+        source, [&](const std::string& s) { return library.section(s, model); }, a.section_from);
   if (!a.material)
-    a.material = library.from_attributes(source, [&](const std::string& s) { return library.material(s, model); });
+    a.material = library.from_attributes(
+        source, [&](const std::string& s) { return library.material(s, model); }, a.material_from);
   return a;
 }
 
@@ -361,19 +373,83 @@ geometry::WireframeOptions wireframe_options(const Project& project) {
   return options;
 }
 
-std::vector<UnassignedMember> members_without_properties(const Project& project,
-                                                         const geometry::Wireframe& wireframe) {
+std::optional<std::string> designation_in(const std::string& value) {
+  for (const auto& phrase : candidate_phrases(value))
+    if (const auto section = analysis::find_catalogue_section(phrase)) return section->designation;
+  return std::nullopt;
+}
+
+std::optional<std::string> material_in(const std::string& value) {
+  for (const auto& phrase : candidate_phrases(value))
+    if (const auto material = analysis::find_standard_material(phrase)) return material->name;
+  return std::nullopt;
+}
+
+std::vector<MemberProperties> member_properties(const Project& project, const geometry::Wireframe& wireframe) {
   analysis::FrameModel scratch;
   Library library(project);
   check_rule_names(project, library, scratch);
   const std::vector<CompiledSelector> rule_selectors = rule_selectors_of(project);
-  std::vector<UnassignedMember> unassigned;
-  for (std::size_t m = 0; m < wireframe.members.size(); ++m) {
-    const auto& source = wireframe.members[m].source;
-    const Assignment a = assign(source, matching_rules(source, project, rule_selectors), library, scratch);
-    if (!a.section || !a.material) unassigned.push_back({m, !a.section, !a.material});
+  std::vector<MemberProperties> properties;
+  for (const auto& member : wireframe.members) {
+    const Assignment a = assign(member.source, matching_rules(member.source, project, rule_selectors), library, scratch);
+    MemberProperties p;
+    if (a.section) p.section = scratch.sections[*a.section].designation, p.section_from = a.section_from;
+    if (a.material) p.material = scratch.materials[*a.material].name, p.material_from = a.material_from;
+    properties.push_back(std::move(p));
   }
+  return properties;
+}
+
+std::vector<UnassignedMember> members_without_properties(const Project& project,
+                                                         const geometry::Wireframe& wireframe) {
+  const auto properties = member_properties(project, wireframe);
+  std::vector<UnassignedMember> unassigned;
+  for (std::size_t m = 0; m < properties.size(); ++m)
+    if (!properties[m].section || !properties[m].material)
+      unassigned.push_back({m, !properties[m].section, !properties[m].material});
   return unassigned;
+}
+
+std::vector<std::string> selectors_matching_nothing(const Project& project, const geometry::Wireframe& wireframe) {
+  std::vector<std::string> idle;
+  const auto matches_none = [&](const MemberSelector& sel) {
+    const CompiledSelector where(sel);
+    return std::none_of(wireframe.members.begin(), wireframe.members.end(),
+                        [&](const geometry::WireMember& m) { return where.matches(m.source); });
+  };
+  const std::string hint = "; check its patterns against the attributes `stepframe inspect` lists";
+  for (const auto& rule : project.rules)
+    if (matches_none(rule.where)) idle.push_back(rule.where.origin.describe() + ": this rule matches no member" + hint);
+  for (const auto& c : project.cases) {
+    for (const auto& load : c.member_loads)
+      if (matches_none(load.where))
+        idle.push_back(load.where.origin.describe() + ": this load matches no member (`run` stops here)" + hint);
+    const auto check_nodes = [&](const NodeSelector& sel) {
+      try {
+        select_nodes(sel, wireframe.nodes, wireframe.labels, project.merge_tolerance);
+      } catch (const InputError& e) {
+        idle.push_back(std::string(e.what()) + " (`run` stops here)");
+      }
+    };
+    for (const auto& load : c.node_loads) check_nodes(load.where);
+    for (const auto& settlement : c.settlements) check_nodes(settlement.where);
+  }
+  return idle;
+}
+
+std::vector<SupportNodes> support_nodes(const Project& project, const geometry::Wireframe& wireframe) {
+  std::vector<SupportNodes> found;
+  for (const auto& spec : project.supports) {
+    SupportNodes s;
+    try {
+      s.nodes = select_nodes(spec.where, wireframe.nodes, wireframe.labels, project.merge_tolerance);
+    } catch (const InputError& e) {
+      s.problem = e.what();
+    }
+    found.push_back(std::move(s));
+  }
+  return found;
 }
 
 BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& wireframe) {
@@ -389,7 +465,8 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
   std::vector<std::string> without_section, without_material;
   for (const auto& wm : wireframe.members) {
     const std::vector<const Rule*> matching = matching_rules(wm.source, project, rule_selectors);
-    const auto [section, material] = assign(wm.source, matching, library, model);
+    const Assignment assigned = assign(wm.source, matching, library, model);
+    const auto& [section, material] = std::tie(assigned.section, assigned.material);
     double roll = 0;
     std::optional<Eigen::Vector3d> orient_to;
     const Rule* orienting_rule = nullptr;
@@ -437,11 +514,12 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
   if (!without_section.empty() || !without_material.empty()) {
     std::string message = project.file.string() + ": ";
     if (!without_section.empty())
-      message += fmt::format("{} member(s) have no section (no rule sets one and no designation was found in "
+      message += fmt::format("{} no section (no rule sets one and no designation was found in "
                              "their name, product or layers):{}\n",
-                             without_section.size(), list(without_section));
+                             counted(without_section.size(), "member has", "members have"), list(without_section));
     if (!without_material.empty())
-      message += fmt::format("{} member(s) have no material:{}\n", without_material.size(), list(without_material));
+      message += fmt::format("{} no material:{}\n", counted(without_material.size(), "member has", "members have"),
+                             list(without_material));
     message += "Add a rule, e.g. rules: [{where: {layer: BEAMS}, section: IPE300, material: S355}]";
     throw InputError(message);
   }

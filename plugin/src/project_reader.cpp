@@ -110,12 +110,102 @@ analysis::Section read_section(const Reader& r, const YAML::Node& node, const st
   return analysis::custom_section(name, s.A, s.Iy, s.Iz, s.J, s.depth, s.width);
 }
 
+// Selectors: `where:` holds the keys that choose members (rules, member loads) or nodes (supports,
+// node loads, settlements); the item's other keys stand beside it. A key written on the wrong
+// level gets a message with the form it belongs in.
+const std::vector<std::string> member_selector_keys{"name", "layer", "product", "colour"};
+const std::vector<std::string> node_selector_keys{"x", "y", "z", "near", "point_name", "point_layer"};
+// The keys that stand beside `where:` in rules, loads, supports and settlements.
+const std::vector<std::string> item_keys{"section", "material", "roll", "orient_to", "release", "buckling",
+                                         "deflection_ratio", "join_crossings", "w", "w_end", "from", "to",
+                                         "point", "at", "axes", "fix", "springs", "force", "moment", "displacement"};
+enum class Selects { members, nodes };
+
+bool one_of(const std::string& key, const std::vector<std::string>& keys) {
+  return std::find(keys.begin(), keys.end(), key) != keys.end();
+}
+
+// A value as written, for messages: a scalar, or a flat list such as [0, 0, 0].
+std::string as_written(const YAML::Node& value) {
+  if (value.IsScalar()) return value.Scalar();
+  if (!value.IsSequence()) return "...";
+  std::string text;
+  for (std::size_t i = 0; i < value.size(); ++i)
+    text += (i ? ", " : "") + (value[i].IsScalar() ? value[i].Scalar() : std::string("..."));
+  return "[" + text + "]";
+}
+
+std::string how_to_select(Selects selects) {
+  return selects == Selects::nodes
+             ? "choose nodes with where: {z: 0} (planes x, y, z), near: [x, y, z] or where: {point_name: ...}"
+             : "choose members with where: {layer: ...} (name, layer, product, colour)";
+}
+
+// A selector key of the other kind: `layer` for a support, `z` for a rule.
+[[noreturn]] void fail_wrong_kind(const Reader& r, const YAML::Node& key_node, const std::string& path,
+                                  const std::string& key, Selects selects) {
+  const bool nodes = selects == Selects::nodes;
+  r.fail(key_node, Reader::join(path, key),
+         "'" + key + "' chooses " + (nodes ? "members" : "nodes") + ", but this item applies to " +
+             (nodes ? "nodes" : "members") + ": " + how_to_select(selects));
+}
+
+// check_keys for an item that selects with `where:` (a rule, a load, a support, a settlement).
+void check_item_keys(const Reader& r, const YAML::Node& item, const std::string& path,
+                     const std::vector<std::string>& allowed, Selects selects) {
+  const auto& own = selects == Selects::nodes ? node_selector_keys : member_selector_keys;
+  const auto& other = selects == Selects::nodes ? member_selector_keys : node_selector_keys;
+  if (item.IsMap())
+    for (const auto& entry : item) {
+      const auto key = entry.first.as<std::string>();
+      if (one_of(key, allowed)) continue;
+      if (one_of(key, own))
+        r.fail(entry.first, Reader::join(path, key),
+               "'" + key + "' goes inside where: write where: {" + key + ": " + as_written(entry.second) + "}");
+      if (one_of(key, other)) fail_wrong_kind(r, entry.first, path, key, selects);
+    }
+  r.check_keys(item, path, allowed);
+}
+
+// check_keys for a `where:` selector: an item's own key written inside it belongs beside it.
+void check_selector_keys(const Reader& r, const YAML::Node& where, const std::string& path, Selects selects) {
+  const auto& own = selects == Selects::nodes ? node_selector_keys : member_selector_keys;
+  const auto& other = selects == Selects::nodes ? member_selector_keys : node_selector_keys;
+  if (where.IsMap())
+    for (const auto& entry : where) {
+      const auto key = entry.first.as<std::string>();
+      if (one_of(key, own)) continue;
+      if (one_of(key, other)) fail_wrong_kind(r, entry.first, path, key, selects);
+      if (one_of(key, item_keys))
+        r.fail(entry.first, Reader::join(path, key),
+               "'" + key + "' goes beside where:, not inside it: write `- where: {...}` and, on the next line at "
+               "the indent of where:, `" + key + ": " + as_written(entry.second) + "`");
+    }
+  r.check_keys(where, path, own);
+}
+
+// The nodes a support, node load or settlement applies to: `where: {...}`, or the
+// shorthand `near: [x, y, z]` beside the item's other keys, alike in all three.
+NodeSelector read_node_selector(const Reader& r, const YAML::Node& node, const std::string& path);
+NodeSelector read_node_target(const Reader& r, const YAML::Node& item, const std::string& path,
+                              const std::string& what) {
+  if (item["near"] && item["where"]) r.fail(item, path, "use either 'near' or 'where', not both");
+  if (item["near"]) {
+    NodeSelector sel;
+    sel.origin = r.where(item["near"], path + ".near");
+    sel.near = r.vector3(item["near"], path + ".near", dimension::length);
+    return sel;
+  }
+  if (!item["where"]) r.fail(item, path, what + " needs its nodes: " + how_to_select(Selects::nodes));
+  return read_node_selector(r, item["where"], path + ".where");
+}
+
 MemberSelector read_member_selector(const Reader& r, const YAML::Node& node, const std::string& path) {
   MemberSelector sel;
   sel.origin = r.where(node, path);
   if (!node) return sel;
   if (node.IsNull()) return sel;
-  r.check_keys(node, path, {"name", "layer", "product", "colour"});
+  check_selector_keys(r, node, path, Selects::members);
   const std::pair<const char*, std::optional<std::string>*> fields[] = {
       {"name", &sel.name}, {"layer", &sel.layer}, {"product", &sel.product}, {"colour", &sel.colour}};
   for (const auto& [key, target] : fields) {
@@ -134,7 +224,7 @@ MemberSelector read_member_selector(const Reader& r, const YAML::Node& node, con
 NodeSelector read_node_selector(const Reader& r, const YAML::Node& node, const std::string& path) {
   NodeSelector sel;
   sel.origin = r.where(node, path);
-  r.check_keys(node, path, {"x", "y", "z", "near", "point_name", "point_layer"});
+  check_selector_keys(r, node, path, Selects::nodes);
   for (const char* key : {"point_name", "point_layer"}) {
     if (!node[key]) continue;
     if (node["near"] || node["x"] || node["y"] || node["z"])
@@ -212,7 +302,7 @@ std::array<std::optional<double>, 6> read_per_direction(const Reader& r, const Y
 }
 
 MemberLoadSpec read_member_load(const Reader& r, const YAML::Node& node, const std::string& p) {
-  r.check_keys(node, p, {"where", "w", "w_end", "from", "to", "point", "at", "axes"});
+  check_item_keys(r, node, p, {"where", "w", "w_end", "from", "to", "point", "at", "axes"}, Selects::members);
   MemberLoadSpec load;
   load.where = read_member_selector(r, node["where"], p + ".where");
   if (node["w"] && node["point"]) r.fail(node, p, "a member load is either distributed (w) or a point load (point), not both");
@@ -264,11 +354,10 @@ CaseSpec read_case(const Reader& r, const YAML::Node& node, const std::string& p
     r.expect_list(list, path + ".settlements");
     for (std::size_t i = 0; i < list.size(); ++i) {
       const auto p = Reader::index(path + ".settlements", i);
-      r.check_keys(list[i], p, {"where", "displacement"});
-      if (!list[i]["where"]) r.fail(list[i], p, "a settlement needs where: {near: [x, y, z]} or a plane");
-      if (!list[i]["displacement"]) r.fail(list[i], p, "a settlement needs displacement: {uz: -10} (lengths; rotations in rad)");
+      check_item_keys(r, list[i], p, {"where", "near", "displacement"}, Selects::nodes);
       SettlementSpec s;
-      s.where = read_node_selector(r, list[i]["where"], p + ".where");
+      s.where = read_node_target(r, list[i], p, "a settlement");
+      if (!list[i]["displacement"]) r.fail(list[i], p, "a settlement needs displacement: {uz: -10} (lengths; rotations in rad)");
       s.value = read_per_direction(r, list[i]["displacement"], p + ".displacement", dimension::length, dimension::none);
       c.settlements.push_back(std::move(s));
     }
@@ -277,17 +366,9 @@ CaseSpec read_case(const Reader& r, const YAML::Node& node, const std::string& p
     r.expect_list(loads, path + ".node_loads");
     for (std::size_t i = 0; i < loads.size(); ++i) {
       const auto p = Reader::index(path + ".node_loads", i);
-      r.check_keys(loads[i], p, {"where", "near", "force", "moment"});
+      check_item_keys(r, loads[i], p, {"where", "near", "force", "moment"}, Selects::nodes);
       NodeLoadSpec load;
-      if (loads[i]["near"] && loads[i]["where"]) r.fail(loads[i], p, "use either 'near' or 'where', not both");
-      if (loads[i]["near"]) {
-        load.where.origin = r.where(loads[i]["near"], p + ".near");
-        load.where.near = r.vector3(loads[i]["near"], p + ".near", dimension::length);
-      } else if (loads[i]["where"]) {
-        load.where = read_node_selector(r, loads[i]["where"], p + ".where");
-      } else {
-        r.fail(loads[i], p, "a node load needs near: [x, y, z] or where: {plane}");
-      }
+      load.where = read_node_target(r, loads[i], p, "a node load");
       if (!loads[i]["force"] && !loads[i]["moment"]) r.fail(loads[i], p, "a node load needs force and/or moment");
       if (loads[i]["force"]) load.force = r.vector3(loads[i]["force"], p + ".force", dimension::force);
       if (loads[i]["moment"]) load.moment = r.vector3(loads[i]["moment"], p + ".moment", dimension::moment);
@@ -360,9 +441,10 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
     r.expect_list(node, "rules");
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("rules", i);
-      r.check_keys(node[i], path,
-                   {"where", "section", "material", "roll", "orient_to", "release", "buckling", "deflection_ratio",
-                    "join_crossings"});
+      check_item_keys(r, node[i], path,
+                      {"where", "section", "material", "roll", "orient_to", "release", "buckling", "deflection_ratio",
+                       "join_crossings"},
+                      Selects::members);
       Rule rule;
       rule.where = read_member_selector(r, node[i]["where"], path + ".where");
       if (node[i]["section"]) rule.section = r.text(node[i]["section"], path + ".section");
@@ -413,10 +495,9 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
     r.expect_list(node, "supports");
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("supports", i);
-      r.check_keys(node[i], path, {"where", "fix", "springs"});
-      if (!node[i]["where"]) r.fail(node[i], path, "a support needs where: {z: 0} or where: {near: [x, y, z]}");
+      check_item_keys(r, node[i], path, {"where", "near", "fix", "springs"}, Selects::nodes);
       SupportSpec s;
-      s.where = read_node_selector(r, node[i]["where"], path + ".where");
+      s.where = read_node_target(r, node[i], path, "a support");
       if (node[i]["fix"] || !node[i]["springs"]) s.fixed = read_fixity(r, node[i]["fix"], path + ".fix");
       if (const auto springs = node[i]["springs"]) {
         // Translational stiffness is force per length (the line-load unit), rotational force x length per radian.

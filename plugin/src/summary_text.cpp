@@ -1,3 +1,4 @@
+#include "stepframe/counted.hpp"
 #include "stepframe/run.hpp"
 
 #include <fmt/format.h>
@@ -11,11 +12,11 @@ std::string summary_text(const Analysis& a) {
   const auto& model = a.built.model;
   std::string out;
   const bool pass = a.status() == ExitStatus::pass;
-  out += fmt::format("stepframe: {}  ({} members, {} nodes, {} load cases, {} combinations)\n",
-                     pass ? "PASS" : "FAIL", model.members.size(), model.nodes.size(), model.cases.size(),
-                     model.combinations.size());
+  out += fmt::format("stepframe: {}  ({}, {}, {}, {})\n", pass ? "PASS" : "FAIL", counted(model.members.size(), "member"),
+                     counted(model.nodes.size(), "node"), counted(model.cases.size(), "load case"),
+                     counted(model.combinations.size(), "combination"));
 
-  out += fmt::format("\n{:<16} {:<12} {:>14} {:>14} {:>14} {:>9}\n", "result", "kind", "von Mises MPa",
+  out += fmt::format("\n{:<16} {:<12} {:>14} {:>14} {:>14} {:>9}\n", "case or comb.", "kind", "von Mises MPa",
                      "local defl. mm", "node |u| mm", "alpha_cr");
   for (const auto& r : a.results) {
     double stress = 0, deflection = 0, u = 0;
@@ -29,16 +30,23 @@ std::string summary_text(const Analysis& a) {
   }
 
   if (!a.checks.empty()) {
-    const auto failed = std::count_if(a.checks.begin(), a.checks.end(), [](const auto& c) { return !c.pass; });
-    out += fmt::format("\nchecks: {} of {} pass\n", a.checks.size() - static_cast<std::size_t>(failed), a.checks.size());
-    // The five highest utilisations, governing first.
-    std::vector<const analysis::CheckResult*> ranked;
-    for (const auto& c : a.checks) ranked.push_back(&c);
-    std::stable_sort(ranked.begin(), ranked.end(), [](auto* x, auto* y) { return x->utilisation > y->utilisation; });
+    // Every failing check, frame-level ones first, then the highest passing ones.
+    std::vector<const analysis::CheckResult*> failing, passing;
+    for (const auto& c : a.checks) (c.pass ? passing : failing).push_back(&c);
+    const auto by_utilisation = [](auto* x, auto* y) { return x->utilisation > y->utilisation; };
+    std::stable_sort(failing.begin(), failing.end(), [&](auto* x, auto* y) {
+      const bool fx = x->member == analysis::whole_frame, fy = y->member == analysis::whole_frame;
+      return fx != fy ? fx : by_utilisation(x, y);
+    });
+    std::stable_sort(passing.begin(), passing.end(), by_utilisation);
+    constexpr std::size_t passing_shown = 5;
+    const std::size_t shown = std::min(passing.size(), passing_shown);
+
+    out += fmt::format("\nchecks: {} of {} pass{}\n", passing.size(), a.checks.size(),
+                       failing.empty() ? std::string() : fmt::format(", {} {}", failing.size(), failing.size() == 1 ? "fails" : "fail"));
     out += fmt::format("{:>6}  {:<28} {:<10} {:<34} {:<12} {:>8}\n", "member", "source", "section", "check",
-                       "result", "util.");
-    for (std::size_t i = 0; i < ranked.size() && i < 5; ++i) {
-      const auto& c = *ranked[i];
+                       "combination", "util.");
+    const auto row = [&](const analysis::CheckResult& c) {
       std::string member = "frame", source, section;
       if (c.member != analysis::whole_frame) {
         const auto& src = a.built.member_sources[c.member];
@@ -48,9 +56,17 @@ std::string summary_text(const Analysis& a) {
       }
       out += fmt::format("{:>6}  {:<28} {:<10} {:<34} {:<12} {:>8.2f}{}\n", member, source.substr(0, 28), section,
                          c.check, c.combination, c.utilisation, c.pass ? "" : "  FAIL");
-    }
-    const auto& top = *ranked.front();
-    out += fmt::format("governing: {} {} utilisation {:.2f} under {}\n",
+    };
+    for (const auto* c : failing) row(*c);
+    if (!failing.empty() && shown > 0) out += fmt::format("  highest passing:\n");
+    for (std::size_t i = 0; i < shown; ++i) row(*passing[i]);
+    if (passing.size() > shown)
+      out += fmt::format("  ... and {}: checks.csv (each member's governing check), results.json \"checks\" (every "
+                         "check)\n",
+                         counted(passing.size() - shown, "more passing check"));
+    const auto& top = *std::max_element(a.checks.begin(), a.checks.end(),
+                                        [](const auto& x, const auto& y) { return x.utilisation < y.utilisation; });
+    out += fmt::format("governing: {}: {}, utilisation {:.2f} under {}\n",
                        top.member == analysis::whole_frame ? std::string("the frame") : "member " + std::to_string(top.member),
                        top.check, top.utilisation, top.combination);
   } else {

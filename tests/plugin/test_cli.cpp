@@ -53,16 +53,23 @@ TEST_CASE("stepframe init writes a starter project that loads as written") {
   REQUIRE(project.supports.size() == 1);
   REQUIRE(project.supports[0].where.z);
   CHECK(*project.supports[0].where.z == Approx(0.25));  // the column feet, read back in metres
-  CHECK(project.supports[0].fixed == std::array<bool, 6>{true, true, true, false, false, false});
-  CHECK(project.rules.empty());  // every rule is a commented stub
+  // The portal lies in the x-z plane: pinned in it, held out of it (rx, rz).
+  CHECK(project.supports[0].fixed == std::array<bool, 6>{true, true, true, true, false, true});
   CHECK_THAT(text, Contains("the 2 lowest nodes"));
 
-  // Attributes become commented rule stubs, with the designations recognised in them.
-  CHECK_THAT(text, Contains("#   - where: {layer: \"COLUMNS\"}") && Contains("# 2 members"));
-  CHECK_THAT(text, Contains("#   - where: {layer: \"BEAMS\"}") && Contains("# 1 member\n"));
-  CHECK_THAT(text, Contains("#   - where: {product: \"PORTAL-1\"}"));
-  CHECK_THAT(text, Contains("#   - where: {name: \"HE 200 B\"}") && Contains("section: HEB200"));
-  CHECK_THAT(text, Contains("#   - where: {name: \"IPE 300\"}") && Contains("section: IPE300"));
+  // The designations recognised in the names become active rules after one material rule for every member.
+  REQUIRE(project.rules.size() == 3);
+  CHECK(project.rules[0].material == "S355");
+  CHECK_FALSE(project.rules[0].where.name);
+  CHECK(project.rules[1].where.name == "HE 200 B");
+  CHECK(project.rules[1].section == "HEB200");
+  CHECK(project.rules[2].where.name == "IPE 300");
+  CHECK(project.rules[2].section == "IPE300");
+  CHECK_THAT(text, Contains("material: S355") && Contains("CHECK: assumed for every member"));
+  // The other attribute values become commented stubs with their member counts.
+  CHECK_THAT(text, Contains("#  - where: {layer: \"COLUMNS\"}") && Contains("# 2 members"));
+  CHECK_THAT(text, Contains("#  - where: {layer: \"BEAMS\"}") && Contains("# 1 member\n"));
+  CHECK_THAT(text, Contains("#  - where: {product: \"PORTAL-1\"}"));
 
   SECTION("an existing file is kept unless --force") {
     test::write_text(dir / "portal.yaml", "# mine\n");
@@ -102,6 +109,20 @@ TEST_CASE("command-line conventions") {
     CHECK(version.status == 0);
     CHECK_THAT(version.out, Contains("stepframe 0."));
     CHECK(test::run_stepframe("no-such-command", dir).status == 2);
+  }
+  SECTION("help names the program, the exit statuses and what each subcommand writes") {
+    const auto help = test::run_stepframe("--help", dir);
+    CHECK(help.status == 0);
+    CHECK_THAT(help.out, Contains("Usage: stepframe [OPTIONS] SUBCOMMAND"));
+    CHECK(help.out.find(STEPFRAME_EXE) == std::string::npos);  // not the path it was started by
+    CHECK_THAT(help.out, Contains("Exit status: 0 every check passes; 1 ") && Contains("2 bad input") &&
+                             Contains("3 the frame is unstable") && Contains("4 internal error"));
+    CHECK_THAT(help.out, Contains("Writes results.json, report.html, checks.csv") && Contains("writes no file") &&
+                             Contains("Writes MODEL.yaml"));
+    const auto run_help = test::run_stepframe("run --help", dir);
+    CHECK_THAT(run_help.out, Contains("Usage: stepframe run") && Contains("also when checks fail") &&
+                                 Contains("Exit status:"));
+    CHECK_THAT(test::run_stepframe("sections --help", dir).out, Contains("writes no file"));
   }
   SECTION("a run off a terminal: data on stdout, no progress line, -q and -v after the subcommand") {
     write_portal(dir / "portal.stp");

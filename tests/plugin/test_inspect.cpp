@@ -72,7 +72,7 @@ TEST_CASE("inspect through a project lists the members left without a section", 
   // `run` refuses the same member, by the same entity.
   r = test::run_stepframe("run \"" + (dir / "shed.yaml").string() + "\" --out \"" + (dir / "out").string() + "\"", dir);
   CHECK(r.status == 2);
-  CHECK_THAT(r.err, Contains("1 member(s) have no section") && Contains(entity));
+  CHECK_THAT(r.err, Contains("1 member has no section") && Contains(entity));
 
   // A rule for the brace leaves nothing unassigned.
   const std::string fixed = shed_project.substr(0, shed_project.find("supports:")) +
@@ -138,4 +138,52 @@ TEST_CASE("the project's join_crossings key joins crossed braces", "[inspect][cr
   CHECK_THROWS_WITH(
       read_project_text(base + "rules:\n  - where: {layer: BRACING}\n    join_crossings: often\n", data, "wall.yaml"),
       Contains("wall.yaml:5") && Contains("rules[0].join_crossings"));
+}
+
+TEST_CASE("inspect through a project shows each member's section and material and the support nodes",
+          "[inspect]") {
+  test::ScratchDir dir;
+  write_beam_and_brace(dir);
+  test::write_text(dir / "shed.yaml",
+                   "model: shed.stp\n"
+                   "units: {length: m, force: kN}\n"
+                   "rules:\n"
+                   "  - where: {}\n    material: S355\n"
+                   "  - where: {layer: BRACING}\n    section: CHS60.3X4\n"
+                   "  - where: {layer: ROOF}\n    section: IPE200\n"  // matches nothing: a warning
+                   "supports:\n  - near: [6, 0, 0]\n    fix: pinned\n"
+                   "  - where: {point_name: BASE}\n    fix: fixed\n"  // the model has no named points
+                   "cases:\n  - name: G\n    self_weight: true\n"
+                   "    member_loads:\n      - where: {name: PURLIN}\n        w: [0, 0, -1]\n"  // no such member
+                   "    node_loads:\n      - near: [40, 0, 0]\n        force: [0, 0, -1]\n");  // 34 m off
+
+  auto r = test::run_stepframe("inspect \"" + (dir / "shed.yaml").string() + "\"", dir);
+  INFO(r.out << r.err);
+  REQUIRE(r.status == 0);
+  // The beam takes its section from its name, the brace from the rule at line 6; both S355 from line 4.
+  CHECK_THAT(r.out, Contains("IPE300") && Contains("name 'IPE 300'"));
+  CHECK_THAT(r.out, Contains("CHS60.3X4") && Contains("rules[1] (line 6)"));
+  CHECK_THAT(r.out, Contains("S355") && Contains("rules[0] (line 4)"));
+  // One support node, counted grammatically, with its place and fixity.
+  CHECK_THAT(r.out, Contains("supports: 1 node found") && Contains("(6.000, 0.000, 0.000)") && Contains("pinned"));
+  // The rule and the support that select nothing are warned about, by line.
+  CHECK_THAT(r.out, Contains("warning: ") && Contains("shed.yaml:8 (rules[2].where)") && Contains("matches no member"));
+  CHECK_THAT(r.out, Contains("supports[1]") && Contains("no named or layered point"));
+  CHECK_THAT(r.out, Contains("shed.yaml:19 (cases[0].member_loads[0].where): this load matches no member"));
+  CHECK_THAT(r.out, Contains("cases[0].node_loads[0].near): no node near (40, 0, 0) m"));
+  CHECK_THAT(r.out, Contains("0 errors, 0 warnings, 0 notes"));
+
+  r = test::run_stepframe("inspect \"" + (dir / "shed.yaml").string() + "\" --json", dir);
+  REQUIRE(r.status == 0);
+  const auto j = nlohmann::json::parse(r.out);
+  for (const auto& m : j["members"]) {
+    CHECK(m["material"] == "S355");
+    CHECK(m["section"] == (m["source"]["name"] == "brace" ? "CHS60.3X4" : "IPE300"));
+  }
+  REQUIRE(j["supports"].size() == 2);
+  CHECK(j["supports"][0]["nodes"].size() == 1);
+  CHECK(j["supports"][0]["fixity"] == "pinned");
+  CHECK(j["supports"][1]["nodes"].empty());
+  CHECK_THAT(j["supports"][1]["problem"].get<std::string>(), Contains("point_name 'BASE'"));
+  CHECK(j["warnings"].size() == 4);
 }

@@ -1,7 +1,8 @@
 // Supports and node loads placed by the named or layered points of the CAD
-// file (`where: {point_name: ...}` / `{point_layer: ...}`), and the
-// `curve_max_turn` key, on the hand-written portal_edges_ft.stp: columns
-// 15 ft high at x = 0 and 20 ft (vertices FOOT-W and FOOT-E), knees on layer KNEES.
+// file (`where: {point_name: ...}` / `{point_layer: ...}`), `near:` alike in
+// supports, node loads and settlements, messages for selector keys on the wrong
+// level, and the `curve_max_turn` key, on the hand-written portal_edges_ft.stp:
+// columns 15 ft high at x = 0 and 20 ft (vertices FOOT-W and FOOT-E), knees on layer KNEES.
 
 #include "stepframe/errors.hpp"
 #include "stepframe/geometry/step_reader.hpp"
@@ -134,4 +135,65 @@ TEST_CASE("point selectors reach the vertex shells of a shell-based wireframe", 
   std::vector<std::size_t> bases{node_at(b.wireframe, {0, 0, 0}), node_at(b.wireframe, {5, 0, 0})};
   std::sort(bases.begin(), bases.end());
   CHECK(loaded == bases);
+}
+
+TEST_CASE("near: stands beside the other keys alike in supports, node loads and settlements", "[points][selectors]") {
+  // portal_edges_ft.stp: feet at (0, 0, 0) and (20, 0, 0) ft, knees at 15 ft (the file's points).
+  const std::string yaml = "model: " + (data / "portal_edges_ft.stp").string() + "\n"
+                           "units: {length: ft, force: kip}\n"
+                           "rules:\n  - where: {}\n    section: W12X26\n    material: A992\n"
+                           "supports:\n  - near: [0, 0, 0]\n    fix: fixed\n"
+                           "  - where: {near: [20, 0, 0]}\n    fix: fixed\n"
+                           "cases:\n  - name: S\n    node_loads:\n      - near: [20, 0, 15]\n        force: [1, 0, 0]\n"
+                           "    settlements:\n      - near: [0, 0, 0]\n        displacement: {uz: -0.01}\n";
+  const Built b = build(yaml);
+  REQUIRE(b.built.model.supports.size() == 2);
+  CHECK(b.built.model.supports[0].node == node_at(b.wireframe, {0, 0, 0}));
+  CHECK(b.built.model.supports[1].node == node_at(b.wireframe, {20 * 0.3048, 0, 0}));
+  const auto& lc = b.built.model.cases.at(0);
+  REQUIRE(lc.node_loads.size() == 1);
+  CHECK(lc.node_loads[0].node == node_at(b.wireframe, {20 * 0.3048, 0, 15 * 0.3048}));
+  REQUIRE(lc.settlements.size() == 1);
+  CHECK(lc.settlements[0].node == node_at(b.wireframe, {0, 0, 0}));
+  CHECK(lc.settlements[0].value == Approx(-0.01 * 0.3048));
+}
+
+TEST_CASE("a selector key on the wrong level is refused with the form it belongs in", "[points][selectors][errors]") {
+  const auto message = [&](const std::string& yaml) {
+    const std::string cases = yaml.find("cases:") == std::string::npos ? "cases: [{name: G, self_weight: true}]\n" : "";
+    try {
+      read_project_text("model: frame.stp\n" + cases + yaml, data, "p.yaml");
+    } catch (const InputError& e) {
+      return std::string(e.what());
+    }
+    return std::string("(accepted)");
+  };
+  // A plane beside fix: belongs inside where:.
+  CHECK_THAT(message("supports: [{z: 0, fix: pinned}]\n"),
+             Contains("p.yaml:3 (supports[0].z)") && Contains("goes inside where:") && Contains("where: {z: 0}"));
+  // fix: inside where: belongs beside it.
+  CHECK_THAT(message("supports: [{where: {z: 0, fix: pinned}}]\n"),
+             Contains("supports[0].where.fix") && Contains("goes beside where:") && Contains("fix: pinned"));
+  // A member's attribute beside section:, and a section inside where:.
+  CHECK_THAT(message("rules: [{layer: BEAMS, section: IPE300}]\n"),
+             Contains("rules[0].layer") && Contains("where: {layer: BEAMS}"));
+  CHECK_THAT(message("rules: [{where: {layer: BEAMS, section: IPE300}}]\n"),
+             Contains("rules[0].where.section") && Contains("goes beside where:"));
+  // Nodes are not chosen by layer, members not by plane.
+  CHECK_THAT(message("supports: [{where: {layer: BASE}, fix: fixed}]\n"),
+             Contains("supports[0].where.layer") && Contains("chooses members") && Contains("near: [x, y, z]"));
+  CHECK_THAT(message("cases: [{name: Q, member_loads: [{where: {z: 0}, w: [0, 0, -1]}]}]\n"),
+             Contains("where.z") && Contains("chooses nodes") && Contains("where: {layer: ...}"));
+  // Both or neither of near: and where:, the same message in all three lists.
+  for (const std::string list : {"supports: [{%s fix: fixed}]\n",
+                                 "cases: [{name: Q, node_loads: [{%s force: [0, 0, -1]}]}]\n",
+                                 "cases: [{name: Q, settlements: [{%s displacement: {uz: -1}}]}]\n"}) {
+    const auto with = [&](const std::string& keys) {
+      std::string yaml = list;
+      return yaml.replace(yaml.find("%s"), 2, keys);
+    };
+    INFO(list);
+    CHECK_THAT(message(with("near: [0, 0, 0], where: {z: 0},")), Contains("use either 'near' or 'where', not both"));
+    CHECK_THAT(message(with("")), Contains("needs its nodes: choose nodes with") && Contains("near: [x, y, z]"));
+  }
 }

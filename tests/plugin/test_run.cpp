@@ -129,7 +129,7 @@ TEST_CASE("bad input exits with status 2 and writes nothing") {
     write_beam(dir, "main girder");
     const auto r = run(beam_project(10.0));
     CHECK(r.status == 2);
-    CHECK_THAT(r.err, Contains("1 member(s) have no section") && Contains("#") && Contains("main girder"));
+    CHECK_THAT(r.err, Contains("1 member has no section") && Contains("#") && Contains("main girder"));
   }
   SECTION("an unknown key names the line") {
     write_beam(dir);

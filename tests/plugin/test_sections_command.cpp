@@ -91,3 +91,26 @@ TEST_CASE("stepframe sections suggests the nearest designations for an unknown o
   CHECK(r.status == 2);
   CHECK_THAT(r.err, Contains("IPE 310") && Contains("IPE300") && Contains("IPE330"));
 }
+
+TEST_CASE("stepframe sections prints readable numbers and family names", "[plugin][cli][sections]") {
+  // HE 200 B (EN 10365:2017 table, from memory; header of this file): Iw = 171.1e3 cm6, Iy = 5696 cm4.
+  test::ScratchDir scratch;
+  const auto one = test::run_stepframe("sections \"HE 200 B\"", scratch);
+  REQUIRE(one.status == 0);
+  CHECK_THAT(one.out, Contains("HEB: wide flange H beams"));
+  CHECK_THAT(one.out, Contains("171.1 10^3 cm6") && Contains("5696 cm4") && Contains("78.08 cm2"));
+  CHECK_THAT(one.out, Contains("  depth                    200 mm"));  // no trailing zeros
+  // Four significant digits, thousands set apart, never an exponent.
+  const auto big = test::run_stepframe("sections HEM1000", scratch);
+  REQUIRE(big.status == 0);
+  CHECK(big.out.find("e+") == std::string::npos);
+  CHECK(big.out.find("e-") == std::string::npos);
+  CHECK_THAT(big.out, Contains("722 300 cm4"));  // HE 1000 M, Iy = 722 300 cm4 (EN 10365:2017 table, from memory)
+  // The listing names each family and counts grammatically.
+  const auto list = test::run_stepframe("sections UPN", scratch);
+  REQUIRE(list.status == 0);
+  CHECK_THAT(list.out, Contains("UPN, channels, tapered flanges (EN 10365") && Contains(" sections\n"));
+  const auto json = test::run_stepframe("sections SHS --json", scratch);
+  REQUIRE(json.status == 0);
+  CHECK(nlohmann::json::parse(json.out)["sections"][0]["family_name"] == "square hollow sections");
+}

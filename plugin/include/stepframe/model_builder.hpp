@@ -38,6 +38,40 @@ struct UnassignedMember {
   bool no_material = false;
 };
 
+/// A member's section and material as build_frame_model gives them, and what set each.
+struct MemberProperties {
+  std::optional<std::string> section;   ///< the section's designation; empty when none is found
+  std::optional<std::string> material;  ///< the material's name; empty when none is found
+  /// "rules[2] (line 12)" or the attribute the designation was found in ("name 'IPE 300'").
+  std::string section_from, material_from;
+};
+
+/// Each wireframe member's section and material, by the rules and the members'
+/// own attributes as build_frame_model reads them. Throws InputError when a
+/// rule names an unknown section or material.
+std::vector<MemberProperties> member_properties(const Project& project, const geometry::Wireframe& wireframe);
+
+/// The catalogue designation a CAD attribute value names, read as members' own
+/// attributes are ("HE 200 B beam" -> "HEB200"); empty when it names none.
+std::optional<std::string> designation_in(const std::string& value);
+
+/// The standard material grade a CAD attribute value names ("S355 plate" -> "S355").
+std::optional<std::string> material_in(const std::string& value);
+
+/// One message (naming the project-file line) per rule, member load, node load
+/// or settlement whose selector matches nothing; `run` stops at the loads,
+/// while a rule matching nothing is only suspicious. Supports: support_nodes.
+std::vector<std::string> selectors_matching_nothing(const Project& project, const geometry::Wireframe& wireframe);
+
+/// The nodes one support of the project selects, or why it selects none.
+struct SupportNodes {
+  std::vector<std::size_t> nodes;  ///< indices into Wireframe::nodes
+  std::string problem;             ///< the message `run` would stop with; empty when nodes were found
+};
+
+/// What each of the project's supports selects, in the project's order.
+std::vector<SupportNodes> support_nodes(const Project& project, const geometry::Wireframe& wireframe);
+
 /// The members build_frame_model would refuse for want of a section or a
 /// material, by the same rules, without building the model. Throws InputError
 /// when a rule names an unknown section or material, as build_frame_model does.
