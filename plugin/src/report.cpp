@@ -146,9 +146,14 @@ std::string report_html(const Analysis& a) {
     h += fmt::format("<tr{}><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{:.3f}</td>", c && !c->pass ? " class=\"failed\"" : "",
                      m, escaped(src.entity), escaped(src.name), escaped(model.sections[el.section].designation),
                      escaped(model.materials[el.material].name), length);
-    if (c)
-      h += fmt::format("<td>{}</td><td>{}</td><td class=\"num\">{:.3f}</td><td class=\"num\">{:.3f}</td><td>{}</td></tr>\n",
-                       escaped(c->check), escaped(c->combination), c->station, c->utilisation, escaped(c->clause));
+    if (c) {
+      // The governing check's intermediate values (results.json "details"), SI units, for following it by hand.
+      std::string details;
+      for (const auto& [name, value] : c->details) details += fmt::format("{}{} = {:.4g}", details.empty() ? "" : ", ", name, value);
+      if (!details.empty()) details = "<br><small class=\"details\">" + escaped(details) + "</small>";
+      h += fmt::format("<td>{}</td><td>{}</td><td class=\"num\">{:.3f}</td><td class=\"num\">{:.3f}</td><td>{}{}</td></tr>\n",
+                       escaped(c->check), escaped(c->combination), c->station, c->utilisation, escaped(c->clause), details);
+    }
     else
       h += "<td colspan=\"5\">not checked</td></tr>\n";
   }

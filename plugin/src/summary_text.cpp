@@ -11,9 +11,12 @@ std::string summary_text(const Analysis& a) {
   const auto& model = a.built.model;
   std::string out;
   const bool pass = a.status() == ExitStatus::pass;
-  out += fmt::format("stepframe: {}  ({} members, {} nodes, {} load cases, {} combinations)\n",
-                     pass ? "PASS" : "FAIL", model.members.size(), model.nodes.size(), model.cases.size(),
-                     model.combinations.size());
+  std::size_t variants = 0;
+  for (const auto& s : a.sway_imperfections) variants += s.variants.size();
+  out += fmt::format("stepframe: {}  ({} members, {} nodes, {} load cases, {} combinations{})\n",
+                     pass ? "PASS" : "FAIL", model.members.size(), model.nodes.size(), a.project.cases.size(),
+                     a.project.combinations.size(),
+                     variants ? fmt::format(" + {} with sway imperfections, EN 1993-1-1 5.3.2", variants) : "");
 
   out += fmt::format("\n{:<16} {:<12} {:>14} {:>14} {:>14} {:>9}\n", "result", "kind", "von Mises MPa",
                      "local defl. mm", "node |u| mm", "alpha_cr");
