@@ -86,11 +86,11 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   options.buckling_modes = a.project.buckling_modes;
   a.sway_imperfections = detail::add_sway_imperfections(a.project, a.built.model, options);
   a.results = analysis::solve(a.built.model, options);
-  // The load cases of the sway imperfections' forces are only parts of their variants (listed in
-  // a.sway_imperfections): not results of their own.
+  // The load cases the sway variants add (imperfection forces, horizontal parts to amplify) are only parts
+  // of those variants (listed in a.sway_imperfections): not results of their own.
   std::erase_if(a.results, [&](const analysis::LoadResult& r) {
-    return !r.is_combination && std::any_of(a.sway_imperfections.begin(), a.sway_imperfections.end(),
-                                            [&](const auto& s) { return s.forces_case == r.name; });
+    return !r.is_combination && std::none_of(a.project.cases.begin(), a.project.cases.end(),
+                                             [&](const CaseSpec& c) { return c.name == r.name; });
   });
 
   report("checks", 0);

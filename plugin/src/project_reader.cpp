@@ -477,7 +477,14 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
 
   if (const auto node = root["analysis"]) {
     r.check_keys(node, "analysis",
-                 {"shear_deformation", "second_order", "buckling_modes", "sls_buckling", "sway_imperfection"});
+                 {"shear_deformation", "second_order", "buckling_modes", "sls_buckling", "sway_imperfection",
+                  "sway_amplification"});
+    if (node["sway_amplification"]) {
+      p.sway_amplification = r.boolean(node["sway_amplification"], "analysis.sway_amplification");
+      if (p.sway_amplification && node["second_order"] && r.boolean(node["second_order"], "analysis.second_order"))
+        r.fail(node["sway_amplification"], "analysis.sway_amplification",
+               "the amplification of EN 1993-1-1 5.2.2(5) is an alternative to second_order: choose one");
+    }
     if (const auto sway = node["sway_imperfection"]) {
       const std::string key = "analysis.sway_imperfection";
       const std::string value = r.text(sway, key);

@@ -221,6 +221,9 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
     w.key("H_Ed").value(i.H_Ed);
     w.key("V_Ed").value(i.V_Ed);
     w.key("exempt").value(i.exempt);
+    if (s.alpha_cr) w.key("alpha_cr").value(*s.alpha_cr);
+    else w.key("alpha_cr").null();
+    w.key("amplification").value(s.amplification);
     w.key("forces").begin_array();  // towards +axis; the -axis variant takes them reversed
     for (const auto& f : i.forces) {
       w.begin_object();

@@ -206,6 +206,9 @@ struct Project {
   std::size_t buckling_modes = 3;   ///< analysis.buckling_modes (0: no buckling analysis)
   bool sls_buckling = false;        ///< analysis.sls_buckling: also buckling of serviceability combinations
   SwayImperfectionSpec sway_imperfection;  ///< analysis.sway_imperfection
+  /// analysis.sway_amplification: EN 1993-1-1 5.2.2(5), sway effects times 1 / (1 - 1/alpha_cr) in the
+  /// sway variants of combinations with 3 <= alpha_cr < 10 (an alternative to second_order).
+  bool sway_amplification = false;
   OutputsSpec outputs;
 };
 

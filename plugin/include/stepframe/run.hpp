@@ -35,6 +35,10 @@ struct SwayImperfectionRecord {
   /// Analysis::results (the forces are listed here); empty when exempt.
   std::string forces_case;
   std::vector<std::string> variants;  ///< the combination with the forces added, then subtracted
+  /// analysis.sway_amplification: the combination's alpha_cr and the factor 1 / (1 - 1/alpha_cr) of
+  /// EN 1993-1-1 5.2.2(5) its variants carry on the horizontal loads and these forces (1: none).
+  std::optional<double> alpha_cr;
+  double amplification = 1.0;
 };
 
 /// Everything a run computes, before anything is written.
