@@ -14,7 +14,7 @@ namespace {
 
 // Torsional shear stress per unit torque [1/m^3] (see section_stress).
 double torsion_factor(const Section& s) {
-  const double t = s.t_max > 0 ? s.t_max : std::min(s.depth, s.width);
+  const double t = s.t_max > 0 ? s.t_max : std::min(s.depth, s.width);  // shapes always give t_max
   switch (s.shape) {
     case SectionShape::rolled_i:
     case SectionShape::welded_i:
@@ -33,7 +33,11 @@ double torsion_factor(const Section& s) {
     case SectionShape::custom:
       break;
   }
-  return std::min(s.depth, s.width) / s.J;
+  // Given by properties: the stated torsion modulus, else the thickest plate of an open thin-walled
+  // section (tau = T t / J), else nothing is known and torsion is left out (the model builder warns).
+  if (s.Wt > 0) return 1.0 / s.Wt;
+  if (s.t_max > 0) return s.t_max / s.J;
+  return 0.0;
 }
 
 // Root of the quadratic through (x_k, v_k), k = 0..2, inside [lo, hi].

@@ -75,6 +75,41 @@ Curve lateral_torsional_curve(const Section& s) {
   }
 }
 
+const char* method_name(LateralTorsionalMethod method) {
+  return method == LateralTorsionalMethod::rolled ? "6.3.2.3 (rolled or equivalent welded)" : "6.3.2.2 (general case)";
+}
+
+std::optional<Curve> lateral_torsional_curve_rolled(const Section& s) {
+  // EN 1993-1-1 Table 6.5 (6.3.2.3): rolled I h/b <= 2 b, > 2 c; welded I h/b <= 2 c, > 2 d.
+  const double h_over_b = s.depth / s.width;
+  switch (s.shape) {
+    case SectionShape::rolled_i: return h_over_b <= 2.0 ? Curve::b : Curve::c;
+    case SectionShape::welded_i: return h_over_b <= 2.0 ? Curve::c : Curve::d;
+    default: return std::nullopt;
+  }
+}
+
+double reduction_factor_rolled(double slenderness, Curve curve, double lambda_0, double beta) {
+  const double lambda = std::max(slenderness, 0.0);
+  if (lambda <= lambda_0) return 1.0;  // 6.3.2.2(4), with lambda_LT,0 of 6.3.2.3
+  // EN 1993-1-1 6.3.2.3 (6.57): Phi_LT = 0.5 [1 + alpha_LT (lambda - lambda_0) + beta lambda^2].
+  const double phi = 0.5 * (1.0 + imperfection_factor(curve) * (lambda - lambda_0) + beta * lambda * lambda);
+  const double chi = 1.0 / (phi + std::sqrt(phi * phi - beta * lambda * lambda));
+  return std::min({chi, 1.0, 1.0 / (lambda * lambda)});
+}
+
+double correction_factor_kc(bool linear, double psi, double C1) {
+  // EN 1993-1-1 Table 6.6 for linear diagrams; kc = 1 / sqrt(C1) otherwise (from memory).
+  const double kc = linear ? 1.0 / (1.33 - 0.33 * std::clamp(psi, -1.0, 1.0)) : 1.0 / std::sqrt(std::max(C1, 1.0));
+  return std::min(kc, 1.0);
+}
+
+double modification_factor_f(double kc, double slenderness) {
+  // EN 1993-1-1 6.3.2.3(2) (6.58): f = 1 - 0.5 (1 - kc) [1 - 2.0 (lambda_LT - 0.8)^2], f <= 1.
+  const double d = slenderness - 0.8;
+  return std::min(1.0 - 0.5 * (1.0 - kc) * (1.0 - 2.0 * d * d), 1.0);
+}
+
 double critical_moment(double E, double G, double Iz, double Iw, double It, double L, double C1, double C2,
                        double zg) {
   const double pi2 = std::numbers::pi * std::numbers::pi;

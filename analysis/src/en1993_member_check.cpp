@@ -92,7 +92,7 @@ CheckResult result(const std::string& check, std::string clause, double station,
 }  // namespace
 
 std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& line, const std::string& combination,
-                                      const PartialFactors& f) {
+                                      const PartialFactors& f, const LateralTorsionalOptions& ltb) {
   const Section& s = *in.section;
   const double fy = in.material.fy, E = in.material.E, G = in.material.G;
   const double L = in.length;
@@ -167,11 +167,16 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
 
   if (NEd > 0) {
     const double NbRd = std::min(chi_y, chi_z) * NRk / f.gamma_M1;  // (6.47)
-    out.push_back(result("6.3.1 flexural buckling",
-                         fmt::format("EN 1993-1-1 6.3.1, curves {}/{} (y/z), chi_y = {:.3f}, chi_z = {:.3f}, "
-                                     "Lcr = {:.3g}/{:.3g} m",
-                                     curve_name(curves.y), curve_name(curves.z), chi_y, chi_z, Ly, Lz),
-                         line.stations[n_station].x, NEd, NbRd, "N"));
+    CheckResult r = result("6.3.1 flexural buckling",
+                           fmt::format("EN 1993-1-1 6.3.1, curves {}/{} (y/z), chi_y = {:.3f}, chi_z = {:.3f}, "
+                                       "Lcr = {:.3g}/{:.3g} m",
+                                       curve_name(curves.y), curve_name(curves.z), chi_y, chi_z, Ly, Lz),
+                           line.stations[n_station].x, NEd, NbRd, "N");
+    r.details = {{"L_cr_y", Ly},     {"L_cr_z", Lz},        {"lambda_y", lambda_y},
+                 {"lambda_z", lambda_z}, {"alpha_y", imperfection_factor(curves.y)},
+                 {"alpha_z", imperfection_factor(curves.z)}, {"chi_y", chi_y}, {"chi_z", chi_z},
+                 {"N_b_Rd", NbRd}};
+    out.push_back(std::move(r));
   }
 
   // 6.3.1.4: open sections can also buckle by twisting (torsional, or torsional-flexural when the shear
@@ -197,11 +202,12 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     // Span loads (a curved diagram) are taken on the top flange, towards the shear centre: the conservative
     // default when the model does not say where they act.
     const double zg = my.linear ? 0.0 : 0.5 * s.depth;
+    const bool ends_only = std::abs(in.buckling.lt - 1.0) < 1e-12;
+    std::vector<DiagramPoint> points;
     double Mcr = 0;
     std::string basis;
-    if (std::abs(in.buckling.lt - 1.0) < 1e-12) {
+    if (ends_only) {
       // Restrained at the member ends only: Mcr of the member's own moment diagram (energy method).
-      std::vector<DiagramPoint> points;
       points.reserve(line.stations.size());
       for (const Station& st : line.stations) points.push_back({st.x, st.forces(My_), st.forces(Vz_)});
       Mcr = critical_moment_for_diagram({E, G, s.Iz, s.Iw, s.J}, points, zg);
@@ -215,15 +221,46 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
       basis = fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", lT,
                           my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
     }
-    const double lambda_lt = std::sqrt(Wy * fy / Mcr);                     // (6.56)
-    const Curve curve = lateral_torsional_curve(s);
-    chi_lt = lambda_lt <= 0.2 ? 1.0 : reduction_factor(lambda_lt, curve);  // 6.3.2.2(4): lambda_LT,0 = 0.2
-    const double MbRd = chi_lt * Wy * fy / f.gamma_M1;                     // (6.55)
-    out.push_back(result(
+    const double lambda_lt = std::sqrt(Wy * fy / Mcr);  // (6.56)
+    // 6.3.2.3 where the options ask for it and the section is an I section; 6.3.2.2 otherwise.
+    const std::optional<Curve> rolled_curve =
+        ltb.method == LateralTorsionalMethod::rolled ? lateral_torsional_curve_rolled(s) : std::nullopt;
+    const LateralTorsionalMethod method = rolled_curve ? LateralTorsionalMethod::rolled : LateralTorsionalMethod::general;
+    const Curve curve = rolled_curve ? *rolled_curve : lateral_torsional_curve(s);
+    const double lambda_0 = rolled_curve ? ltb.lambda_0 : 0.2, beta = rolled_curve ? ltb.beta : 1.0;
+    const double alpha_lt = imperfection_factor(curve);
+    // Phi_LT = 0.5 [1 + alpha_LT (lambda_LT - lambda_LT,0) + beta lambda_LT^2]: (6.56) with lambda_LT,0 = 0.2,
+    // beta = 1, or (6.57).
+    const double phi_lt = 0.5 * (1 + alpha_lt * (lambda_lt - lambda_0) + beta * lambda_lt * lambda_lt);
+    chi_lt = rolled_curve ? reduction_factor_rolled(lambda_lt, curve, lambda_0, beta)
+                          : (lambda_lt <= 0.2 ? 1.0 : reduction_factor(lambda_lt, curve));  // 6.3.2.2(4)
+    std::vector<std::pair<std::string, double>> details{
+        {"Mcr", Mcr},          {"W_y", Wy},      {"lambda_LT", lambda_lt}, {"alpha_LT", alpha_lt},
+        {"lambda_LT_0", lambda_0}, {"beta", beta}, {"Phi_LT", phi_lt},     {"chi_LT", chi_lt}};
+    std::string modification;
+    if (rolled_curve && ltb.f_modification) {
+      // 6.3.2.3(2): kc of Table 6.6 from the diagram; C1 (for curved diagrams) with the load at the shear centre.
+      double C1 = 1.0;
+      if (!my.linear && ends_only)
+        C1 = critical_moment_for_diagram({E, G, s.Iz, s.Iw, s.J}, points, 0.0) /
+             critical_moment(E, G, s.Iz, s.Iw, s.J, lT, 1.0);
+      const double kc = ends_only ? correction_factor_kc(my.linear, my.psi, C1) : 1.0;
+      const double f_mod = modification_factor_f(kc, lambda_lt);
+      chi_lt = std::min({chi_lt / f_mod, 1.0, 1.0 / (lambda_lt * lambda_lt)});  // (6.58)
+      details.insert(details.end(), {{"kc", kc}, {"f", f_mod}, {"chi_LT_mod", chi_lt}});
+      modification = fmt::format(", f = {:.3f} (kc = {:.3f}, 6.58)", f_mod, kc);
+    }
+    const double MbRd = chi_lt * Wy * fy / f.gamma_M1;  // (6.55)
+    details.insert(details.end(), {{"M_Ed", my.peak}, {"M_b_Rd", MbRd}});
+    CheckResult r = result(
         "6.3.2 lateral-torsional buckling",
-        fmt::format("EN 1993-1-1 6.3.2.2, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}; {}", curve_name(curve),
-                    Mcr / 1e3, chi_lt, basis),
-        line.stations[my.peak_station].x, my.peak, MbRd, "N*m"));
+        fmt::format("EN 1993-1-1 {}{}, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}{}; {}", method_name(method),
+                    ltb.method == LateralTorsionalMethod::rolled && !rolled_curve ? " (6.3.2.3 covers I sections only)"
+                                                                                  : "",
+                    curve_name(curve), Mcr / 1e3, chi_lt, modification, basis),
+        line.stations[my.peak_station].x, my.peak, MbRd, "N*m");
+    r.details = std::move(details);
+    out.push_back(std::move(r));
   }
 
   if (NEd > 0) {
@@ -251,18 +288,38 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double MyRk = Wy * fy, MzRk = Wz * fy;
     const double u61 = n_y + kyy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kyz * mz.peak / (MzRk / f.gamma_M1);
     const double u62 = n_z + kzy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kzz * mz.peak / (MzRk / f.gamma_M1);
-    out.push_back(result("6.3.3 interaction",
-                         fmt::format("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
-                                     "kzz = {:.3f}, Cmy = {:.2f}, Cmz = {:.2f}",
-                                     u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy, Cmz),
-                         line.stations[my.peak_station].x, std::max(u61, u62), 1.0));
+    CheckResult r = result("6.3.3 interaction",
+                           fmt::format("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
+                                       "kzz = {:.3f}, Cmy = {:.2f}, Cmz = {:.2f}",
+                                       u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy, Cmz),
+                           line.stations[my.peak_station].x, std::max(u61, u62), 1.0);
+    r.details = {{"N_Ed", NEd},
+                 {"M_y_Ed", my.peak},
+                 {"M_z_Ed", mz.peak},
+                 {"chi_y", chi_y},
+                 {"chi_z", std::min(chi_z, chi_t)},
+                 {"chi_LT", chi_lt},
+                 {"N_b_y_Rd", chi_y * NRk / f.gamma_M1},
+                 {"N_b_z_Rd", std::min(chi_z, chi_t) * NRk / f.gamma_M1},
+                 {"M_b_Rd", chi_lt * MyRk / f.gamma_M1},
+                 {"C_my", Cmy},
+                 {"C_mz", Cmz},
+                 {"C_mLT", Cmlt},
+                 {"k_yy", kyy},
+                 {"k_yz", kyz},
+                 {"k_zy", kzy},
+                 {"k_zz", kzz},
+                 {"eq_6_61", u61},
+                 {"eq_6_62", u62}};
+    out.push_back(std::move(r));
   }
   for (auto& r : out) r.combination = combination, r.member = in.member;
   return out;
 }
 
 std::vector<CheckResult> check_members(const FrameModel& model, const std::vector<const LoadResult*>& results,
-                                       const std::vector<BucklingLengths>& buckling, const PartialFactors& factors) {
+                                       const std::vector<BucklingLengths>& buckling, const PartialFactors& factors,
+                                       const LateralTorsionalOptions& ltb) {
   const auto chains = member_chains(model);
   // Per member, the worst result of each check over the results, ordered by check name; the
   // members are independent, so they are spread over the cores and joined in member order.
@@ -277,7 +334,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     for (const LoadResult* r : results) {
       const LineResult line = member_line(model, *r, chains[m], LineDetail::stations);
       in.length = line.length;
-      for (CheckResult& c : check_member(in, line, r->name, factors)) {
+      for (CheckResult& c : check_member(in, line, r->name, factors, ltb)) {
         auto [it, inserted] = worst[m].try_emplace(c.check, c);
         if (!inserted && c.utilisation > it->second.utilisation) it->second = std::move(c);
       }

@@ -7,6 +7,15 @@
 
 namespace stepframe::analysis {
 
+double angle_from_vertical(const Eigen::Vector3d& start, const Eigen::Vector3d& end) {
+  const Eigen::Vector3d chord = end - start;
+  return std::atan2(chord.head<2>().norm(), std::abs(chord.z()));  // horizontal extent over vertical rise
+}
+
+bool is_vertical(const Eigen::Vector3d& start, const Eigen::Vector3d& end) {
+  return angle_from_vertical(start, end) <= vertical_tolerance;
+}
+
 Eigen::Matrix3d local_axes(const Eigen::Vector3d& start, const Eigen::Vector3d& end, double roll) {
   const Eigen::Vector3d chord = end - start;
   const double length = chord.norm();
@@ -14,15 +23,14 @@ Eigen::Matrix3d local_axes(const Eigen::Vector3d& start, const Eigen::Vector3d& 
   const Eigen::Vector3d x = chord / length;
 
   // Section orientation convention (README, "Member axes"): strong axis y horizontal
-  // for non-vertical members; depth (z) along global X for vertical ones.
-  const Eigen::Vector3d up = Eigen::Vector3d::UnitZ();
-  const bool vertical = x.head<2>().norm() < 1e-6;
+  // for non-vertical members; depth (z) along global X, square to the member, for vertical ones.
   Eigen::Vector3d y, z;
-  if (vertical) {
-    z = Eigen::Vector3d::UnitX();
+  if (is_vertical(start, end)) {
+    const Eigen::Vector3d X = Eigen::Vector3d::UnitX();
+    z = (X - X.dot(x) * x).normalized();  // |X . x| <= sin(0.25 deg): well conditioned
     y = z.cross(x);
   } else {
-    y = up.cross(x).normalized();
+    y = Eigen::Vector3d::UnitZ().cross(x).normalized();
     z = x.cross(y);
   }
 

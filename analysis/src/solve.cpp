@@ -217,6 +217,7 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
     LoadResult r;
     r.name = combo.name;
     r.is_combination = true;
+    r.serviceability = combo.serviceability;
     r.displacements = Eigen::VectorXd::Zero(size);
     Loading l;
     l.f = Eigen::VectorXd::Zero(size);
@@ -233,14 +234,18 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
 
   // Recovery of every case and combination (second order first where asked).
   const auto chains = member_chains(model);
+  // Results are the cases, then the combinations in model order.
+  auto wants_buckling = [&](std::size_t i) {
+    if (model.combinations.empty()) return true;
+    return i >= model.cases.size() && model.combinations[i - model.cases.size()].buckling;
+  };
   std::vector<LoadResult> first_order;  // combinations' first-order states, for the buckling patterns
   for (std::size_t i = 0; i < results.size(); ++i) {
     report("recovery", static_cast<double>(i) / static_cast<double>(results.size()));
     LoadResult& r = results[i];
     r.stations = options.stations;
     r.element_loads = loadings[i].terms;
-    const bool wants_buckling = r.is_combination || model.combinations.empty();
-    if (options.buckling_modes > 0 && wants_buckling) first_order.push_back(r);
+    if (options.buckling_modes > 0 && wants_buckling(i)) first_order.push_back(r);
     if (r.is_combination && model.settings.second_order) {
       const Sparse k_second = second_order(model, dofs, r, loadings[i], options);
       r.reactions = reactions_of(model, k_second, dofs, r.displacements, loadings[i].f);
@@ -252,7 +257,7 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
     r.members = summarise_members(model, chains, r);
   }
 
-  // Buckling of every combination (every case when there are none), all
+  // Buckling of every combination that asks for it (every case when there are none), all
   // sharing the factorised stiffness and one refined model.
   if (!first_order.empty()) {
     report("buckling", 0.0);
@@ -263,8 +268,9 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
     const FactorisedStiffness stiffness{system.k_free, dofs, factor};
     auto modes = buckling_modes(model, patterns, bo, &stiffness, [&](double f) { report("buckling", f); });
     std::size_t p = 0;
-    for (LoadResult& r : results) {
-      if (!(r.is_combination || model.combinations.empty())) continue;
+    for (std::size_t i = 0; i < results.size(); ++i) {
+      LoadResult& r = results[i];
+      if (!wants_buckling(i)) continue;
       r.buckling_modes = std::move(modes[p++]);
       if (!r.buckling_modes.empty()) {
         r.alpha_cr = r.buckling_modes.front().alpha;

@@ -4,6 +4,8 @@
 #include "stepframe/project_reader.hpp"
 #include "stepframe/run.hpp"
 
+#include "sway_variants.hpp"
+
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
@@ -74,13 +76,22 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
 
   report("model", 0);
   a.built = build_frame_model(a.project, a.wireframe);
+  log_diagnostics(a.project.model, a.built.diagnostics);
+  a.wireframe.diagnostics.insert(a.wireframe.diagnostics.end(), a.built.diagnostics.begin(), a.built.diagnostics.end());
   if (analysis::optimised_blas()) spdlog::info("linear algebra: CHOLMOD on {}", analysis::blas_description());
   else spdlog::warn("linear algebra: CHOLMOD on {}", analysis::blas_description());
 
   analysis::SolveOptions options;
   options.progress = [&](std::string_view stage, double f) { report(stage, f); };
   options.buckling_modes = a.project.buckling_modes;
+  a.sway_imperfections = detail::add_sway_imperfections(a.project, a.built.model, options);
   a.results = analysis::solve(a.built.model, options);
+  // The load cases the sway variants add (imperfection forces, horizontal parts to amplify) are only parts
+  // of those variants (listed in a.sway_imperfections): not results of their own.
+  std::erase_if(a.results, [&](const analysis::LoadResult& r) {
+    return !r.is_combination && std::none_of(a.project.cases.begin(), a.project.cases.end(),
+                                             [&](const CaseSpec& c) { return c.name == r.name; });
+  });
 
   report("checks", 0);
   const auto& spec = a.project.checks;
@@ -96,7 +107,7 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   if (spec.drift) add(analysis::check_drift(model, pick(a.results, spec.drift->combinations), spec.drift->storey_ratio));
   if (spec.en1993)
     add(analysis::en1993::check_members(model, pick(a.results, spec.en1993->combinations), a.built.buckling,
-                                        {spec.gamma_M0, spec.gamma_M1}));
+                                        {spec.gamma_M0, spec.gamma_M1}, spec.en1993->ltb));
   if (spec.stability)
     add(analysis::check_frame_stability(pick(a.results, spec.stability->combinations), spec.stability->alpha_cr_min));
   report("checks", 1);

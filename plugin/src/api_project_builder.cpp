@@ -110,6 +110,7 @@ ProjectBuilder& ProjectBuilder::combination(std::string name, std::vector<std::p
   c.origin = {project_.file, 0, "combinations[" + std::to_string(project_.combinations.size()) + "]"};
   c.name = std::move(name);
   c.factors = std::move(factors);
+  c.serviceability = default_serviceability(c.name, c.factors);
   project_.combinations.push_back(std::move(c));
   return *this;
 }
@@ -178,9 +179,13 @@ Project ProjectBuilder::build() const {
     if (!(p.checks.deflection->span_ratio > 0)) fail("checks.deflection: span_ratio must be positive, e.g. 300 for L/300");
   }
   if (!checks_set_) {
-    // As the project-file reader does: stresses under every combination (every case when there is none).
+    // As the project-file reader does: stresses under the ultimate combinations (every combination when
+    // none is ultimate, every case when there is none).
     StressCheckSpec spec;
-    for (const auto& c : p.combinations) spec.combinations.push_back(c.name);
+    for (const auto& c : p.combinations)
+      if (!c.serviceability) spec.combinations.push_back(c.name);
+    if (spec.combinations.empty())
+      for (const auto& c : p.combinations) spec.combinations.push_back(c.name);
     if (spec.combinations.empty()) spec.combinations = case_names;
     p.checks.stress = spec;
   }

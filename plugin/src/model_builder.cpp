@@ -354,6 +354,49 @@ std::vector<CompiledSelector> rule_selectors_of(const Project& project) {
   return selectors;
 }
 
+// A section given by its properties without a torsion modulus or thickest plate: torsional shear stress
+// cannot be worked out, so the stresses leave it out (element_recovery.hpp); say so once per section used.
+void note_torsion_unknown(const analysis::FrameModel& model, std::vector<geometry::Diagnostic>& diagnostics) {
+  std::vector<bool> used(model.sections.size(), false);
+  for (const auto& e : model.elements)
+    if (e.section < used.size()) used[e.section] = true;
+  for (std::size_t k = 0; k < model.sections.size(); ++k) {
+    const analysis::Section& s = model.sections[k];
+    if (!used[k] || s.shape != analysis::SectionShape::custom || s.Wt > 0 || s.t_max > 0) continue;
+    geometry::Diagnostic d;
+    d.severity = geometry::Severity::warning;
+    d.code = "torsion-stress-unknown";
+    d.message = fmt::format("section '{}' is given by its properties without torsion_modulus or thickest_plate: "
+                            "torsional shear stress is left out of its members' stresses. Add torsion_modulus "
+                            "(T / tau_max) or, for an open thin-walled section, thickest_plate to sections.{}",
+                            s.designation, s.designation);
+    diagnostics.push_back(std::move(d));
+  }
+}
+
+// A member that leans from the vertical by more than the vertical tolerance but less than the ambiguous
+// inclination (local_axes.hpp) may be a column drawn out of plumb: say how it was oriented.
+void note_near_vertical(const analysis::FrameModel& model, const analysis::Member& member,
+                        const geometry::SourceInfo& source, std::vector<geometry::Diagnostic>& diagnostics) {
+  double lean = 0;
+  for (std::size_t e : member.elements) {
+    const auto& nodes = model.elements[e].nodes;
+    lean = std::max(lean, analysis::angle_from_vertical(model.nodes[nodes[0]], model.nodes[nodes[1]]));
+  }
+  if (!(lean > analysis::vertical_tolerance && lean < analysis::ambiguous_inclination)) return;
+  constexpr double degree = std::numbers::pi / 180.0;
+  geometry::Diagnostic d;
+  d.severity = geometry::Severity::warning;
+  d.code = "near-vertical-member";
+  d.message = fmt::format(
+      "member {} leans {:.2f} degrees from the vertical: oriented as an inclined member (strong axis horizontal), "
+      "not as a column (members within {:.2f} degrees of the vertical count as vertical, depth along X). If it is a "
+      "column drawn out of plumb, straighten it in the CAD model, or give its orientation with a rule's orient_to",
+      describe_member(source), lean / degree, analysis::vertical_tolerance / degree);
+  if (!source.entity.empty()) d.entities = {source.entity};
+  diagnostics.push_back(std::move(d));
+}
+
 }  // namespace
 
 geometry::WireframeOptions wireframe_options(const Project& project) {
@@ -493,6 +536,7 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
       model.elements.push_back({{wm.nodes[k - 1], wm.nodes[k]}, section.value_or(0), material.value_or(0), roll, {}});
       if (orient_to) model.elements.back().roll = roll_towards(model, model.elements.back(), *orient_to, *orienting_rule, wm.source);
     }
+    if (!orient_to) note_near_vertical(model, member, wm.source, built.diagnostics);
     // Releases act at the member's ends: the start of its first element, the end of its last.
     if (!member.elements.empty()) {
       model.elements[member.elements.front()].releases[0] = release[0];
@@ -503,6 +547,8 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
     built.buckling.push_back(buckling);
     built.deflection_ratio.push_back(deflection_ratio);
   }
+
+  note_torsion_unknown(model, built.diagnostics);
 
   auto list = [](const std::vector<std::string>& items) {
     constexpr std::size_t shown = 20;
@@ -525,10 +571,25 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
   }
 
   const double tol = project.merge_tolerance;
+  auto note = [&](std::string code, std::string message, std::size_t node) {
+    geometry::Diagnostic d;
+    d.code = std::move(code);
+    d.message = std::move(message);
+    d.at = model.nodes[node];
+    built.diagnostics.push_back(std::move(d));
+  };
+  std::map<std::size_t, const SupportSpec*> first_support;  // node -> the first support entry selecting it
   for (const auto& spec : project.supports)
     for (std::size_t node : select_nodes(spec.where, model.nodes, wireframe.labels, tol)) {
       auto existing = std::find_if(model.supports.begin(), model.supports.end(),
                                    [&](const analysis::Support& s) { return s.node == node; });
+      const auto [first, inserted] = first_support.try_emplace(node, &spec);
+      if (!inserted)
+        note("supports-combined",
+             fmt::format("node {} is selected by {} and by {}: the supports are combined (a direction fixed by "
+                         "either is fixed, springs add up)",
+                         node, first->second->where.origin.describe(), spec.where.origin.describe()),
+             node);
       if (existing == model.supports.end()) {
         analysis::Support support;
         support.node = node;
@@ -559,9 +620,16 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
         throw InputError(load.where.origin.describe() +
                          ": matches no member; check the name/layer/product patterns against `stepframe inspect`");
     }
-    for (const auto& load : spec.node_loads)
-      for (std::size_t node : select_nodes(load.where, model.nodes, wireframe.labels, tol))
-        lc.node_loads.push_back({node, load.force, load.moment});
+    for (const auto& load : spec.node_loads) {
+      const auto nodes = select_nodes(load.where, model.nodes, wireframe.labels, tol);
+      for (std::size_t node : nodes) lc.node_loads.push_back({node, load.force, load.moment});
+      if (nodes.size() > 1)
+        note("node-load-on-every-node",
+             fmt::format("{} selects {} nodes: the full force and moment act at each of them ({} times the "
+                         "given load in all); to spread a total, divide it by the number of nodes",
+                         load.where.origin.describe(), nodes.size(), nodes.size()),
+             nodes.front());
+    }
     for (const auto& settlement : spec.settlements)
       for (std::size_t node : select_nodes(settlement.where, model.nodes, wireframe.labels, tol))
         for (int d = 0; d < 6; ++d) {
@@ -583,6 +651,8 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
   for (const auto& spec : project.combinations) {
     analysis::Combination combination;
     combination.name = spec.name;
+    combination.serviceability = spec.serviceability;
+    combination.buckling = !spec.serviceability || project.sls_buckling;
     for (const auto& [case_name, factor] : spec.factors) {
       const auto it = std::find_if(project.cases.begin(), project.cases.end(),
                                    [&](const CaseSpec& c) { return c.name == case_name; });

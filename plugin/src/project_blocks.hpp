@@ -9,4 +9,13 @@ namespace stepframe::detail {
 /// The `outputs:` block (README "Outputs").
 OutputsSpec read_outputs(const Reader& r, const YAML::Node& node);
 
+/// The `checks:` block (README "Checks"). A check may name any case or
+/// combination; without `combinations:` the strength and stability checks
+/// run under the ultimate combinations, deflection and drift under the
+/// serviceability ones (every case and combination when there are none of
+/// that kind, every case when there are no combinations). Without a block,
+/// stresses are screened under the ultimate combinations so chosen.
+ChecksSpec read_checks(const Reader& r, const YAML::Node& node, const std::vector<std::string>& cases,
+                       const std::vector<CombinationSpec>& combinations);
+
 }  // namespace stepframe::detail

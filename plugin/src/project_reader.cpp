@@ -90,7 +90,7 @@ analysis::Material read_material(const Reader& r, const YAML::Node& node, const 
 
 analysis::Section read_section(const Reader& r, const YAML::Node& node, const std::string& path,
                                const std::string& name) {
-  r.check_keys(node, path, {"A", "Iy", "Iz", "J", "depth", "width"});
+  r.check_keys(node, path, {"A", "Iy", "Iz", "J", "depth", "width", "torsion_modulus", "thickest_plate"});
   analysis::Section s;
   s.designation = name;
   const std::pair<const char*, double*> fields[] = {{"A", &s.A},   {"Iy", &s.Iy},       {"Iz", &s.Iz},
@@ -107,7 +107,18 @@ analysis::Section read_section(const Reader& r, const YAML::Node& node, const st
     if (!(*target > 0)) r.fail(node[key], path + "." + k, "must be positive");
   }
   // A depth x width outline with its corners as stress points, for the 3D view and fibre stresses.
-  return analysis::custom_section(name, s.A, s.Iy, s.Iz, s.J, s.depth, s.width);
+  analysis::Section section = analysis::custom_section(name, s.A, s.Iy, s.Iz, s.J, s.depth, s.width);
+  // Torsional shear stress: T / torsion_modulus, or T t / J with the thickest plate t (thin open sections).
+  if (const auto wt = node["torsion_modulus"]) {
+    section.Wt = r.number(wt, path + ".torsion_modulus", dimension::section_modulus);
+    if (!(section.Wt > 0)) r.fail(wt, path + ".torsion_modulus", "must be positive (T / tau_max)");
+  }
+  if (const auto t = node["thickest_plate"]) {
+    section.t_max = r.number(t, path + ".thickest_plate", dimension::length);
+    if (!(section.t_max > 0 && section.t_max <= std::min(s.depth, s.width)))
+      r.fail(t, path + ".thickest_plate", "must be positive and no larger than the section's depth and width");
+  }
+  return section;
 }
 
 // Selectors: `where:` holds the keys that choose members (rules, member loads) or nodes (supports,
@@ -378,20 +389,6 @@ CaseSpec read_case(const Reader& r, const YAML::Node& node, const std::string& p
   return c;
 }
 
-std::vector<std::string> read_name_list(const Reader& r, const YAML::Node& node, const std::string& path,
-                                        const std::vector<std::string>& known) {
-  r.expect_list(node, path);
-  std::vector<std::string> names;
-  for (std::size_t i = 0; i < node.size(); ++i) {
-    const auto name = r.text(node[i], Reader::index(path, i));
-    if (std::find(known.begin(), known.end(), name) == known.end())
-      r.fail(node[i], Reader::index(path, i),
-             "no load case or combination is named '" + name + "'" + did_you_mean(name, known));
-    names.push_back(name);
-  }
-  return names;
-}
-
 // The shared core of read_project and read_project_text: `file` names the
 // project in messages, `base_dir` is where a relative `model:` is found.
 Project read_project_root(const YAML::Node& root, const std::filesystem::path& file,
@@ -530,7 +527,7 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
     r.expect_list(node, "combinations");
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("combinations", i);
-      r.check_keys(node[i], path, {"name", "factors"});
+      r.check_keys(node[i], path, {"name", "factors", "kind"});
       CombinationSpec c;
       c.origin = r.where(node[i], path);
       if (!node[i]["name"]) r.fail(node[i], path, "a combination needs a name");
@@ -545,67 +542,44 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
           r.fail(f.first, path + ".factors." + name, "no load case is named '" + name + "'" + did_you_mean(name, case_names));
         c.factors.emplace_back(name, r.number(f.second, path + ".factors." + name, dimension::none));
       }
+      c.serviceability = default_serviceability(c.name, c.factors);
+      if (const auto kind = node[i]["kind"]) {
+        const std::string value = r.text(kind, path + ".kind");
+        if (value != "uls" && value != "sls")
+          r.fail(kind, path + ".kind", "expected uls (ultimate) or sls (serviceability), got '" + value + "'");
+        c.serviceability = value == "sls";
+      }
       result_names.push_back(c.name);
       p.combinations.push_back(std::move(c));
     }
   }
 
-  if (const auto node = root["checks"]) {
-    r.check_keys(node, "checks", {"stress", "deflection", "en1993", "drift", "stability", "partial_factors"});
-    // A check's `combinations`, or every case and combination when it gives none.
-    auto names_for = [&](const YAML::Node& check, const std::string& path) {
-      return check["combinations"] ? read_name_list(r, check["combinations"], path + ".combinations", result_names)
-                                   : result_names;
-    };
-    auto positive_ratio = [&](const YAML::Node& value, const std::string& path, const char* example) {
-      const double ratio = r.number(value, path, dimension::none);
-      if (!(ratio > 0)) r.fail(value, path, std::string("must be positive, e.g. ") + example);
-      return ratio;
-    };
-    if (const auto s = node["stress"]) {
-      r.check_keys(s, "checks.stress", {"combinations"});
-      p.checks.stress = StressCheckSpec{names_for(s, "checks.stress")};
-    }
-    if (const auto d = node["deflection"]) {
-      r.check_keys(d, "checks.deflection", {"span_ratio", "combinations"});
-      DeflectionCheckSpec spec;
-      if (d["span_ratio"]) spec.span_ratio = positive_ratio(d["span_ratio"], "checks.deflection.span_ratio", "300 for L/300");
-      spec.combinations = names_for(d, "checks.deflection");
-      p.checks.deflection = spec;
-    }
-    if (const auto e = node["en1993"]) {
-      r.check_keys(e, "checks.en1993", {"combinations"});
-      p.checks.en1993 = En1993CheckSpec{names_for(e, "checks.en1993")};
-    }
-    if (const auto d = node["drift"]) {
-      r.check_keys(d, "checks.drift", {"storey_ratio", "combinations"});
-      DriftCheckSpec spec;
-      if (d["storey_ratio"]) spec.storey_ratio = positive_ratio(d["storey_ratio"], "checks.drift.storey_ratio", "300 for h/300");
-      spec.combinations = names_for(d, "checks.drift");
-      p.checks.drift = spec;
-    }
-    if (const auto st = node["stability"]) {
-      r.check_keys(st, "checks.stability", {"alpha_cr_min", "combinations"});
-      StabilityCheckSpec spec;
-      if (st["alpha_cr_min"]) spec.alpha_cr_min = positive_ratio(st["alpha_cr_min"], "checks.stability.alpha_cr_min", "10 (EN 1993-1-1 5.2.1(3))");
-      spec.combinations = names_for(st, "checks.stability");
-      p.checks.stability = spec;
-    }
-    if (const auto f = node["partial_factors"]) {
-      r.check_keys(f, "checks.partial_factors", {"gamma_M0", "gamma_M1"});
-      if (f["gamma_M0"]) p.checks.gamma_M0 = positive_ratio(f["gamma_M0"], "checks.partial_factors.gamma_M0", "1.0");
-      if (f["gamma_M1"]) p.checks.gamma_M1 = positive_ratio(f["gamma_M1"], "checks.partial_factors.gamma_M1", "1.0");
-    }
-  } else {
-    // Without a checks block, screen stresses under every combination (every case when there are none).
-    StressCheckSpec spec;
-    for (const auto& c : p.combinations) spec.combinations.push_back(c.name);
-    if (spec.combinations.empty()) spec.combinations = case_names;
-    p.checks.stress = spec;
-  }
+  p.checks = detail::read_checks(r, root["checks"], case_names, p.combinations);
 
   if (const auto node = root["analysis"]) {
-    r.check_keys(node, "analysis", {"shear_deformation", "second_order", "buckling_modes"});
+    r.check_keys(node, "analysis",
+                 {"shear_deformation", "second_order", "buckling_modes", "sls_buckling", "sway_imperfection",
+                  "sway_amplification"});
+    if (node["sway_amplification"]) {
+      p.sway_amplification = r.boolean(node["sway_amplification"], "analysis.sway_amplification");
+      if (p.sway_amplification && node["second_order"] && r.boolean(node["second_order"], "analysis.second_order"))
+        r.fail(node["sway_amplification"], "analysis.sway_amplification",
+               "the amplification of EN 1993-1-1 5.2.2(5) is an alternative to second_order: choose one");
+    }
+    if (const auto sway = node["sway_imperfection"]) {
+      const std::string key = "analysis.sway_imperfection";
+      const std::string value = r.text(sway, key);
+      bool on = true;
+      if (value == "off" || (YAML::convert<bool>::decode(sway, on) && !on)) {
+        p.sway_imperfection.enabled = false;
+      } else if (value != "auto" && !(YAML::convert<bool>::decode(sway, on) && on)) {
+        const double phi = r.number(sway, key, dimension::none);
+        if (!(phi > 0 && phi <= 0.05))
+          r.fail(sway, key, "expected auto (EN 1993-1-1 5.3.2(3)), off, or a sway angle phi such as 0.005 (1/200)");
+        p.sway_imperfection.phi = phi;
+      }
+    }
+    if (node["sls_buckling"]) p.sls_buckling = r.boolean(node["sls_buckling"], "analysis.sls_buckling");
     if (node["shear_deformation"]) p.shear_deformation = r.boolean(node["shear_deformation"], "analysis.shear_deformation");
     if (node["second_order"]) p.second_order = r.boolean(node["second_order"], "analysis.second_order");
     if (node["buckling_modes"]) {

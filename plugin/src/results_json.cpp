@@ -5,6 +5,7 @@
 #include "stepframe/run.hpp"
 
 #include "json_shapes.hpp"
+#include "stepframe/analysis/member_line.hpp"
 
 
 namespace stepframe {
@@ -44,10 +45,34 @@ void write_checks(JsonWriter& w, const std::vector<analysis::CheckResult>& check
   w.end_array();
 }
 
+// A member split into elements (where other members end on it, or along a curve): the internal forces
+// just before and just after each inner node, x from the member's start.
+void inner_node_forces(JsonWriter& w, const analysis::FrameModel& model, const analysis::LoadResult& r,
+                       const analysis::Member& member) {
+  w.key("inner_nodes").begin_array();
+  double x = 0;
+  analysis::LineResult previous = analysis::element_line(model, r, member.elements.front(), 2, analysis::LineDetail::stations);
+  for (std::size_t k = 1; k < member.elements.size(); ++k) {
+    x += previous.length;
+    analysis::LineResult next = analysis::element_line(model, r, member.elements[k], 2, analysis::LineDetail::stations);
+    w.begin_object();
+    w.key("node").value(model.elements[member.elements[k]].nodes[0]);
+    w.key("x").value(x);
+    w.key("before");
+    vec6(w, previous.end_forces);
+    w.key("after");
+    vec6(w, next.start_forces);
+    w.end_object();
+    previous = std::move(next);
+  }
+  w.end_array();
+}
+
 void write_result(JsonWriter& w, const analysis::FrameModel& model, const analysis::LoadResult& r) {
   w.begin_object();
   w.key("name").value(r.name);
   w.key("kind").value(r.is_combination ? "combination" : "case");
+  if (r.is_combination) w.key("limit_state").value(r.serviceability ? "sls" : "uls");
   // Elastic critical load factor and the lowest buckling modes' factors (null / empty when not computed).
   if (r.alpha_cr) w.key("alpha_cr").value(*r.alpha_cr);
   else w.key("alpha_cr").null();
@@ -99,6 +124,7 @@ void write_result(JsonWriter& w, const analysis::FrameModel& model, const analys
     w.key("end");
     vec6(w, res.end_forces);
     w.end_object();
+    if (m < model.members.size() && model.members[m].elements.size() > 1) inner_node_forces(w, model, r, model.members[m]);
     w.end_object();
   }
   w.end_array();
@@ -178,6 +204,41 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
 
   w.key("checks");
   write_checks(w, a.checks);
+  w.newline();
+
+  w.key("sway_imperfections").begin_array();
+  for (const auto& s : a.sway_imperfections) {
+    const auto& i = s.imperfection;
+    w.newline();
+    w.begin_object();
+    w.key("combination").value(s.combination);
+    w.key("axis").value(i.axis == 0 ? "X" : "Y");
+    w.key("phi").value(i.phi);
+    w.key("alpha_h").value(i.alpha_h);
+    w.key("alpha_m").value(i.alpha_m);
+    w.key("columns").value(i.columns);
+    w.key("height").value(i.height);
+    w.key("H_Ed").value(i.H_Ed);
+    w.key("V_Ed").value(i.V_Ed);
+    w.key("exempt").value(i.exempt);
+    if (s.alpha_cr) w.key("alpha_cr").value(*s.alpha_cr);
+    else w.key("alpha_cr").null();
+    w.key("amplification").value(s.amplification);
+    w.key("forces").begin_array();  // towards +axis; the -axis variant takes them reversed
+    for (const auto& f : i.forces) {
+      w.begin_object();
+      w.key("node").value(f.node);
+      w.key("force");
+      vec3(w, f.force);
+      w.end_object();
+    }
+    w.end_array();
+    w.key("variants").begin_array();
+    for (const auto& v : s.variants) w.value(v);
+    w.end_array();
+    w.end_object();
+  }
+  w.end_array();
   w.newline();
 
   w.key("diagnostics").begin_array();

@@ -12,9 +12,12 @@ std::string summary_text(const Analysis& a) {
   const auto& model = a.built.model;
   std::string out;
   const bool pass = a.status() == ExitStatus::pass;
-  out += fmt::format("stepframe: {}  ({}, {}, {}, {})\n", pass ? "PASS" : "FAIL", counted(model.members.size(), "member"),
-                     counted(model.nodes.size(), "node"), counted(model.cases.size(), "load case"),
-                     counted(model.combinations.size(), "combination"));
+  std::size_t variants = 0;
+  for (const auto& s : a.sway_imperfections) variants += s.variants.size();
+  out += fmt::format("stepframe: {}  ({}, {}, {}, {}{})\n", pass ? "PASS" : "FAIL", counted(model.members.size(), "member"),
+                     counted(model.nodes.size(), "node"), counted(a.project.cases.size(), "load case"),
+                     counted(a.project.combinations.size(), "combination"),
+                     variants ? fmt::format(" + {} with sway imperfections, EN 1993-1-1 5.3.2", variants) : "");
 
   out += fmt::format("\n{:<16} {:<12} {:>14} {:>14} {:>14} {:>9}\n", "case or comb.", "kind", "von Mises MPa",
                      "local defl. mm", "node |u| mm", "alpha_cr");

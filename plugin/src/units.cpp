@@ -83,6 +83,7 @@ std::optional<Unit> parse_factor(std::string_view text) {
 std::string describe(Dimension d) {
   if (d == dimension::length) return "length";
   if (d == dimension::area) return "area";
+  if (d == dimension::section_modulus) return "section modulus";
   if (d == dimension::second_moment) return "second moment of area";
   if (d == dimension::force) return "force";
   if (d == dimension::moment) return "moment";

@@ -22,7 +22,7 @@ namespace {
 std::string file_stem(const std::string& name, std::set<std::string>& used) {
   std::string stem;
   for (char c : name)
-    stem += std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.' ? c : '_';
+    stem += std::isalnum(static_cast<unsigned char>(c)) || c == '-' || c == '_' || c == '.' || c == '+' ? c : '_';
   if (stem.empty() || stem.front() == '.') stem = "result" + stem;
   std::string unique = stem;
   for (int i = 2; !used.insert(unique).second; ++i) unique = stem + "_" + std::to_string(i);

@@ -408,3 +408,80 @@ TEST_CASE("bending and axial force on class 1 and 2 sections (6.2.9.1)") {
     CHECK_FALSE(plastic_interaction(*chs, {1, 1, 1}, 0.1, 0.1, 0.1));
   }
 }
+
+TEST_CASE("lateral-torsional buckling of rolled sections (6.3.2.3)") {
+  const auto ipe450 = find_catalogue_section("IPE450");
+  const auto heb300 = find_catalogue_section("HEB300");
+  const auto shs = find_catalogue_section("SHS100X100X5");
+  REQUIRE(ipe450);
+  REQUIRE(heb300);
+  // Table 6.5: rolled I sections h/b <= 2 curve b, h/b > 2 curve c; 6.3.2.3 covers I sections only.
+  CHECK(lateral_torsional_curve_rolled(*ipe450) == Curve::c);
+  CHECK(lateral_torsional_curve_rolled(*heb300) == Curve::b);
+  REQUIRE(shs);
+  CHECK_FALSE(lateral_torsional_curve_rolled(*shs));
+
+  // Steel Buildings in Europe, Multi-Storey Steel Buildings Part 8, Appendix A, Worked Example 2
+  // (SECHALO RFS2-CT-2008-0030, 2010), sheet 4: lambda_LT = 0.470, curve c, lambda_LT,0 = 0.4,
+  // beta = 0.75 give Phi_LT = 0.60 and chi_LT = 0.961 (as transcribed in the reference folder).
+  CHECK(reduction_factor_rolled(0.470, Curve::c, 0.4, 0.75) == Approx(0.961).margin(5e-4));
+  // Same guides, Multi-Storey Steel Buildings Part 4, worked example A.1 sheet 5: lambda_LT = 1.288,
+  // curve c: chi_LT = 0.480.
+  CHECK(reduction_factor_rolled(1.288, Curve::c, 0.4, 0.75) == Approx(0.480).margin(5e-4));
+  // 6.3.2.2(4): no reduction up to lambda_LT,0; (6.57): chi_LT <= 1 / lambda_LT^2 (binds for low beta).
+  CHECK(reduction_factor_rolled(0.4, Curve::d, 0.4, 0.75) == 1.0);
+  const double lambda = 2.0;
+  CHECK(reduction_factor_rolled(lambda, Curve::a0, 0.4, 0.1) == Approx(1.0 / (lambda * lambda)));
+
+  // Table 6.6: kc = 1 / (1.33 - 0.33 psi): 1 for uniform moment, 0.6 for psi = -1 (1/1.66 = 0.602).
+  CHECK(correction_factor_kc(true, 1.0, 1.0) == Approx(1.0));
+  CHECK(correction_factor_kc(true, -1.0, 1.0) == Approx(1.0 / 1.66));
+  CHECK(correction_factor_kc(true, 0.0, 1.0) == Approx(1.0 / 1.33));
+  // (6.58): f = 1 - 0.5 (1 - kc) [1 - 2 (lambda - 0.8)^2]; at lambda = 0.8, f = 1 - 0.5 (1 - kc).
+  CHECK(modification_factor_f(0.752, 0.8) == Approx(1 - 0.5 * 0.248));
+  CHECK(modification_factor_f(0.752, 1.5) == Approx(1 - 0.5 * 0.248 * (1 - 2 * 0.49)));
+  CHECK(modification_factor_f(1.0, 0.3) == 1.0);
+}
+
+TEST_CASE("the LTB check names its method and carries its intermediate values") {
+  // IPE 300 over 6 m under end moments psi = 0 (linear diagram): the rolled method with f gives
+  // chi_LT,mod = chi_LT / f of 6.3.2.3 with kc = 1/1.33 (Table 6.6); the general method 6.3.2.2.
+  const auto ipe300 = find_catalogue_section("IPE300");
+  REQUIRE(ipe300);
+  const double L = 6.0;
+  FrameModel model = fork_supported_s355(*ipe300, L);
+  LoadCase c;
+  c.name = "M";
+  c.node_loads = {{0, Eigen::Vector3d::Zero(), Eigen::Vector3d(0, 50e3, 0)}};  // My at the start: linear diagram
+  model.cases = {c};
+  const auto results = solve(model);
+  auto ltb_of = [&](const LateralTorsionalOptions& options) {
+    for (const auto& r : check_members(model, {&results[0]}, {}, PartialFactors{}, options))
+      if (r.check == "6.3.2 lateral-torsional buckling") return r;
+    FAIL("no LTB check");
+    return CheckResult{};
+  };
+  auto detail = [](const CheckResult& r, const std::string& name) {
+    for (const auto& [key, value] : r.details)
+      if (key == name) return value;
+    FAIL("no detail " << name);
+    return 0.0;
+  };
+  const CheckResult general = ltb_of({});
+  CHECK_THAT(general.clause, Contains("6.3.2.2"));
+  const double lambda = detail(general, "lambda_LT");
+  CHECK(lambda == Approx(std::sqrt(ipe300->Wpl_y * 355e6 / detail(general, "Mcr"))));
+  CHECK(detail(general, "chi_LT") == Approx(reduction_factor(lambda, Curve::a)));  // Table 6.4, h/b <= 2
+
+  LateralTorsionalOptions rolled;
+  rolled.method = LateralTorsionalMethod::rolled;
+  const CheckResult plain = ltb_of(rolled);
+  CHECK_THAT(plain.clause, Contains("6.3.2.3"));
+  CHECK(detail(plain, "chi_LT") == Approx(reduction_factor_rolled(lambda, Curve::b, 0.4, 0.75)));  // Table 6.5
+  rolled.f_modification = true;
+  const CheckResult modified = ltb_of(rolled);
+  const double f = 1 - 0.5 * (1 - 1 / 1.33) * (1 - 2 * (lambda - 0.8) * (lambda - 0.8));  // (6.58), psi = 0
+  CHECK(detail(modified, "f") == Approx(f));
+  CHECK(detail(modified, "chi_LT_mod") == Approx(std::min(detail(plain, "chi_LT") / f, 1.0)));
+  CHECK(modified.limit == Approx(detail(modified, "chi_LT_mod") * ipe300->Wpl_y * 355e6));
+}

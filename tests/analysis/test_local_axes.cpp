@@ -86,3 +86,31 @@ TEST_CASE("roll of 90 degrees turns y onto z and z onto -y", "[analysis][local_a
 TEST_CASE("zero-length member is rejected", "[analysis][local_axes]") {
   REQUIRE_THROWS_AS(local_axes(V(1, 1, 1), V(1, 1, 1), 0), std::invalid_argument);
 }
+
+TEST_CASE("a column a little out of plumb is oriented as a plumb one", "[analysis][local_axes]") {
+  using stepframe::analysis::ambiguous_inclination;
+  using stepframe::analysis::angle_from_vertical;
+  using stepframe::analysis::is_vertical;
+  using stepframe::analysis::vertical_tolerance;
+  // A 3 m column whose top drifts 0.01 mm or 1 mm in X or Y: local z stays within the drift angle of
+  // global X (square to the member), y within it of -Y, as for the plumb column above.
+  for (const V& drift : {V(1e-5, 0, 0), V(0, 1e-5, 0), V(1e-3, 0, 0), V(0, -1e-3, 0), V(7e-4, 7e-4, 0)}) {
+    const V top = V(0, 0, 3) + drift;
+    INFO("drift " << drift.transpose());
+    REQUIRE(is_vertical(V::Zero(), top));
+    const Eigen::Matrix3d r = local_axes(V::Zero(), top, 0);
+    require_right_handed_orthonormal(r);
+    const double angle = drift.norm() / 3;  // small-angle: drift over height
+    CHECK((r.row(2).transpose() - V::UnitX()).norm() < 1.01 * angle + tol);
+    CHECK((r.row(1).transpose() + V::UnitY()).norm() < 1.01 * angle + tol);
+    CHECK(std::abs(r.row(2).dot(r.row(0))) < tol);  // z square to the member
+  }
+  // The tolerance is an angle: 0.25 degrees either side, at any height; beyond it a member is inclined.
+  CHECK(angle_from_vertical(V::Zero(), V(0, 0, 3)) == 0.0);
+  CHECK(angle_from_vertical(V::Zero(), V(3, 0, 0)) == Approx(std::numbers::pi / 2));
+  CHECK(angle_from_vertical(V::Zero(), V(1, 0, -1)) == Approx(std::numbers::pi / 4));
+  const double inside = std::tan(0.99 * vertical_tolerance), outside = std::tan(1.01 * vertical_tolerance);
+  CHECK(is_vertical(V::Zero(), V(0, 10 * inside, -10)));
+  CHECK_FALSE(is_vertical(V::Zero(), V(0, 10 * outside, -10)));
+  CHECK(ambiguous_inclination > vertical_tolerance);
+}

@@ -100,7 +100,7 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
     REQUIRE(blocks->GetNumberOfBlocks() == 3);  // line, surface, modes
     auto* lines = vtkMultiBlockDataSet::SafeDownCast(blocks->GetBlock(0));
     REQUIRE(lines);
-    CHECK(lines->GetNumberOfBlocks() == 4);  // G, W, ULS, SLS
+    CHECK(lines->GetNumberOfBlocks() == 8);  // G, W, ULS, SLS and ULS's four sway-imperfection variants
   }
   SECTION("the report's verdict and utilisation match results.json") {
     const auto html = test::read_text(out / "report.html");

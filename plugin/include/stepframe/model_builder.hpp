@@ -18,6 +18,9 @@ struct BuiltModel {
   std::vector<geometry::SourceInfo> member_sources;  ///< one per model member
   std::vector<analysis::en1993::BucklingLengths> buckling;  ///< per member, from rules (default 1.0)
   std::vector<std::optional<double>> deflection_ratio;      ///< per member: a rule's span/ratio limit
+  /// Findings about the model as built (e.g. members near, but not within, the vertical tolerance);
+  /// the run adds them to the wireframe's diagnostics.
+  std::vector<geometry::Diagnostic> diagnostics;
 };
 
 /// How the project turns the file's edges into a wireframe: merge tolerance,

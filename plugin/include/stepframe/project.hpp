@@ -2,6 +2,7 @@
 // A stepframe project: what to analyse and how, as read from a project file
 // (format: README, "Project file"). Every value is SI; the reader converts.
 
+#include "stepframe/analysis/en1993.hpp"
 #include "stepframe/analysis/material.hpp"
 #include "stepframe/analysis/section.hpp"
 #include "stepframe/viz/vtk_compression.hpp"
@@ -107,7 +108,17 @@ struct CombinationSpec {
   std::string name;
   std::vector<std::pair<std::string, double>> factors;  ///< (case name, factor), file order
   SourceLine origin;
+  /// `kind: sls` (serviceability) or `uls` (ultimate). Without `kind:`, a name
+  /// that says SLS or serviceability, or factors all at most 1, mean sls;
+  /// anything else uls (see default_serviceability).
+  bool serviceability = false;
 };
+
+/// The limit state a combination without `kind:` is taken for: sls when its
+/// name contains "SLS", "serv" or "char" (characteristic), uls when it contains
+/// "ULS"; otherwise sls when every factor is at most 1 (characteristic,
+/// frequent and quasi-permanent combinations of EN 1990 6.5.3), else uls.
+bool default_serviceability(const std::string& name, const std::vector<std::pair<std::string, double>>& factors);
 
 struct StressCheckSpec {
   std::vector<std::string> combinations;  ///< case or combination names
@@ -121,6 +132,8 @@ struct DeflectionCheckSpec {
 /// EN 1993-1-1 member checks (5.5, 6.2, 6.3.1, 6.3.2, 6.3.3).
 struct En1993CheckSpec {
   std::vector<std::string> combinations;
+  /// checks.en1993.ltb_method (general: 6.3.2.2, rolled: 6.3.2.3) and f_modification (6.58).
+  analysis::en1993::LateralTorsionalOptions ltb{};
 };
 
 /// Storey drift: relative horizontal displacement of the ends of each vertical member <= h / ratio.
@@ -173,6 +186,13 @@ struct OutputsSpec {
   std::vector<std::string> calculation_sheets;
 };
 
+/// EN 1993-1-1 5.3.2 sway imperfections on the ultimate combinations
+/// (`analysis.sway_imperfection: auto | off | PHI`).
+struct SwayImperfectionSpec {
+  bool enabled = true;        ///< off: no equivalent horizontal forces
+  std::optional<double> phi;  ///< the project's own phi instead of phi_0 alpha_h alpha_m
+};
+
 struct Project {
   std::filesystem::path file;        ///< the project file itself
   std::filesystem::path model;       ///< the STEP file, resolved against the project's folder
@@ -191,6 +211,11 @@ struct Project {
   bool shear_deformation = false;   ///< analysis.shear_deformation
   bool second_order = false;        ///< analysis.second_order
   std::size_t buckling_modes = 3;   ///< analysis.buckling_modes (0: no buckling analysis)
+  bool sls_buckling = false;        ///< analysis.sls_buckling: also buckling of serviceability combinations
+  SwayImperfectionSpec sway_imperfection;  ///< analysis.sway_imperfection
+  /// analysis.sway_amplification: EN 1993-1-1 5.2.2(5), sway effects times 1 / (1 - 1/alpha_cr) in the
+  /// sway variants of combinations with 3 <= alpha_cr < 10 (an alternative to second_order).
+  bool sway_amplification = false;
   OutputsSpec outputs;
 };
 

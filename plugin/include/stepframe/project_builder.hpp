@@ -52,6 +52,7 @@ class ProjectBuilder {
   ProjectBuilder& support(NodeSelector where, std::array<bool, 6> fixed);
   ProjectBuilder& load_case(std::string name, bool self_weight);
   ProjectBuilder& load_case(CaseSpec load_case);
+  /// Its limit state is taken as default_serviceability says (project.hpp).
   ProjectBuilder& combination(std::string name, std::vector<std::pair<std::string, double>> factors);
   /// Stress check (max |sigma| <= fy) under these cases or combinations.
   ProjectBuilder& check_stress(std::vector<std::string> names);
@@ -63,8 +64,9 @@ class ProjectBuilder {
   /// positive tolerance, rules setting something) and returns the project.
   /// What the reader checks only when the model is built (sections and
   /// materials that exist, selectors that match) is checked by the run.
-  /// Without any check, stresses are checked under every combination (every
-  /// case when there is none). Throws InputError naming the item.
+  /// Without any check, stresses are checked under the ultimate combinations
+  /// (every combination when none is ultimate, every case when there is no
+  /// combination). Throws InputError naming the item.
   Project build() const;
 
  private:

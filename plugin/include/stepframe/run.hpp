@@ -3,6 +3,7 @@
 
 #include "stepframe/analysis/checks.hpp"
 #include "stepframe/analysis/results.hpp"
+#include "stepframe/analysis/sway_imperfection.hpp"
 #include "stepframe/errors.hpp"
 #include "stepframe/geometry/wireframe.hpp"
 #include "stepframe/model_builder.hpp"
@@ -24,6 +25,22 @@ namespace stepframe {
 inline constexpr std::string_view caution =
     "Screening aid only: a competent engineer must review these results; local codes and licensed practice govern.";
 
+/// One ultimate combination's sway imperfection in one horizontal direction
+/// (EN 1993-1-1 5.3.2): phi, the 5.3.2(4) verdict and the combinations solved
+/// with the equivalent forces ("ULS.sway+X", "ULS.sway-X"; none when exempt).
+struct SwayImperfectionRecord {
+  std::string combination;
+  analysis::SwayImperfection imperfection;  ///< with its forces towards +axis
+  /// The load case of those forces ("ULS.swayX"), solved with the others but left out of
+  /// Analysis::results (the forces are listed here); empty when exempt.
+  std::string forces_case;
+  std::vector<std::string> variants;  ///< the combination with the forces added, then subtracted
+  /// analysis.sway_amplification: the combination's alpha_cr and the factor 1 / (1 - 1/alpha_cr) of
+  /// EN 1993-1-1 5.2.2(5) its variants carry on the horizontal loads and these forces (1: none).
+  std::optional<double> alpha_cr;
+  double amplification = 1.0;
+};
+
 /// Everything a run computes, before anything is written.
 struct Analysis {
   Project project;
@@ -32,6 +49,8 @@ struct Analysis {
   BuiltModel built;
   std::vector<analysis::LoadResult> results;  ///< cases, then combinations
   std::vector<analysis::CheckResult> checks;
+  /// Sway imperfections applied (analysis.sway_imperfection), per ultimate combination and direction.
+  std::vector<SwayImperfectionRecord> sway_imperfections;
 
   ExitStatus status() const;  ///< pass or check_failed
 };

@@ -19,6 +19,7 @@ struct Dimension {
 namespace dimension {
 inline constexpr Dimension length{1, 0, 0};
 inline constexpr Dimension area{2, 0, 0};
+inline constexpr Dimension section_modulus{3, 0, 0};
 inline constexpr Dimension second_moment{4, 0, 0};
 inline constexpr Dimension force{0, 1, 0};
 inline constexpr Dimension moment{1, 1, 0};

@@ -34,8 +34,9 @@ struct SectionStress {
 /// open sections T t_max / J (Roark, Table 10.1 / 10.7 thin-walled open
 /// sections), rectangular hollow sections T / (2 A_m t) (Bredt's formula, A_m
 /// enclosed by the wall's mid-line), circular tubes and bars T r / J (exact
-/// for circular shafts), and T min(depth, width) / J for sections given by
-/// properties only (exact for a thin plate, conservative for compact shapes).
+/// for circular shafts); sections given by properties only: T / Wt with their
+/// torsion modulus Wt, else T t_max / J with their thickest plate (thin open
+/// section), else no torsional shear at all (nothing about the wall is known).
 SectionStress section_stress(const Section& section, const Vector6d& forces);
 
 /// Largest |sigma| over the stress points [Pa] (section_stress().max_abs_normal).

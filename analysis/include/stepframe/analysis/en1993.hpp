@@ -90,6 +90,42 @@ FlexuralCurves flexural_curves(const Section& section, double fy);
 /// Lateral-torsional buckling curve of 6.3.2.2 (Table 6.4).
 Curve lateral_torsional_curve(const Section& section);
 
+/// How chi_LT is worked out (6.3.2.1(2) lets the national annex choose).
+enum class LateralTorsionalMethod {
+  general,  ///< 6.3.2.2: Table 6.4 curves, lambda_LT,0 = 0.2, beta = 1 (every section)
+  rolled,   ///< 6.3.2.3: rolled or equivalent welded I sections, Table 6.5 curves,
+            ///< lambda_LT,0 and beta below; other sections fall back to 6.3.2.2
+};
+const char* method_name(LateralTorsionalMethod method);
+
+/// The choice of lateral-torsional buckling method and its parameters.
+struct LateralTorsionalOptions {
+  LateralTorsionalMethod method = LateralTorsionalMethod::general;
+  bool f_modification = false;  ///< 6.3.2.3(2) (6.58): chi_LT,mod = chi_LT / f (rolled method only)
+  double lambda_0 = 0.4;        ///< lambda_LT,0 of 6.3.2.3(1), recommended value
+  double beta = 0.75;           ///< beta of 6.3.2.3(1), recommended value
+};
+
+/// Lateral-torsional buckling curve of 6.3.2.3 (Table 6.5) for rolled and
+/// welded I sections; nothing for other shapes (6.3.2.3 does not cover them).
+std::optional<Curve> lateral_torsional_curve_rolled(const Section& section);
+
+/// Reduction factor chi_LT of 6.3.2.3 (6.57):
+/// Phi_LT = 0.5 [1 + alpha_LT (lambda_LT - lambda_LT,0) + beta lambda_LT^2],
+/// chi_LT = 1 / (Phi_LT + sqrt(Phi_LT^2 - beta lambda_LT^2)) <= 1 and <= 1 / lambda_LT^2;
+/// 1 for lambda_LT <= lambda_LT,0 (6.3.2.2(4)).
+double reduction_factor_rolled(double slenderness, Curve curve, double lambda_0, double beta);
+
+/// Correction factor kc of Table 6.6. A linear diagram (end moments psi Mh
+/// and Mh) takes 1 / (1.33 - 0.33 psi); other diagrams take kc = 1 / sqrt(C1)
+/// with C1 the ratio of the diagram's Mcr to that of uniform moment, both with
+/// the load at the shear centre (the approximation ECCS TC8 gives beside
+/// Table 6.6; from memory). Clamped to (0, 1].
+double correction_factor_kc(bool linear, double psi, double C1);
+
+/// f of 6.3.2.3(2) (6.58): f = 1 - 0.5 (1 - kc) [1 - 2 (lambda_LT - 0.8)^2] <= 1.
+double modification_factor_f(double kc, double slenderness);
+
 /// Elastic critical moment of a doubly symmetric I section, k = kw = 1 over
 /// the unrestrained length L, with the load applied zg above the shear centre
 /// (zg > 0 destabilising): the classic closed form (Timoshenko & Gere, Theory
@@ -179,7 +215,8 @@ struct MemberInput {
 /// buckling length factors (empty: 1.0 everywhere). Each member's fy is that
 /// of its section's thickest plate (material_for_section).
 std::vector<CheckResult> check_members(const FrameModel& model, const std::vector<const LoadResult*>& results,
-                                       const std::vector<BucklingLengths>& buckling, const PartialFactors& factors);
+                                       const std::vector<BucklingLengths>& buckling, const PartialFactors& factors,
+                                       const LateralTorsionalOptions& ltb = {});
 
 /// The EN 1993-1-1 checks of one member under one load result, one
 /// CheckResult each: "5.5 classification" (only for a class 4 section: its
@@ -191,8 +228,12 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
 /// (6.61, 6.62; Cm of Table B.3 from each diagram, 0.9 for an axis whose
 /// buckling length factor exceeds 1, i.e. a sway mode).
 /// Checks that do not apply (no compression, closed sections for LTB) are
-/// left out. `combination` is copied into the results.
+/// left out. `combination` is copied into the results. Each result carries
+/// the intermediate values of its verdict in `details` (e.g. the LTB check:
+/// Mcr, lambda_LT, alpha_LT, Phi_LT, chi_LT, M_b_Rd; the interaction: chi_y,
+/// chi_z, chi_LT, k_yy, k_yz, k_zy, k_zz, eq_6_61, eq_6_62). `ltb` chooses
+/// 6.3.2.2 or 6.3.2.3 for chi_LT; the LTB clause text names the one used.
 std::vector<CheckResult> check_member(const MemberInput& member, const LineResult& line, const std::string& combination,
-                                      const PartialFactors& factors);
+                                      const PartialFactors& factors, const LateralTorsionalOptions& ltb = {});
 
 }  // namespace stepframe::analysis::en1993

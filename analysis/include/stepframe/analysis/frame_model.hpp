@@ -102,6 +102,10 @@ struct Member {
 struct Combination {
   std::string name;
   std::vector<std::pair<std::size_t, double>> factors;  ///< (case index, factor)
+  /// A serviceability (SLS) combination rather than an ultimate one (ULS).
+  bool serviceability = false;
+  /// Analyse its buckling (alpha_cr and modes) when SolveOptions asks for modes.
+  bool buckling = true;
 };
 
 /// How the model is analysed.

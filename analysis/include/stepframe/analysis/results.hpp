@@ -91,6 +91,7 @@ struct LoadTerm {
 struct LoadResult {
   std::string name;
   bool is_combination = false;
+  bool serviceability = false;  ///< a serviceability combination (Combination::serviceability)
   Eigen::VectorXd displacements;  ///< 6 per node (ux uy uz rx ry rz), global [m, rad]
   Eigen::VectorXd reactions;      ///< 6 per node: at fixed DOFs R = K u - F, at springs the spring force
                                   ///< -k u on the frame, zero elsewhere [N, N m]

@@ -77,6 +77,9 @@ struct Section {
   double shear_centre_y = 0;   ///< shear centre relative to the centroid, along y [m]
   double shear_centre_z = 0;   ///< shear centre relative to the centroid, along z [m]
   double t_max = 0;            ///< thickest plate: decides fy (EN 10025-2 Table 7) [m]
+  /// Torsion modulus T / tau_max [m^3] when a section given by its properties
+  /// states it; 0 otherwise (shapes compute tau from their own geometry).
+  double Wt = 0;
   std::vector<SectionPart> parts{};          ///< plates with their c/t ratios
   std::vector<SectionPoint> stress_points{};  ///< corners of the convex hull: where |sigma| peaks
   /// Outline for drawing: the first ring is the outer boundary (anticlockwise

@@ -48,7 +48,10 @@ class UnstableFrame : public std::runtime_error {
 /// (in model order). Cases are solved together (one factorisation, all load
 /// vectors as one multi-column right-hand side); combinations are the
 /// factored sums of the cases, or, when the model asks for second order, each
-/// solved by P-Delta iteration. Throws UnstableFrame (also when a combination
+/// solved by P-Delta iteration. Buckling (alpha_cr and modes) is analysed for
+/// every combination whose `buckling` is set (every case when there are no
+/// combinations).
+/// Throws UnstableFrame (also when a combination
 /// exceeds its elastic critical load in second order), or
 /// std::invalid_argument for an invalid model (see validate_model).
 std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& options = {});
