@@ -79,5 +79,5 @@ TEST_CASE("the summary lists every failing check first, frame-level ones before 
   CHECK_THAT(rows.back(), Contains("... and " + std::to_string(more) + " more passing checks") &&
                               Contains("checks.csv") && Contains("results.json"));
   CHECK_THAT(r.out, Contains("governing: the frame: frame stability"));
-  CHECK_THAT(r.out, Contains("(21 members, 16 nodes, 3 load cases, 3 combinations)"));
+  CHECK_THAT(r.out, Contains("(21 members, 16 nodes, 3 load cases, 3 combinations + 8 with sway imperfections"));
 }
