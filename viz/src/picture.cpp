@@ -8,8 +8,20 @@
 
 #include <algorithm>
 #include <cmath>
+#include <mutex>
 
 namespace stepframe::viz {
+namespace {
+
+/// VTK's rendering (OpenGL context, FreeType fonts, the render window's
+/// teardown) is not safe on two threads at once: pictures are drawn one at a
+/// time in the whole process. The lock guards that library state, nothing of ours.
+std::mutex& rendering_lock() {
+  static std::mutex lock;
+  return lock;
+}
+
+}  // namespace
 
 std::array<std::uint8_t, 3> stress_colour(double f) {
   f = std::clamp(f, 0.0, 1.0);
@@ -65,6 +77,7 @@ Picture draw_stress_picture(const analysis::FrameModel& model, const analysis::L
   }
 
   std::string why_not = "not asked for";
+  const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
   if (auto png = options.opengl ? detail::render_with_opengl(scene, why_not) : std::nullopt) {
     picture.png = std::move(*png);
     picture.drawn_by = "OpenGL (offscreen)";
