@@ -6,6 +6,7 @@
 #include "harvest.hpp"
 #include "occt_messages.hpp"
 #include "shell_wireframes.hpp"
+#include "step_quotes.hpp"
 #include "step_attributes.hpp"
 #include "step_kind.hpp"
 #include "step_origins.hpp"
@@ -246,6 +247,8 @@ StepModel parse_and_read(const std::string& source, Read read) {
 
 // Parses the text (shell-based wireframes rewritten first) through OCCT's stream reader.
 StepModel read_text(std::string_view text, const std::string& source) {
+  const std::optional<std::string> quotes = detail::encode_doubled_quotes(text);
+  if (quotes) text = *quotes;
   const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(text);
   std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : text)};
   return parse_and_read(source, [&](STEPCAFControl_Reader& reader) {
@@ -254,8 +257,9 @@ StepModel read_text(std::string_view text, const std::string& source) {
 }
 
 // One pass over the file in blocks: checks its exchange structure before OCCT
-// sees it (StepStructureCheck) and tells whether it mentions a shell-based
-// wireframe. No copy of a large file is held.
+// sees it (StepStructureCheck) and tells whether OCCT must be given rewritten
+// text: the file mentions a shell-based wireframe or a string holds a doubled
+// quote. No copy of a large file is held.
 bool scan_file(const std::filesystem::path& file, const std::string& source) {
   errno = 0;
   std::ifstream in(file, std::ios::binary);
@@ -283,7 +287,7 @@ bool scan_file(const std::filesystem::path& file, const std::string& source) {
   }
   if (in.bad()) fail(source, "could not be read to its end; check the file");
   structure.finish();
-  return mentions;
+  return mentions || structure.doubled_quotes();
 }
 
 }  // namespace

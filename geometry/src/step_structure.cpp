@@ -56,7 +56,10 @@ void StepStructureCheck::character(char c) {
         return;
       }
       quote_ = false;
-      if (c == '\'') return;  // '' is a quote inside the string
+      if (c == '\'') {  // '' is a quote inside the string
+        doubled_quotes_ = true;
+        return;
+      }
       mode_ = Mode::normal;   // the quote before ended the string: c is the next character
       break;
     case Mode::normal:

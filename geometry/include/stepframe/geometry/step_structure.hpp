@@ -35,6 +35,9 @@ class StepStructureCheck {
   void finish();
 
   std::size_t entities() const { return ids_.size(); }
+  /// True when a string holds a doubled quote ('O''Neil'), which OCCT's
+  /// lexer mis-reads before a comma (the reader rewrites such text).
+  bool doubled_quotes() const { return doubled_quotes_; }
 
  private:
   void character(char c);
@@ -48,6 +51,7 @@ class StepStructureCheck {
   bool slash_ = false;          // a '/' that may open a comment
   bool star_ = false;           // a '*' that may close one
   bool quote_ = false;          // a quote inside a string that may be the first of ''
+  bool doubled_quotes_ = false;
   std::string token_;
   std::string word_;            // a keyword waiting to see whether '(' follows
   std::size_t word_line_ = 0;
