@@ -36,6 +36,12 @@ void StepStructureCheck::fail(const std::string& what) const {
   throw StepReadError(fmt::format("{}: {}", source_, what));
 }
 
+void StepStructureCheck::fail_bare_word() const {
+  fail(fmt::format("{}: '{}' stands where a value belongs; STEP values are finite numbers such as 1.5E3, strings, "
+                   "references (#12) or enumerations (.T.); {}",
+                   here(), word_, damaged));
+}
+
 void StepStructureCheck::feed(std::string_view piece) {
   for (char c : piece) character(c);
 }
@@ -75,9 +81,7 @@ void StepStructureCheck::character(char c) {
   }
   if (token_char(c)) {
     if (token_.empty() && !word_.empty())
-      fail(fmt::format("{}: '{}' stands where a value belongs; STEP values are finite numbers such as 1.5E3, "
-                       "strings, references (#12) or enumerations (.T.); {}",
-                       here(), word_, damaged));
+      fail_bare_word();
     token_ += c;
     return;
   }
@@ -89,9 +93,7 @@ void StepStructureCheck::character(char c) {
   if (std::isspace(static_cast<unsigned char>(c)) != 0) return;
   if (!word_.empty()) {
     if (c != '(')
-      fail(fmt::format("{}: '{}' stands where a value belongs; STEP values are finite numbers such as 1.5E3, "
-                       "strings, references (#12) or enumerations (.T.); {}",
-                       here(), word_, damaged));
+      fail_bare_word();
     word_.clear();
   }
   switch (c) {

@@ -49,26 +49,30 @@ bool output_unwritable(const fs::path& folder) {
   struct statvfs space {};
   if (::statvfs(folder.c_str(), &space) == 0) {
     if (space.f_flag & ST_RDONLY) return true;
-    if (space.f_bavail == 0) return true;
+    if (space.f_blocks > 0 && space.f_bavail == 0) return true;
   }
   return ::access(folder.c_str(), W_OK) != 0;
 }
 
 InputError output_failure(const fs::path& file, int error_number) {
   const std::string name = file.string();
-  if (error_number == ENOSPC || error_number == EDQUOT)
+  const auto full = [&] {
     return InputError(name + ": disk full: no space left for the results; free some space or choose another --out folder");
+  };
+  const auto unwritable = [&](const std::string& why) {
+    return InputError(name + ": not writable (" + why + "); choose an output folder you may write to (--out)");
+  };
+  if (error_number == ENOSPC || error_number == EDQUOT) return full();
   if (error_number == EACCES || error_number == EPERM || error_number == EROFS)
-    return InputError(name + ": not writable (" + std::strerror(error_number) +
-                      "); choose an output folder you may write to (--out)");
+    return unwritable(std::strerror(error_number));
+  // errno unknown (a VTK writer failed): ask the file system. Pseudo file systems report no blocks at all.
   const fs::path folder = file.has_parent_path() ? file.parent_path() : fs::path(".");
   struct statvfs space {};
-  if (::statvfs(folder.c_str(), &space) == 0 && space.f_bavail == 0)
-    return InputError(name + ": disk full: no space left for the results; free some space or choose another --out folder");
-  if (::statvfs(folder.c_str(), &space) == 0 && (space.f_flag & ST_RDONLY))
-    return InputError(name + ": not writable (read-only file system); choose another output folder (--out)");
-  if (::access(folder.c_str(), W_OK) != 0)
-    return InputError(name + ": not writable (no write permission on its folder); choose another output folder (--out)");
+  if (::statvfs(folder.c_str(), &space) == 0) {
+    if (space.f_blocks > 0 && space.f_bavail == 0) return full();
+    if (space.f_flag & ST_RDONLY) return unwritable("read-only file system");
+    if (::access(folder.c_str(), W_OK) != 0) return unwritable("no write permission on its folder");
+  }
   return InputError(name + ": could not be written" +
                     (error_number != 0 ? " (" + std::string(std::strerror(error_number)) + ")" : std::string()) +
                     "; check the output folder (--out)");

@@ -43,6 +43,7 @@ class StepStructureCheck {
   void character(char c);
   void end_token();
   [[noreturn]] void fail(const std::string& what) const;
+  [[noreturn]] void fail_bare_word() const;
   std::string here() const;
 
   std::string source_;
