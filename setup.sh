@@ -2,6 +2,9 @@
 # One-command set-up on Debian 12 (run as root).
 #   ./setup.sh demo   install packages, build (Release), run the bundled demo
 #   ./setup.sh test   install packages, build, run the whole test suite with ctest
+#   ./setup.sh asan   install packages, build with ASan+UBSan (preset asan), run the suite under them
+#   ./setup.sh fuzz [SECONDS]  install clang too, build the libFuzzer targets (preset fuzz) and run
+#                     each for SECONDS (default 60) on a corpus seeded from tests/data
 set -euo pipefail
 cd "$(dirname "$0")"
 
@@ -10,7 +13,7 @@ PACKAGES=(
   libocct-foundation-dev libocct-modeling-data-dev libocct-modeling-algorithms-dev
   libocct-ocaf-dev libocct-data-exchange-dev
   libvtk9-dev libegl-dev libegl-mesa0 libgl1-mesa-dri libglew-dev libeigen3-dev libsuitesparse-dev libopenblas-dev libspectra-dev
-  libspdlog-dev libyaml-cpp-dev nlohmann-json3-dev libcli11-dev catch2 libssl-dev
+  libspdlog-dev libyaml-cpp-dev nlohmann-json3-dev libcli11-dev catch2 libssl-dev libre2-dev
   python3 python3-dev pybind11-dev python3-distributed
   chromium  # the browser test of report.html (headless)
 )
@@ -50,8 +53,35 @@ case "${1:-demo}" in
     echo "== running the test suite"
     ctest --test-dir "$BUILD_DIR" --output-on-failure -j "$JOBS"
     ;;
+  asan)
+    install_packages
+    cmake --preset asan
+    cmake --build build-asan -j "$JOBS"
+    echo "== running the test suite under AddressSanitizer and UndefinedBehaviorSanitizer"
+    ctest --preset asan
+    ;;
+  fuzz)
+    PACKAGES+=(clang)
+    install_packages
+    seconds=${2:-60}
+    cmake --preset fuzz
+    cmake --build build-fuzz -j "$JOBS" --target fuzz_step_structure fuzz_step_import fuzz_designation fuzz_project_reader
+    corpus=build-fuzz/corpus
+    mkdir -p "$corpus/step" "$corpus/project" "$corpus/designation"
+    cp tests/data/*.stp data/demo/*.stp "$corpus/step/" 2>/dev/null || true
+    cp data/demo/*.yaml "$corpus/project/" 2>/dev/null || true
+    for d in IPE300 "HE 200 B" W12x26 "SHS 100x100x5" "CHS 219.1x8" PL20x300 L100x100x10 HSS6x6x3/8 W310x38.7; do
+      printf '%s' "$d" > "$corpus/designation/$(printf '%s' "$d" | tr -c 'A-Za-z0-9' '_')"
+    done
+    for target in step_structure:step step_import:step designation:designation project_reader:project; do
+      name=${target%%:*}
+      echo "== fuzz_$name for $seconds s"
+      (cd build-fuzz && "tests/fuzz/fuzz_$name" "corpus/${target##*:}" -max_total_time="$seconds" -rss_limit_mb=4096 \
+         -max_len=200000 -print_final_stats=1)
+    done
+    ;;
   *)
-    echo "usage: $0 demo|test" >&2
+    echo "usage: $0 demo|test|asan|fuzz [seconds]" >&2
     exit 2
     ;;
 esac

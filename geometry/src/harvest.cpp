@@ -160,8 +160,18 @@ void harvest_edge(const TopoDS_Edge& edge, const std::string& product, const std
 // Walks one label of the assembly tree with the placement of its instance.
 void harvest_label(const TDF_Label& label, const TopLoc_Location& placement, const std::string& product,
                    const std::string& assembly_path, Harvest& harvest, int depth) {
-  constexpr int max_depth = 64;  // guards against a cyclic assembly in a broken file
-  if (depth > max_depth) return;
+  // Guards against a cyclic assembly (an XDE document from a host: files are checked for cycles before
+  // OCCT reads them). Deeper parts are not dropped silently: an error names where the walk stopped.
+  constexpr int max_depth = 256;
+  if (depth > max_depth) {
+    harvest.model.diagnostics.push_back(
+        {Severity::error, "assembly-too-deep",
+         fmt::format("the assembly nests more than {} levels deep (or contains itself) at '{}'; the parts below "
+                     "were not read. Flatten the assembly in the CAD program before exporting.",
+                     max_depth, assembly_path),
+         {}, std::nullopt});
+    return;
+  }
   if (XCAFDoc_ShapeTool::IsAssembly(label)) {
     TDF_LabelSequence components;
     XCAFDoc_ShapeTool::GetComponents(label, components);
@@ -243,10 +253,14 @@ void finish_harvest(const Harvest& harvest, const std::string& source, const std
          fmt::format("{} edges could not be traced to a source entity; their attributes are empty",
                      harvest.without_entity),
          {}, std::nullopt});
-  if (model.edges.empty())
+  if (model.edges.empty()) {
+    // An error met on the way (an assembly too deep) is the likelier reason: say it first.
+    for (const Diagnostic& d : model.diagnostics)
+      if (d.severity == Severity::error) throw StepReadError(fmt::format("{}: {}", source, d.message));
     throw StepReadError(fmt::format("{}: contains no usable edges ({} edges seen, {} solid or surface bodies "
                                     "ignored). {}",
                                     source, harvest.edges_seen, harvest.bodies, advice));
+  }
 }
 
 }  // namespace stepframe::geometry::detail

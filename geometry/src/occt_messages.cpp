@@ -55,6 +55,11 @@ class CollectingPrinter : public Message_Printer {
 
 }  // namespace
 
+std::mutex& occt_exchange_lock() {
+  static std::mutex lock;  // guards OCCT's process-wide state, nothing of ours
+  return lock;
+}
+
 void route_occt_messages_to_spdlog() {
   static std::once_flag once;
   std::call_once(once, [] {

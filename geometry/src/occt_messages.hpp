@@ -6,6 +6,7 @@
 #include <Message_Printer.hxx>
 #include <Standard_Handle.hxx>
 
+#include <mutex>
 #include <string>
 #include <vector>
 
@@ -16,6 +17,13 @@ namespace stepframe::geometry::detail {
 /// at debug level). Safe to call many times and from several threads; the
 /// replacement is made once per process.
 void route_occt_messages_to_spdlog();
+
+/// Held for the whole of every use of OCCT's data exchange (STEP parse and
+/// transfer, XDE documents, the STEP writer, the messenger's printers): its
+/// static protocol and session state and the default messenger are shared by
+/// the process and not thread-safe, so such work runs one at a time. Hosts may
+/// call the library from many threads; the rest of a run goes on in parallel.
+std::mutex& occt_exchange_lock();
 
 /// While alive, keeps the fail and alarm messages OCCT sends, so an error
 /// message can quote what OCCT's parser said (e.g. the offending line).

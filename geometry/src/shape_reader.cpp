@@ -1,6 +1,7 @@
 #include "stepframe/geometry/occt_sources.hpp"
 
 #include "harvest.hpp"
+#include "occt_messages.hpp"
 #include "shape_origins.hpp"
 
 #include <spdlog/fmt/fmt.h>
@@ -19,6 +20,7 @@ constexpr const char* shape_advice =
 
 StepModel read_shape(const TopoDS_Shape& shape, const ShapeAttributes& attributes) {
   const std::string& source = attributes.display_name;
+  const std::lock_guard<std::mutex> one_at_a_time(detail::occt_exchange_lock());
   if (shape.IsNull()) throw StepReadError(fmt::format("{}: the shape is null. {}", source, shape_advice));
   if (!(attributes.metres_per_unit > 0.0) || !std::isfinite(attributes.metres_per_unit))
     throw StepReadError(fmt::format("{}: the length unit '{}' must be a positive length in metres, got {}", source,

@@ -1,10 +1,12 @@
 #include "stepframe/geometry/step_reader.hpp"
+#include "stepframe/geometry/step_structure.hpp"
 
 #include "declared_length_unit.hpp"
 #include "edge_entities.hpp"
 #include "harvest.hpp"
 #include "occt_messages.hpp"
 #include "shell_wireframes.hpp"
+#include "step_quotes.hpp"
 #include "step_attributes.hpp"
 #include "step_kind.hpp"
 #include "step_origins.hpp"
@@ -55,7 +57,10 @@
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
+#include <cerrno>
+#include <cstring>
 #include <fstream>
+#include <mutex>
 #include <sstream>
 #include <optional>
 #include <system_error>
@@ -220,6 +225,7 @@ void configure(STEPCAFControl_Reader& reader) {
 // parsed model; an unparsable input is a StepReadError naming `source`.
 template <class Read>
 StepModel parse_and_read(const std::string& source, Read read) {
+  const std::lock_guard<std::mutex> one_at_a_time(detail::occt_exchange_lock());
   detail::route_occt_messages_to_spdlog();
   STEPCAFControl_Controller::Init();
   STEPCAFControl_Reader reader;
@@ -241,6 +247,8 @@ StepModel parse_and_read(const std::string& source, Read read) {
 
 // Parses the text (shell-based wireframes rewritten first) through OCCT's stream reader.
 StepModel read_text(std::string_view text, const std::string& source) {
+  const std::optional<std::string> quotes = detail::encode_doubled_quotes(text);
+  if (quotes) text = *quotes;
   const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(text);
   std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : text)};
   return parse_and_read(source, [&](STEPCAFControl_Reader& reader) {
@@ -248,10 +256,16 @@ StepModel read_text(std::string_view text, const std::string& source) {
   });
 }
 
-// True when the file mentions a shell-based wireframe (read in blocks, so a
-// large file costs one pass and no copy).
-bool file_mentions_shell_wireframes(const std::filesystem::path& file) {
+// One pass over the file in blocks: checks its exchange structure before OCCT
+// sees it (StepStructureCheck) and tells whether OCCT must be given rewritten
+// text: the file mentions a shell-based wireframe or a string holds a doubled
+// quote. No copy of a large file is held.
+bool scan_file(const std::filesystem::path& file, const std::string& source) {
+  errno = 0;
   std::ifstream in(file, std::ios::binary);
+  if (!in)
+    fail(source, fmt::format("cannot be read ({}); check its permissions", std::strerror(errno != 0 ? errno : EIO)));
+  StepStructureCheck structure(source);
   // Below glibc's initial mmap threshold (128 KiB): freeing a larger block
   // raises the threshold for the rest of the process (mallopt(3), "dynamic
   // mmap threshold"), which measurably slows OCCT's parse that follows.
@@ -259,17 +273,21 @@ bool file_mentions_shell_wireframes(const std::filesystem::path& file) {
   constexpr std::size_t overlap = 32;  // longer than the keyword
   std::string buffer(block + overlap, '\0');
   std::size_t kept = 0;
+  bool mentions = false;
   while (in) {
     in.read(buffer.data() + kept, static_cast<std::streamsize>(block));
     const auto got = static_cast<std::size_t>(in.gcount());
-    if (detail::mentions_shell_wireframes(std::string_view(buffer.data(), kept + got))) return true;
+    structure.feed(std::string_view(buffer.data() + kept, got));
+    mentions = mentions || detail::mentions_shell_wireframes(std::string_view(buffer.data(), kept + got));
     if (kept + got >= overlap) {
       std::copy(buffer.begin() + static_cast<std::ptrdiff_t>(kept + got - overlap),
                 buffer.begin() + static_cast<std::ptrdiff_t>(kept + got), buffer.begin());
       kept = overlap;
     }
   }
-  return false;
+  if (in.bad()) fail(source, "could not be read to its end; check the file");
+  structure.finish();
+  return mentions || structure.doubled_quotes();
 }
 
 }  // namespace
@@ -284,7 +302,7 @@ StepModel read_step(const std::filesystem::path& file) {
     fail(source, "is not a regular file (a folder?). Give the path of a STEP file.");
   spdlog::info("reading STEP file {}", source);
 
-  if (file_mentions_shell_wireframes(file)) {
+  if (scan_file(file, source)) {
     std::ifstream in(file, std::ios::binary);
     std::ostringstream text;
     text << in.rdbuf();
@@ -300,6 +318,7 @@ StepModel read_step_text(std::string_view step_text, std::string display_name) {
   if (step_text.find("ISO-10303-21") == std::string_view::npos)
     fail(display_name, fmt::format("is not STEP (ISO 10303-21) text: it does not start with ISO-10303-21;. {}",
                                    export_advice));
+  check_step_structure(step_text, display_name);
   return read_text(step_text, display_name);
 }
 

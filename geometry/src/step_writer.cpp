@@ -109,6 +109,7 @@ bool model_has_wireframe(const Handle(StepData_StepModel) & model) {
 
 void write_step_wireframe(const std::filesystem::path& file, const std::vector<LineToWrite>& lines,
                           const std::string& length_unit) {
+  const std::lock_guard<std::mutex> one_at_a_time(detail::occt_exchange_lock());
   const char* unit_keyword = occt_unit_keyword(length_unit);
   if (unit_keyword == nullptr)
     throw std::invalid_argument("cannot write " + file.string() + ": length unit '" + length_unit +

@@ -46,9 +46,10 @@ void check_point(const StepModel& model, const Eigen::Vector3d& p, const SourceI
 
 void check_inputs(const StepModel& model, const WireframeOptions& options) {
   const double tolerance = options.merge_tolerance;
-  if (!(tolerance > 0.0) || !std::isfinite(tolerance))
-    throw std::invalid_argument(fmt::format("{}: the node merge tolerance must be a positive length in metres, got {}",
-                                            model.file.string(), tolerance));
+  if (!(tolerance > 0.0) || !std::isfinite(tolerance) || tolerance > max_merge_tolerance)
+    throw std::invalid_argument(fmt::format("{}: the node merge tolerance must be a positive length of at most {} m "
+                                            "(a few millimetres is usual), got {} m",
+                                            model.file.string(), max_merge_tolerance, tolerance));
   if (!(options.curve_max_turn > 0.0) || !std::isfinite(options.curve_max_turn))
     throw std::invalid_argument(fmt::format("{}: the largest turn per curve element must be a positive angle, got {} rad",
                                             model.file.string(), options.curve_max_turn));

@@ -3,6 +3,7 @@
 #include "stepframe/geometry/length_unit.hpp"
 
 #include "harvest.hpp"
+#include "occt_messages.hpp"
 #include "shape_origins.hpp"
 
 #include <Quantity_Color.hxx>
@@ -70,6 +71,7 @@ std::string entry_of(const TDF_Label& label) {
 
 StepModel read_xde_document(const Handle(TDocStd_Document) & document, const std::string& display_name) {
   const std::string source = display_name.empty() ? std::string("<XDE document>") : display_name;
+  const std::lock_guard<std::mutex> one_at_a_time(detail::occt_exchange_lock());
   if (document.IsNull()) throw StepReadError(fmt::format("{}: the document is null. {}", source, document_advice));
   if (!XCAFDoc_DocumentTool::IsXCAFDocument(document))
     throw StepReadError(fmt::format("{}: is not an XDE (XCAF) document. {}", source, document_advice));

@@ -5,6 +5,7 @@
 #include "progress_display.hpp"
 #include "sections_command.hpp"
 #include "stepframe/geometry/step_reader.hpp"
+#include "stepframe/geometry/wireframe.hpp"
 #include "stepframe/inspect.hpp"
 #include "stepframe/run.hpp"
 
@@ -12,6 +13,9 @@
 #include <spdlog/sinks/stdout_color_sinks.h>
 #include <spdlog/spdlog.h>
 
+#include <atomic>
+#include <csignal>
+#include <cstdlib>
 #include <cstdio>
 #include <map>
 #include <optional>
@@ -24,6 +28,35 @@ constexpr int internal_error = 4;
 constexpr const char* exit_statuses =
     "Exit status: 0 every check passes; 1 the analysis ran and a check fails (its files are written); "
     "2 bad input (the message names the file and line or STEP entity); 3 the frame is unstable; 4 internal error.";
+
+// SIGINT and SIGTERM stop a run as a cancel does: the staging folder is
+// removed and the previous results stay. A second signal ends the process at
+// once (SA_RESETHAND). The command re-raises the signal when the run has stopped.
+std::atomic<bool> stop_requested{false};
+volatile std::sig_atomic_t stop_signal = 0;
+
+extern "C" void on_stop_signal(int signal_number) {
+  stop_signal = signal_number;
+  stop_requested.store(true);
+}
+
+void catch_stop_signals() {
+  struct sigaction action {};
+  action.sa_handler = on_stop_signal;
+  sigemptyset(&action.sa_mask);
+  action.sa_flags = SA_RESETHAND;
+  sigaction(SIGINT, &action, nullptr);
+  sigaction(SIGTERM, &action, nullptr);
+}
+
+// After a run a signal stopped: end as the signal would have ended us.
+void finish_if_signalled() {
+  if (stop_signal == 0) return;
+  const int signal_number = stop_signal;
+  spdlog::error("stopped by signal {}: temporary files removed; earlier results, if any, are untouched", signal_number);
+  std::signal(signal_number, SIG_DFL);
+  std::raise(signal_number);
+}
 
 // Each stage's wall time on stderr, as `--timings` asks.
 void print_timings(stepframe::cli::ProgressDisplay& display) {
@@ -38,8 +71,11 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   stepframe::cli::ProgressDisplay display(show_progress);
   stepframe::RunControl control;
   control.progress = display.callback();
+  control.cancel_flag = &stop_requested;
+  catch_stop_signals();
   const auto outcome = stepframe::run_project(project, out, control, vtk);
   display.clear();
+  finish_if_signalled();
   if (timings) print_timings(display);
   const int status = static_cast<int>(outcome.status);
   if (!outcome.analysis) {
@@ -82,6 +118,17 @@ int inspect_command(const std::filesystem::path& input, std::optional<double> to
     return static_cast<int>(stepframe::ExitStatus::bad_input);
   }
 }
+
+// A merge tolerance in mm: positive, finite and at most geometry::max_merge_tolerance (NaN fails too).
+const CLI::Validator merge_tolerance_mm(
+    [](std::string& text) -> std::string {
+      char* end = nullptr;
+      const double mm = std::strtod(text.c_str(), &end);
+      if (end == text.c_str() || *end != '\0' || !(mm > 0 && mm <= 1000 * stepframe::geometry::max_merge_tolerance))
+        return "the merge tolerance is a length in mm above 0 and at most 1000 (1 mm is usual), got '" + text + "'";
+      return {};
+    },
+    "mm");
 
 }  // namespace
 
@@ -134,7 +181,8 @@ int main(int argc, char** argv) {
   bool inspect_json = false;
   inspect->add_option("MODEL", model, "STEP file, or project file (.yaml, .yml)")->required();
   inspect->add_option("--tolerance", tolerance_mm,
-                      "Merge tolerance for end points, in mm (default: the project's, else 1 mm)");
+                      "Merge tolerance for end points, in mm (default: the project's, else 1 mm)")
+      ->check(merge_tolerance_mm);
   inspect->add_flag("--json", inspect_json, "Print JSON (results.json shapes) instead of tables");
 
   auto* init = app.add_subcommand("init", "Write a starter project file for a STEP file, one that runs as written: "
@@ -147,7 +195,9 @@ int main(int argc, char** argv) {
   init->add_option("MODEL", init_model, "STEP file")->required();
   init->add_option("-o,--output", init_output, "Project file to write (default: MODEL with .yaml, beside it)");
   init->add_flag("--force", init_force, "Overwrite the project file if it exists");
-  init->add_option("--tolerance", init_tolerance_mm, "Merge tolerance for end points, in mm")->capture_default_str();
+  init->add_option("--tolerance", init_tolerance_mm, "Merge tolerance for end points, in mm")
+      ->capture_default_str()
+      ->check(merge_tolerance_mm);
 
   stepframe::cli::BatchCommandOptions batch_options;
   auto* batch = stepframe::cli::add_batch_command(app, batch_options);

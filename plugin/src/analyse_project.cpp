@@ -1,3 +1,4 @@
+#include "finite_results.hpp"
 #include "stepframe/analysis/blas_info.hpp"
 #include "stepframe/analysis/solve.hpp"
 #include "stepframe/geometry/step_reader.hpp"
@@ -9,6 +10,7 @@
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
+#include <cmath>
 #include <map>
 
 namespace stepframe {
@@ -46,7 +48,9 @@ void log_diagnostics(const std::filesystem::path& model, const std::vector<geome
 }  // namespace
 
 ExitStatus Analysis::status() const {
-  const bool all_pass = std::all_of(checks.begin(), checks.end(), [](const auto& c) { return c.pass; });
+  // A utilisation that is not a number never passes (analyse_model refuses such results anyway).
+  const bool all_pass =
+      std::all_of(checks.begin(), checks.end(), [](const auto& c) { return c.pass && std::isfinite(c.utilisation); });
   return all_pass ? ExitStatus::pass : ExitStatus::check_failed;
 }
 
@@ -92,6 +96,7 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
     return !r.is_combination && std::none_of(a.project.cases.begin(), a.project.cases.end(),
                                              [&](const CaseSpec& c) { return c.name == r.name; });
   });
+  detail::require_finite_results(a.results, a.project.model.string());
 
   report("checks", 0);
   const auto& spec = a.project.checks;
@@ -110,6 +115,7 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
                                         {spec.gamma_M0, spec.gamma_M1}, spec.en1993->ltb));
   if (spec.stability)
     add(analysis::check_frame_stability(pick(a.results, spec.stability->combinations), spec.stability->alpha_cr_min));
+  detail::require_finite_checks(a.checks, a.project.model.string());
   report("checks", 1);
   return a;
 }

@@ -1,6 +1,7 @@
 #include "stepframe/project_builder.hpp"
 
 #include "stepframe/errors.hpp"
+#include "stepframe/geometry/wireframe.hpp"
 #include "stepframe/suggest.hpp"
 
 #include <algorithm>
@@ -131,8 +132,8 @@ Project ProjectBuilder::build() const {
   const std::string where = project_.file.string() + ": ";
   auto fail = [&](const std::string& what) -> void { throw InputError(where + what); };
 
-  if (!(project_.merge_tolerance > 0) || !std::isfinite(project_.merge_tolerance))
-    fail("merge_tolerance must be a positive length in metres");
+  if (!(project_.merge_tolerance > 0 && project_.merge_tolerance <= geometry::max_merge_tolerance))
+    fail("merge_tolerance must be a positive length in metres, at most 1 m (a few millimetres is usual)");
   if (!(project_.curve_max_turn > 0 && project_.curve_max_turn <= std::numbers::pi / 2))
     fail("curve_max_turn must be an angle in radians above 0 and at most pi/2, e.g. 5 degrees = 0.0873");
   for (std::size_t i = 0; i < project_.rules.size(); ++i) {

@@ -6,6 +6,8 @@
 #include "stepframe/api.hpp"
 
 #include <spdlog/sinks/base_sink.h>
+#include <spdlog/sinks/stdout_color_sinks.h>
+#include <spdlog/spdlog.h>
 
 #include <algorithm>
 #include <atomic>
@@ -68,6 +70,20 @@ class CallbackSink : public spdlog::sinks::base_sink<std::mutex> {
   void* user_data_;
 };
 
+/// stepframe.h promises the log on stderr, but spdlog's own default logger
+/// writes to stdout: a host that has not set a default logger of its own (it
+/// would have a name) gets one on stderr, once per process.
+void log_to_stderr_by_default() {
+  static std::once_flag once;
+  std::call_once(once, [] {
+    const auto current = spdlog::default_logger();
+    if (current && !current->name().empty()) return;
+    auto logger = std::make_shared<spdlog::logger>("stepframe", std::make_shared<spdlog::sinks::stderr_color_sink_mt>());
+    if (current) logger->set_level(current->level());
+    spdlog::set_default_logger(std::move(logger));
+  });
+}
+
 spdlog::level::level_enum to_spdlog_level(int level) {
   return level <= SF_LOG_DEBUG     ? spdlog::level::debug
          : level == SF_LOG_INFO    ? spdlog::level::info
@@ -104,6 +120,7 @@ void keep(sf_run& run, const stepframe::Results& results) {
 template <class Body>
 int guarded(sf_run* run, Body&& body) {
   if (!run) return SF_INVALID_ARGUMENT;
+  log_to_stderr_by_default();
   run->progress_cancelled = false;
   try {
     keep(*run, body(options_of(*run)));
@@ -170,6 +187,7 @@ int sf_run_file(const char* project_yaml, const char* out_dir, char* message, si
     return SF_INVALID_ARGUMENT;
   }
   try {
+    log_to_stderr_by_default();
     const std::filesystem::path project(project_yaml);
     stepframe::RunOptions options;
     options.out_dir = out_dir && *out_dir ? std::filesystem::path(out_dir) : stepframe::default_out_dir(project);

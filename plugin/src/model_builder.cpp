@@ -1,5 +1,6 @@
 #include "stepframe/model_builder.hpp"
 
+#include "selector_pattern.hpp"
 #include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/counted.hpp"
 #include "stepframe/errors.hpp"
@@ -13,7 +14,6 @@
 #include <map>
 #include <memory>
 #include <optional>
-#include <regex>
 #include <tuple>
 
 namespace stepframe {
@@ -29,18 +29,18 @@ class CompiledSelector {
   bool matches(const geometry::SourceInfo& src) const {
     if (!matches(name_, src.name) || !matches(product_, src.product) || !matches(colour_, src.colour)) return false;
     if (!layer_) return true;
-    return std::any_of(src.layers.begin(), src.layers.end(), [&](const auto& l) { return std::regex_match(l, *layer_); });
+    return std::any_of(src.layers.begin(), src.layers.end(), [&](const auto& l) { return layer_->matches(l); });
   }
 
  private:
-  static std::optional<std::regex> compile(const std::optional<std::string>& pattern) {
+  static std::optional<detail::SelectorPattern> compile(const std::optional<std::string>& pattern) {
     if (!pattern) return std::nullopt;
-    return std::regex(*pattern, std::regex::icase);
+    return detail::SelectorPattern(*pattern);
   }
-  static bool matches(const std::optional<std::regex>& re, const std::string& value) {
-    return !re || std::regex_match(value, *re);
+  static bool matches(const std::optional<detail::SelectorPattern>& re, const std::string& value) {
+    return !re || re->matches(value);
   }
-  std::optional<std::regex> name_, layer_, product_, colour_;
+  std::optional<detail::SelectorPattern> name_, layer_, product_, colour_;
 };
 
 std::string describe_member(const geometry::SourceInfo& src) {
@@ -146,17 +146,17 @@ class Library {
 
 // Nodes that named or layered points of the CAD file sit on.
 std::vector<std::size_t> select_labelled_nodes(const NodeSelector& sel, const std::vector<geometry::NodeLabel>& labels) {
-  const auto compile = [](const std::optional<std::string>& p) -> std::optional<std::regex> {
+  const auto compile = [](const std::optional<std::string>& p) -> std::optional<detail::SelectorPattern> {
     if (!p) return std::nullopt;
-    return std::regex(*p, std::regex::icase);
+    return detail::SelectorPattern(*p);
   };
   const auto name = compile(sel.point_name);
   const auto layer = compile(sel.point_layer);
   std::vector<std::size_t> out;
   for (const auto& label : labels) {
-    if (name && !std::regex_match(label.source.name, *name)) continue;
+    if (name && !name->matches(label.source.name)) continue;
     if (layer && std::none_of(label.source.layers.begin(), label.source.layers.end(),
-                              [&](const std::string& l) { return std::regex_match(l, *layer); }))
+                              [&](const std::string& l) { return layer->matches(l); }))
       continue;
     if (std::find(out.begin(), out.end(), label.node) == out.end()) out.push_back(label.node);
   }

@@ -2,18 +2,21 @@
 
 #include "stepframe/analysis/element_releases.hpp"
 #include "stepframe/analysis/section_shapes.hpp"
+#include "stepframe/geometry/wireframe.hpp"
 
 #include "project_blocks.hpp"
+#include "project_text.hpp"
+#include "selector_pattern.hpp"
 #include "project_yaml.hpp"
 #include "stepframe/errors.hpp"
 #include "stepframe/suggest.hpp"
 #include "stepframe/units.hpp"
 
+#include <fmt/format.h>
 #include <yaml-cpp/yaml.h>
 
 #include <cmath>
 #include <numbers>
-#include <regex>
 #include <set>
 #include <sstream>
 
@@ -105,6 +108,11 @@ analysis::Section read_section(const Reader& r, const YAML::Node& node, const st
                                                            : dimension::second_moment;
     *target = r.number(node[key], path + "." + k, dim);
     if (!(*target > 0)) r.fail(node[key], path + "." + k, "must be positive");
+    // Far beyond any rolled or built-up steel member either way: a wrong unit (common practice).
+    const double low = dim == dimension::area ? 1e-8 : dim == dimension::length ? 1e-4 : 1e-16;
+    const double high = dim == dimension::area ? 10.0 : dim == dimension::length ? 20.0 : 100.0;
+    check_range(r, node[key], path + "." + k, *target, low, high,
+                "bare values are read in " + r.units_.describe_bare(dim) + "; write e.g. " + r.example(dim));
   }
   // A depth x width outline with its corners as stress points, for the 3D view and fibre stresses.
   analysis::Section section = analysis::custom_section(name, s.A, s.Iy, s.Iz, s.J, s.depth, s.width);
@@ -223,8 +231,8 @@ MemberSelector read_member_selector(const Reader& r, const YAML::Node& node, con
     if (!node[key]) continue;
     const auto pattern = r.text(node[key], path + "." + key);
     try {
-      std::regex check(pattern, std::regex::icase);
-    } catch (const std::regex_error& e) {
+      const detail::SelectorPattern check(pattern);
+    } catch (const std::invalid_argument& e) {
       r.fail(node[key], path + "." + key, "'" + pattern + "' is not a valid regular expression (" + e.what() + ")");
     }
     *target = pattern;
@@ -242,8 +250,8 @@ NodeSelector read_node_selector(const Reader& r, const YAML::Node& node, const s
       r.fail(node, path, std::string("use either '") + key + "' or coordinates (near, x, y, z), not both");
     const auto pattern = r.text(node[key], path + "." + key);
     try {
-      std::regex check(pattern, std::regex::icase);
-    } catch (const std::regex_error& e) {
+      const detail::SelectorPattern check(pattern);
+    } catch (const std::invalid_argument& e) {
       r.fail(node[key], path + "." + key, "'" + pattern + "' is not a valid regular expression (" + e.what() + ")");
     }
     (std::string(key) == "point_name" ? sel.point_name : sel.point_layer) = pattern;
@@ -409,6 +417,11 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
   if (root["merge_tolerance"]) {
     p.merge_tolerance = r.number(root["merge_tolerance"], "merge_tolerance", dimension::length);
     if (!(p.merge_tolerance > 0)) r.fail(root["merge_tolerance"], "merge_tolerance", "must be positive");
+    // End points closer than this are one node: beyond a metre whole members would vanish.
+    if (p.merge_tolerance > geometry::max_merge_tolerance)
+      r.fail(root["merge_tolerance"], "merge_tolerance",
+             "must be at most 1 m: end points closer than this become one node, so whole members would vanish; "
+             "a few millimetres is usual, e.g. \"1 mm\"");
   }
   if (root["curve_max_turn"]) {
     // Degrees of tangent turn per element of a curved member (arcs, splines).
@@ -502,6 +515,10 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
         for (std::size_t d = 0; d < 6; ++d) {
           if (!k[d]) continue;
           if (!(*k[d] > 0)) r.fail(springs, path + ".springs", "a spring stiffness must be positive");
+          // Stiffer than any foundation: the solver would lose the frame's own stiffness in round-off.
+          if (*k[d] > 1e15)
+            r.fail(springs, path + ".springs",
+                   "a spring stiffness above 1e15 (SI) is a fixed direction; use fix: for it instead");
           s.spring[d] = *k[d];
         }
       }
@@ -512,6 +529,9 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
   std::vector<std::string> result_names;
   if (const auto node = root["cases"]) {
     r.expect_list(node, "cases");
+    if (node.size() > detail::max_results)
+      r.fail(node, "cases", fmt::format("{} load cases, more than the {} a project may have", node.size(),
+                                        detail::max_results));
     for (std::size_t i = 0; i < node.size(); ++i) {
       auto c = read_case(r, node[i], Reader::index("cases", i));
       if (std::find(result_names.begin(), result_names.end(), c.name) != result_names.end())
@@ -525,6 +545,9 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
 
   if (const auto node = root["combinations"]) {
     r.expect_list(node, "combinations");
+    if (node.size() > detail::max_results)
+      r.fail(node, "combinations", fmt::format("{} combinations, more than the {} a project may have", node.size(),
+                                               detail::max_results));
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("combinations", i);
       r.check_keys(node[i], path, {"name", "factors", "kind"});
@@ -540,7 +563,11 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
         const auto name = f.first.as<std::string>();
         if (std::find(case_names.begin(), case_names.end(), name) == case_names.end())
           r.fail(f.first, path + ".factors." + name, "no load case is named '" + name + "'" + did_you_mean(name, case_names));
-        c.factors.emplace_back(name, r.number(f.second, path + ".factors." + name, dimension::none));
+        const double factor = r.number(f.second, path + ".factors." + name, dimension::none);
+        // Partial and combination factors are of order 1 (EN 1990 A1.2): beyond 100 is a typing error.
+        if (!(std::abs(factor) <= 100))
+          r.fail(f.second, path + ".factors." + name, "a combination factor must be between -100 and 100, e.g. 1.35");
+        c.factors.emplace_back(name, factor);
       }
       c.serviceability = default_serviceability(c.name, c.factors);
       if (const auto kind = node[i]["kind"]) {
@@ -595,27 +622,32 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
 
 }  // namespace
 
-Project read_project(const std::filesystem::path& file) {
+namespace {
+
+// Parses project text already known to be UTF-8 of a bounded size, then checks its keys.
+YAML::Node parse_yaml(const std::string& text, const std::string& name) {
   YAML::Node root;
   try {
-    root = YAML::LoadFile(file.string());
-  } catch (const YAML::BadFile&) {
-    throw InputError(file.string() + ": cannot open the project file; check the path");
+    root = YAML::Load(text);
   } catch (const YAML::ParserException& e) {
-    throw InputError(file.string() + ":" + std::to_string(e.mark.line + 1) + ": not valid YAML: " + e.msg);
+    throw InputError(name + ":" + std::to_string(e.mark.line + 1) + ": not valid YAML: " + e.msg);
   }
-  return read_project_root(root, file, file.parent_path());
+  detail::require_distinct_plain_keys(root, name);
+  return root;
+}
+
+}  // namespace
+
+Project read_project(const std::filesystem::path& file) {
+  const std::string text = detail::read_project_bytes(file);
+  detail::require_utf8_text(text, file.string());
+  return read_project_root(parse_yaml(text, file.string()), file, file.parent_path());
 }
 
 Project read_project_text(std::string_view yaml, const std::filesystem::path& base_dir,
                           const std::string& display_name) {
-  YAML::Node root;
-  try {
-    root = YAML::Load(std::string(yaml));
-  } catch (const YAML::ParserException& e) {
-    throw InputError(display_name + ":" + std::to_string(e.mark.line + 1) + ": not valid YAML: " + e.msg);
-  }
-  return read_project_root(root, display_name, base_dir);
+  detail::require_utf8_text(yaml, display_name);
+  return read_project_root(parse_yaml(std::string(yaml), display_name), display_name, base_dir);
 }
 
 }  // namespace stepframe

@@ -11,6 +11,7 @@
 #include <yaml-cpp/yaml.h>
 
 #include <algorithm>
+#include <cmath>
 #include <filesystem>
 #include <string>
 #include <vector>
@@ -70,12 +71,14 @@ class Reader {
     if (!node.IsScalar()) fail(node, key, "expected a number, e.g. " + example(dim));
     const auto q = parse_quantity(node.Scalar());
     if (!q) fail(node, key, "'" + node.Scalar() + "' is not a number with a known unit, e.g. " + example(dim));
-    if (q->dimension == dimension::none) return q->value * units_.si_per_bare(dim);
-    if (!(q->dimension == dim))
+    if (q->dimension != dimension::none && !(q->dimension == dim))
       fail(node, key,
            "'" + node.Scalar() + "' is a " + describe(q->dimension) + " but a " + describe(dim) + " is needed, e.g. " +
                example(dim));
-    return q->value;
+    const double value = q->dimension == dimension::none ? q->value * units_.si_per_bare(dim) : q->value;
+    // NaN, infinity and numbers beyond the double range (1e400) never reach the analysis.
+    if (!std::isfinite(value)) fail(node, key, "'" + node.Scalar() + "' is not a finite number");
+    return value;
   }
 
   Eigen::Vector3d vector3(const YAML::Node& node, const std::string& key, Dimension dim) const {

@@ -1,9 +1,12 @@
+#include "output_folder.hpp"
 #include "stepframe/analysis/solve.hpp"
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/model_source.hpp"
 #include "stepframe/run.hpp"
 
 #include <spdlog/spdlog.h>
+
+#include <optional>
 
 namespace stepframe {
 
@@ -12,13 +15,16 @@ RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::file
   const ScopedLogSink log_route(control.log_sink, control.log_level);
   RunOutcome outcome;
   try {
+    // The output folder is taken first: a second run into it is refused before it analyses anything.
+    std::optional<detail::OutputFolderLock> lock;
+    if (!out_dir.empty()) lock.emplace(out_dir);
     outcome.analysis = analyse();
     if (vtk) {
       auto& outputs = outcome.analysis->project.outputs;
       outputs.line_models = outputs.surfaces = outputs.buckling_modes = *vtk;
     }
     if (!out_dir.empty()) {
-      outcome.files = write_outputs(*outcome.analysis, out_dir, control);
+      outcome.files = detail::write_outputs_locked(*outcome.analysis, out_dir, control);
     }
     outcome.status = outcome.analysis->status();
   } catch (const Cancelled& e) {

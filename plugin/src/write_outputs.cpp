@@ -1,3 +1,4 @@
+#include "output_folder.hpp"
 #include "stepframe/report.hpp"
 #include "stepframe/run.hpp"
 #include "stepframe/tables.hpp"
@@ -10,6 +11,7 @@
 
 #include <algorithm>
 #include <cctype>
+#include <cerrno>
 #include <fstream>
 #include <future>
 #include <optional>
@@ -27,10 +29,6 @@ std::string file_stem(const std::string& name, std::set<std::string>& used) {
   std::string unique = stem;
   for (int i = 2; !used.insert(unique).second; ++i) unique = stem + "_" + std::to_string(i);
   return unique;
-}
-
-std::filesystem::path temporary_name(const std::filesystem::path& file) {
-  return file.parent_path() / (file.filename().string() + ".tmp");
 }
 
 }  // namespace
@@ -73,22 +71,24 @@ std::vector<std::size_t> governing_results(const Analysis& analysis) {
 
 std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir,
                                                  const RunControl& control) {
-  std::error_code ec;
-  std::filesystem::create_directories(out_dir / "vtk", ec);
-  if (ec) throw InputError(out_dir.string() + ": cannot create the output folder (" + ec.message() + ")");
+  const detail::OutputFolderLock lock(out_dir);
+  return detail::write_outputs_locked(analysis, out_dir, control);
+}
 
+std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& analysis,
+                                                                const std::filesystem::path& out_dir,
+                                                                const RunControl& control) {
+  // Everything goes into a fresh staging folder that replaces out_dir whole at the end.
+  StagingFolder staging(out_dir);
+  const std::filesystem::path& dir = staging.path();
   const auto& model = analysis.built.model;
   const OutputsSpec& outputs = analysis.project.outputs;
-  std::vector<std::filesystem::path> finals;
-  // Each file is registered before it is written, so a failure removes every temporary file.
-  auto start = [&](const std::filesystem::path& file) {
-    finals.push_back(file);
-    return temporary_name(file);
-  };
+  std::vector<std::filesystem::path> written;  // relative to the folder
   auto text_file = [&](const std::string& name, const std::string& text) {
-    std::ofstream out(start(out_dir / name), std::ios::binary);
+    std::ofstream out(dir / name, std::ios::binary);
     out << text;
-    if (!out.flush()) throw std::runtime_error((out_dir / name).string() + ": could not write");
+    if (!out.flush()) throw output_failure(out_dir / name, errno);
+    written.push_back(name);
   };
   // Governing utilisation per member, for colouring by verdict.
   std::vector<double> utilisation(model.members.size(), 0.0);
@@ -113,21 +113,24 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
       const std::filesystem::path line = std::filesystem::path("vtk") / (stem + ".vtu");
       const std::filesystem::path surface = std::filesystem::path("vtk") / (stem + ".surface.vtu");
       if (wanted(outputs.line_models, i)) {
-        viz::write_line_model_vtu(start(out_dir / line), model, result, utilisation,
+        viz::write_line_model_vtu(dir / line, model, result, utilisation,
                                   {outputs.line_model_points, outputs.compression});
+        written.push_back(line);
         index.push_back({"line model", result.name, line});
       }
       if (wanted(outputs.surfaces, i)) {
         viz::SurfaceOptions surface_options;
         surface_options.compression = outputs.compression;
         surface_options.sections_per_element = outputs.surface_sections;
-        viz::write_surface_vtu(start(out_dir / surface), model, result, surface_options);
+        viz::write_surface_vtu(dir / surface, model, result, surface_options);
+        written.push_back(surface);
         index.push_back({"surface model", result.name, surface});
       }
       if (!wanted(outputs.buckling_modes, i)) continue;
       for (std::size_t m = 0; m < result.buckling_modes.size(); ++m) {
         const std::filesystem::path mode = std::filesystem::path("vtk") / fmt::format("{}.mode{}.vtu", stem, m + 1);
-        viz::write_mode_vtu(start(out_dir / mode), model, result, m, outputs.compression);
+        viz::write_mode_vtu(dir / mode, model, result, m, outputs.compression);
+        written.push_back(mode);
         index.push_back({"buckling modes", fmt::format("{} mode {} (alpha = {:.3g})", result.name, m + 1,
                                                        result.buckling_modes[m].alpha),
                          mode});
@@ -142,18 +145,26 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
     text_file("end_forces.csv", end_forces_csv(analysis));
     control.report("results.json", 0);
     {
-      std::ofstream out(start(out_dir / "results.json"), std::ios::binary);
+      std::ofstream out(dir / "results.json", std::ios::binary);
       write_results_json(analysis, [&](std::string_view piece) { out.write(piece.data(), static_cast<std::streamsize>(piece.size())); });
-      if (!out.flush()) throw std::runtime_error((out_dir / "results.json").string() + ": could not write");
+      if (!out.flush()) throw output_failure(out_dir / "results.json", errno);
+      written.push_back("results.json");
     }
     control.report("report", 0);
     text_file("report.html", report.get());
-  } catch (...) {
-    for (const auto& f : finals) std::filesystem::remove(temporary_name(f), ec);
+    control.throw_if_cancelled();  // the last moment a cancel (or a signal) leaves the old results in place
+  } catch (const std::runtime_error& e) {
+    if (report.valid()) report.wait();
+    // A VTK writer that failed: the disk's or the folder's fault is bad input, anything else ours.
+    if (dynamic_cast<const InputError*>(&e) == nullptr && dynamic_cast<const Cancelled*>(&e) == nullptr &&
+        output_unwritable(dir))
+      throw output_failure(out_dir, 0);
     throw;
   }
-  // Everything is complete: only now do the files take their real names.
-  for (const auto& f : finals) std::filesystem::rename(temporary_name(f), f);
+  // Everything is complete: only now does the new folder replace the old one, in one step.
+  staging.commit();
+  std::vector<std::filesystem::path> finals;
+  for (const auto& f : written) finals.push_back(out_dir / f);
   spdlog::info("wrote {} files to {}", finals.size(), out_dir.string());
   if (control.progress) control.progress("report", 1.0);  // the run is complete: no cancelling now
   return finals;

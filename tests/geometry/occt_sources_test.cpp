@@ -191,3 +191,41 @@ TEST_CASE("an XDE document reads with its names, products, assembly and placemen
 
   CHECK_THROWS_WITH(sg::read_xde_document(Handle(TDocStd_Document)(), "nothing"), Catch::Contains("nothing"));
 }
+
+TEST_CASE("deeply nested assemblies: 70 levels are read, beyond the limit an error says where", "[sources][xde]") {
+  // A chain of assemblies, each holding the next once, with one edge at the bottom.
+  auto nested = [](int levels) {
+    Handle(TDocStd_Document) document;
+    XCAFApp_Application::GetApplication()->NewDocument("MDTV-XCAF", document);
+    const Handle(XCAFDoc_ShapeTool) shapes = XCAFDoc_DocumentTool::ShapeTool(document->Main());
+    TDF_Label inner = shapes->AddShape(BRepBuilderAPI_MakeEdge(gp_Pnt(0, 0, 0), gp_Pnt(1000, 0, 0)).Edge(), false);
+    for (int i = 0; i < levels; ++i) {
+      const TDF_Label assembly = shapes->NewShape();
+      shapes->AddComponent(assembly, inner, TopLoc_Location());
+      inner = assembly;
+    }
+    shapes->UpdateAssemblies();
+    return document;
+  };
+  const auto seventy = nested(70);
+  const sg::StepModel read = sg::read_xde_document(seventy, "seventy levels");
+  CHECK(read.edges.size() == 1);
+  CHECK_FALSE(sg::has_errors(read.diagnostics));
+  XCAFApp_Application::GetApplication()->Close(seventy);
+
+  // Too deep, with nothing else in the document: the read fails, saying why.
+  const auto too_deep = nested(300);
+  CHECK_THROWS_WITH(sg::read_xde_document(too_deep, "300 levels"),
+                    Catch::Contains("300 levels") && Catch::Contains("more than 256 levels deep"));
+  // Beside a part that reads: the model carries the error, so a run refuses it (exit 2).
+  const Handle(XCAFDoc_ShapeTool) shapes = XCAFDoc_DocumentTool::ShapeTool(too_deep->Main());
+  shapes->AddShape(BRepBuilderAPI_MakeEdge(gp_Pnt(0, 0, 0), gp_Pnt(0, 1000, 0)).Edge(), false);
+  const sg::StepModel cut = sg::read_xde_document(too_deep, "300 levels");
+  CHECK(cut.edges.size() == 1);
+  REQUIRE(sg::has_errors(cut.diagnostics));
+  const auto error = std::find_if(cut.diagnostics.begin(), cut.diagnostics.end(),
+                                  [](const sg::Diagnostic& d) { return d.code == "assembly-too-deep"; });
+  REQUIRE(error != cut.diagnostics.end());
+  CHECK_THAT(error->message, Catch::Contains("more than 256 levels"));
+  XCAFApp_Application::GetApplication()->Close(too_deep);
+}

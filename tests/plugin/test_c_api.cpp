@@ -4,12 +4,11 @@
 #include "stepframe/analysis/section.hpp"
 #include "stepframe/geometry/step_writer.hpp"
 #include "stepframe/stepframe.h"
+#include "c_plugin.hpp"
 #include "test_helpers.hpp"
 
 #include <catch2/catch.hpp>
 #include <nlohmann/json.hpp>
-
-#include <dlfcn.h>
 
 #include <cmath>
 #include <cstring>
@@ -18,36 +17,9 @@
 
 using namespace stepframe;
 using Catch::Matchers::Contains;
+using stepframe::test::plugin;
 
 namespace {
-
-/// The shared library, loaded once for the test program.
-class Plugin {
- public:
-  Plugin() : handle_(dlopen(STEPFRAME_SHARED_LIB, RTLD_NOW | RTLD_LOCAL)) {
-    if (!handle_) FAIL("cannot load " << STEPFRAME_SHARED_LIB << ": " << dlerror());
-  }
-  ~Plugin() {
-    if (handle_) dlclose(handle_);
-  }
-  Plugin(const Plugin&) = delete;
-  Plugin& operator=(const Plugin&) = delete;
-
-  template <class F>
-  F* get(const char* name) const {
-    void* symbol = dlsym(handle_, name);
-    if (!symbol) FAIL("libstepframe.so has no symbol " << name);
-    return reinterpret_cast<F*>(symbol);
-  }
-
- private:
-  void* handle_;
-};
-
-const Plugin& plugin() {
-  static const Plugin loaded;
-  return loaded;
-}
 
 constexpr double span = 6.0, E = 210e9, w = 10e3;  // m, Pa (EN 1993-1-1 3.2.6), N/m
 

@@ -11,9 +11,18 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <mutex>
 
 namespace stepframe::viz {
 namespace {
+
+/// VTK's rendering (OpenGL context, the render window's teardown) is not safe
+/// on two threads at once: pictures are drawn one at a time in the whole
+/// process. The lock guards that library state, nothing of ours.
+std::mutex& rendering_lock() {
+  static std::mutex lock;
+  return lock;
+}
 
 /// The point halfway along a polyline, as drawn.
 Eigen::Vector3d halfway(const detail::ScenePolyline& line) {
@@ -85,6 +94,7 @@ Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::Lo
   for (std::size_t m : options.labelled) scene.anchors.push_back(halfway(scene.coloured.at(m)));
 
   std::string why_not = "not asked for";
+  const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
   auto drawn = options.opengl ? detail::render_with_opengl(scene, why_not) : std::nullopt;
   if (drawn) {
     picture.drawn_by = "OpenGL (offscreen)";

@@ -12,9 +12,26 @@
  * Hosts that discover plug-ins with dlopen look up `sf_plugin_descriptor`
  * and compare its abi_version with the one they were built for.
  *
- * Thread safety: one handle must not be used by two threads at once, except
- * sf_run_cancel, which any thread may call while the handle runs. Runs on
- * several handles at once share the process's log routing (see sf_run_set_log).
+ * Thread safety: every function may be called from any thread, and runs on
+ * different handles may go on at once on different threads: each gives exactly
+ * the result it gives alone (the test suite runs 8 threads x 5 projects and
+ * compares byte for byte). One handle must not be used by two threads at once,
+ * except sf_run_cancel, which any thread may call while the handle runs. The
+ * steps that use libraries which are not thread-safe (OCCT's STEP reading, the
+ * report's picture rendering) take a process-wide lock and so run one at a
+ * time; everything else runs in parallel. Runs on several handles at once
+ * share the process's log routing (see sf_run_set_log).
+ *
+ * Output folders: a run writes into a fresh folder beside out_dir and puts it
+ * in place of out_dir in one atomic step when every file is complete, so
+ * out_dir holds either the previous results or the new ones, never a mix. A
+ * second run into an out_dir that a run (of this or another process) is
+ * writing is refused with SF_BAD_INPUT, "in use by process N". An existing
+ * out_dir that does not hold earlier results (no results.json) and is not
+ * empty is refused rather than replaced.
+ *
+ * Logging: unless sf_run_set_log routes them, log lines go to stderr (never
+ * stdout), through spdlog's default logger when the host has set one.
  */
 #ifndef STEPFRAME_STEPFRAME_H
 #define STEPFRAME_STEPFRAME_H

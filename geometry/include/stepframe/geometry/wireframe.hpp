@@ -38,6 +38,10 @@ struct Wireframe {
   std::vector<Diagnostic> diagnostics;  ///< the reader's, then the wireframe's own
 };
 
+/// The largest merge tolerance build_wireframe accepts [m]: end points closer
+/// than the tolerance become one node, so beyond a metre whole members vanish.
+inline constexpr double max_merge_tolerance = 1.0;
+
 /// How edges become members.
 struct WireframeOptions {
   double merge_tolerance = 1e-3;  ///< [m] end points closer than this are one node

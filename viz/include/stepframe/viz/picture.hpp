@@ -9,7 +9,9 @@
 // system: Mesa's software renderer on servers, no display needed) on a thread
 // of its own, so a host application's current OpenGL context is left alone.
 // Where no such context can be created, the same picture is drawn without
-// OpenGL on VTK's image canvas. PNG encoded by VTK.
+// OpenGL on VTK's image canvas. PNG encoded by VTK. Safe to call from several
+// threads: the drawing itself is serialised process-wide (VTK's rendering is
+// not thread-safe).
 
 #include "stepframe/analysis/frame_model.hpp"
 #include "stepframe/analysis/results.hpp"

@@ -1,0 +1,75 @@
+#pragma once
+// A check of a STEP file's exchange structure (ISO 10303-21) made before OCCT
+// parses it: OCCT trusts the structure and can crash on a reference to an
+// absent entity, an entity that refers to itself, or parentheses nested
+// thousands deep. The check is one pass over the text, fed in pieces of any
+// size, and then a walk over the references.
+
+#include <cstddef>
+#include <cstdint>
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace stepframe::geometry {
+
+/// The deepest nesting of parentheses accepted (OCCT's own entities use a
+/// handful of levels: lists of lists of points).
+inline constexpr int max_step_nesting = 100;
+
+/// Checks, as text arrives, that:
+/// - every reference (#12) names an entity the file defines, and no entity is defined twice;
+/// - no entity refers to itself, directly or through others (the STEP
+///   schemas that stepframe reads allow no such cycle);
+/// - parentheses nest at most max_step_nesting deep and are balanced;
+/// - every number is finite (no 1E400) and no bare word (NAN, INF) stands
+///   where a value belongs.
+/// Each failure throws StepReadError naming `source`, the entity (#id) and
+/// its line, and what to do.
+class StepStructureCheck {
+ public:
+  explicit StepStructureCheck(std::string source);
+  /// The next piece of the text (pieces may split tokens anywhere).
+  void feed(std::string_view piece);
+  /// After the last piece: the references and cycles.
+  void finish();
+
+  std::size_t entities() const { return ids_.size(); }
+  /// True when a string holds a doubled quote ('O''Neil'), which OCCT's
+  /// lexer mis-reads before a comma (the reader rewrites such text).
+  bool doubled_quotes() const { return doubled_quotes_; }
+
+ private:
+  void character(char c);
+  void end_token();
+  [[noreturn]] void fail(const std::string& what) const;
+  [[noreturn]] void fail_bare_word() const;
+  std::string here() const;
+
+  std::string source_;
+  // Lexer state (carried across pieces).
+  enum class Mode { normal, comment, string, binary } mode_ = Mode::normal;
+  bool slash_ = false;          // a '/' that may open a comment
+  bool star_ = false;           // a '*' that may close one
+  bool quote_ = false;          // a quote inside a string that may be the first of ''
+  bool doubled_quotes_ = false;
+  std::string token_;
+  std::string word_;            // a keyword waiting to see whether '(' follows
+  std::size_t word_line_ = 0;
+  int depth_ = 0;
+  std::size_t line_ = 1;
+  // The entity being read.
+  std::uint64_t current_ = 0;   // its id, 0 between entities
+  std::size_t current_line_ = 0;
+  bool expect_equals_ = false;
+  // The entities in file order, their lines and references (CSR: refs_[first_ref_[k]...]).
+  std::vector<std::uint64_t> ids_;
+  std::vector<std::uint32_t> lines_;
+  std::vector<std::size_t> first_ref_;
+  std::vector<std::uint64_t> refs_;
+};
+
+/// Runs StepStructureCheck over the whole text.
+void check_step_structure(std::string_view text, const std::string& source);
+
+}  // namespace stepframe::geometry

@@ -1,0 +1,236 @@
+#include "stepframe/geometry/step_structure.hpp"
+
+#include "stepframe/geometry/step_reader.hpp"
+
+#include <spdlog/fmt/fmt.h>
+
+#include <algorithm>
+#include <cctype>
+#include <cmath>
+#include <cstdlib>
+#include <limits>
+#include <utility>
+
+namespace stepframe::geometry {
+namespace {
+
+constexpr const char* damaged =
+    "the file is damaged or was not written by a STEP (ISO 10303-21) exporter; export the model again";
+
+bool token_char(char c) {
+  return std::isalnum(static_cast<unsigned char>(c)) != 0 || c == '_' || c == '#' || c == '.' || c == '+' ||
+         c == '-' || c == '!';
+}
+
+bool digit(char c) { return std::isdigit(static_cast<unsigned char>(c)) != 0; }
+
+}  // namespace
+
+StepStructureCheck::StepStructureCheck(std::string source) : source_(std::move(source)) {}
+
+std::string StepStructureCheck::here() const {
+  return current_ != 0 ? fmt::format("#{} (line {})", current_, line_) : fmt::format("line {}", line_);
+}
+
+void StepStructureCheck::fail(const std::string& what) const {
+  throw StepReadError(fmt::format("{}: {}", source_, what));
+}
+
+void StepStructureCheck::fail_bare_word() const {
+  fail(fmt::format("{}: '{}' stands where a value belongs; STEP values are finite numbers such as 1.5E3, strings, "
+                   "references (#12) or enumerations (.T.); {}",
+                   here(), word_, damaged));
+}
+
+void StepStructureCheck::feed(std::string_view piece) {
+  for (char c : piece) character(c);
+}
+
+void StepStructureCheck::character(char c) {
+  if (c == '\n') ++line_;
+  switch (mode_) {
+    case Mode::comment:
+      if (star_ && c == '/') mode_ = Mode::normal;
+      star_ = c == '*';
+      return;
+    case Mode::binary:
+      if (c == '"') mode_ = Mode::normal;
+      return;
+    case Mode::string:
+      if (!quote_) {
+        quote_ = c == '\'';
+        return;
+      }
+      quote_ = false;
+      if (c == '\'') {  // '' is a quote inside the string
+        doubled_quotes_ = true;
+        return;
+      }
+      mode_ = Mode::normal;   // the quote before ended the string: c is the next character
+      break;
+    case Mode::normal:
+      break;
+  }
+  if (slash_) {
+    slash_ = false;
+    if (c == '*') {
+      mode_ = Mode::comment;
+      star_ = false;
+      return;
+    }
+  }
+  if (token_char(c)) {
+    if (token_.empty() && !word_.empty())
+      fail_bare_word();
+    token_ += c;
+    return;
+  }
+  end_token();
+  if (c == '/') {
+    slash_ = true;
+    return;
+  }
+  if (std::isspace(static_cast<unsigned char>(c)) != 0) return;
+  if (!word_.empty()) {
+    if (c != '(')
+      fail_bare_word();
+    word_.clear();
+  }
+  switch (c) {
+    case '(':
+      if (++depth_ > max_step_nesting)
+        fail(fmt::format("{}: parentheses nest more than {} levels deep; {}", here(), max_step_nesting, damaged));
+      break;
+    case ')':
+      if (--depth_ < 0) fail(fmt::format("{}: a ')' closes no '('; {}", here(), damaged));
+      break;
+    case ';':
+      if (depth_ != 0)
+        fail(fmt::format("{}: the entity's parameter list is not closed before ';' ({} '(' open); {}", here(), depth_,
+                         damaged));
+      current_ = 0;
+      break;
+    case '\'':
+      mode_ = Mode::string;
+      quote_ = false;
+      break;
+    case '"':
+      mode_ = Mode::binary;
+      break;
+    default:
+      break;
+  }
+}
+
+void StepStructureCheck::end_token() {
+  if (token_.empty()) return;
+  std::string t;
+  t.swap(token_);
+  const char first = t.front();
+  if (first == '#') {
+    if (t.size() < 2 || !std::all_of(t.begin() + 1, t.end(), digit) || t.size() > 19)
+      fail(fmt::format("{}: '{}' is not an entity reference (# and a number); {}", here(), t, damaged));
+    const std::uint64_t id = std::strtoull(t.c_str() + 1, nullptr, 10);
+    if (depth_ == 0) {  // an entity instance begins: #12 = ...
+      current_ = id;
+      ids_.push_back(id);
+      lines_.push_back(static_cast<std::uint32_t>(std::min<std::size_t>(line_, std::numeric_limits<std::uint32_t>::max())));
+      first_ref_.push_back(refs_.size());
+    } else {
+      if (current_ == 0) fail(fmt::format("{}: a reference {} stands outside any entity; {}", here(), t, damaged));
+      refs_.push_back(id);
+    }
+    return;
+  }
+  const bool signed_number = (first == '+' || first == '-') && t.size() > 1 && (digit(t[1]) || t[1] == '.');
+  if (digit(first) || signed_number) {
+    if (t.find_first_of(".eE") != std::string::npos) {
+      const double value = std::strtod(t.c_str(), nullptr);
+      if (!std::isfinite(value))
+        fail(fmt::format("{}: the number {} is beyond the range of numbers (about 1.8E308); a coordinate or "
+                         "value of the model is corrupt; {}",
+                         here(), t, damaged));
+    }
+    return;
+  }
+  if (std::isalpha(static_cast<unsigned char>(first)) != 0 || first == '!' || first == '_') {
+    if (depth_ > 0) word_ = t;  // a keyword inside parameters must be followed by '(' (a typed value)
+  }
+}
+
+void StepStructureCheck::finish() {
+  end_token();
+  if (!word_.empty())
+    fail(fmt::format("{}: the text ends after '{}'; {}", here(), word_, damaged));
+  if (mode_ == Mode::string && !quote_)
+    fail(fmt::format("{}: the text ends inside a quoted string (a closing quote is missing); {}", here(), damaged));
+  if (mode_ == Mode::comment) fail(fmt::format("{}: the text ends inside a comment (/* without */); {}", here(), damaged));
+  if (depth_ != 0) fail(fmt::format("{}: the text ends with {} '(' open; {}", here(), depth_, damaged));
+
+  const std::size_t n = ids_.size();
+  first_ref_.push_back(refs_.size());
+  // Entity id -> position in file order, by binary search over the sorted ids.
+  std::vector<std::pair<std::uint64_t, std::uint32_t>> by_id(n);
+  for (std::size_t k = 0; k < n; ++k) by_id[k] = {ids_[k], static_cast<std::uint32_t>(k)};
+  std::sort(by_id.begin(), by_id.end());
+  for (std::size_t k = 1; k < n; ++k)
+    if (by_id[k].first == by_id[k - 1].first)
+      fail(fmt::format("#{} is defined twice (lines {} and {}); {}", by_id[k].first, lines_[by_id[k - 1].second],
+                       lines_[by_id[k].second], damaged));
+  auto index_of = [&](std::uint64_t id) -> std::int64_t {
+    const auto it = std::lower_bound(by_id.begin(), by_id.end(), std::make_pair(id, std::uint32_t{0}));
+    return it != by_id.end() && it->first == id ? static_cast<std::int64_t>(it->second) : -1;
+  };
+  std::vector<std::uint32_t> target(refs_.size());
+  for (std::size_t k = 0; k < n; ++k)
+    for (std::size_t r = first_ref_[k]; r < first_ref_[k + 1]; ++r) {
+      const std::int64_t t = index_of(refs_[r]);
+      if (t < 0)
+        fail(fmt::format("#{} (line {}) refers to #{}, which the file does not define; {}", ids_[k], lines_[k],
+                         refs_[r], damaged));
+      target[r] = static_cast<std::uint32_t>(t);
+    }
+
+  // Cycles: a depth-first walk without recursion (white 0, on the path 1, done 2).
+  std::vector<std::uint8_t> state(n, 0);
+  std::vector<std::pair<std::uint32_t, std::size_t>> path;  // entity, next reference to follow
+  for (std::size_t start = 0; start < n; ++start) {
+    if (state[start] != 0) continue;
+    path.push_back({static_cast<std::uint32_t>(start), first_ref_[start]});
+    state[start] = 1;
+    while (!path.empty()) {
+      auto& [k, next] = path.back();
+      if (next == first_ref_[k + 1]) {
+        state[k] = 2;
+        path.pop_back();
+        continue;
+      }
+      const std::uint32_t t = target[next++];
+      if (state[t] == 1) {
+        if (t == k)
+          fail(fmt::format("#{} (line {}) refers to itself; an entity cannot contain itself; {}", ids_[k], lines_[k],
+                           damaged));
+        std::string chain;
+        bool on = false;
+        for (const auto& step : path) {
+          on = on || step.first == t;
+          if (on) chain += fmt::format("#{} -> ", ids_[step.first]);
+        }
+        fail(fmt::format("#{} (line {}) refers back to itself through {}#{}; an entity cannot contain itself; {}",
+                         ids_[t], lines_[t], chain, ids_[t], damaged));
+      }
+      if (state[t] == 0) {
+        state[t] = 1;
+        path.push_back({t, first_ref_[t]});
+      }
+    }
+  }
+}
+
+void check_step_structure(std::string_view text, const std::string& source) {
+  StepStructureCheck check(source);
+  check.feed(text);
+  check.finish();
+}
+
+}  // namespace stepframe::geometry
