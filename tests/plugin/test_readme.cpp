@@ -51,5 +51,8 @@ TEST_CASE("the README's exit-status table is the one the command's help lists", 
     CHECK_THAT(readme, Contains("| " + status + " | "));
     CHECK_THAT(help, Contains((status == "0" ? "Exit status: " : "; ") + status + " "));
   }
-  CHECK_THAT(readme, Contains("A run\nwhose checks fail (1) writes every file"));
+  // What a failing run writes, whatever the line breaks.
+  std::string flat;
+  for (char c : readme) flat += (c == '\n' || c == ' ') ? (flat.empty() || flat.back() == ' ' ? std::string() : std::string(" ")) : std::string(1, c);
+  CHECK_THAT(flat, Contains("A run whose checks fail (exit 1) writes every file"));
 }

@@ -115,7 +115,7 @@ const std::vector<Case> cases = {
     {"(a+)+b on a long name does not hang", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {name: \"(a+)+b\"}\n    material: S355\n" +
          base_supports + base_cases,
-     {curve_set, "#33 = GEOMETRIC_CURVE_SET('" + std::string(2000, 'a') + "',(#34));"}, 2, "have no section"},
+     {curve_set, "#33 = GEOMETRIC_CURVE_SET('" + std::string(2000, 'a') + "',(#34));"}, 2, "no section"},
     {"back-reference refused", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {name: \"(a)\\\\1\"}\n    material: S355\n" +
          base_supports + base_cases,
