@@ -138,12 +138,15 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
                                                  : "6.2.1(7) eq. (6.2), N + My + Mz",
                                          cls.section_class, cls.governing_part),
                              st.x, u, 1.0);
+      section_check.details = {{"class", cls.section_class}, {"N_Ed", N},      {"My_Ed", My},          {"Mz_Ed", Mz},
+                               {"N_Rd", NRd},                {"My_Rd", MyRd},  {"Mz_Rd", MzRd},        {"u_linear", linear}};
     }
     if (VplZ > 0 && VplY > 0) {
       const double uv = std::max(Vz / VplZ, Vy / VplY);
       if (uv > worst_shear) {
         worst_shear = uv;
         shear_check = result("6.2.6 shear", "EN 1993-1-1 6.2.6 eq. (6.17), plastic shear resistance", st.x, uv, 1.0);
+        shear_check.details = {{"Vy_Ed", Vy}, {"Vz_Ed", Vz}, {"Vpl_y_Rd", VplY}, {"Vpl_z_Rd", VplZ}};
       }
     }
   }

@@ -4,6 +4,7 @@
 // SHA-256 (against coreutils' sha256sum, FIPS 180-4), and the colour legends.
 
 #include "portal_project.hpp"
+#include "stepframe/analysis/section.hpp"
 #include "stepframe/viz/colour_scale.hpp"
 
 #include <catch2/catch.hpp>
@@ -85,6 +86,18 @@ TEST_CASE("the report lists every failing check first, then the highest passing 
     for (const auto& c : j["checks"])
       if (c["member"] == (*worst)["member"]) CHECK_THAT(text, Contains(c["check"].get<std::string>() + " — utilisation"));
     CHECK(text.find("FAILS") != std::string::npos);
+    // The cross-section check's resistances: N_Rd = A fy / gamma_M0 (EN 1993-1-1 (6.10)), IPE 300 in S355.
+    const auto ipe300 = analysis::find_catalogue_section("IPE300");
+    REQUIRE(ipe300);
+    bool seen = false;
+    for (const auto& c : j["checks"])
+      if (c["member"] == (*worst)["member"] && c["check"] == "6.2 cross-section") {
+        seen = true;
+        CHECK(c["details"]["N_Rd"].get<double>() == Approx(ipe300->A * 355e6).epsilon(1e-9));
+        CHECK(c["details"]["class"].get<double>() == 1);  // IPE 300 in bending: class 1 (EN 1993-1-1 Table 5.2, common practice)
+        CHECK_THAT(text, Contains("<td>N_Rd</td>"));
+      }
+    CHECK(seen);
   }
 
   SECTION("reactions as in results.json (kN)") {
