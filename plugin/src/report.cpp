@@ -104,9 +104,7 @@ std::string members_table(const Analysis& a) {
   for (std::size_t m : report::members_by_utilisation(a)) {
     const auto& el = model.elements[model.members[m].elements.front()];
     const auto& src = a.built.member_sources[m];
-    double length = 0;
-    for (std::size_t e : model.members[m].elements)
-      length += (model.nodes[model.elements[e].nodes[1]] - model.nodes[model.elements[e].nodes[0]]).norm();
+    const double length = report::member_length(model, model.members[m]);
     const auto* c = governing[m];
     h += fmt::format("<tr{}><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{}</td>",
                      c && !c->pass ? " class=\"failed\"" : "", m, esc(src.entity), esc(src.name),

@@ -21,6 +21,9 @@ std::string num(double value, int digits = 4);
 /// A check's value or limit in the unit people read ("Pa" -> MPa, "N" -> kN, "m" -> mm, "N*m" -> kN*m).
 std::string with_unit(double value, const std::string& si_unit);
 
+/// A member's length along its elements [m].
+double member_length(const analysis::FrameModel& model, const analysis::Member& member);
+
 /// The governing (largest utilisation) check of every member, nullptr where
 /// none applies; index = member.
 std::vector<const analysis::CheckResult*> governing_per_member(const Analysis& analysis);

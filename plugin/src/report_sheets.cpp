@@ -26,9 +26,7 @@ std::string sheets_section(const Analysis& a) {
     auto checks = by_member[m];
     std::stable_sort(checks.begin(), checks.end(), [](const auto* x, const auto* y) { return x->utilisation > y->utilisation; });
     const auto& el = model.elements[model.members[m].elements.front()];
-    double length = 0;
-    for (std::size_t e : model.members[m].elements)
-      length += (model.nodes[model.elements[e].nodes[1]] - model.nodes[model.elements[e].nodes[0]]).norm();
+    const double length = member_length(model, model.members[m]);
     const auto& src = a.built.member_sources[m];
     h += fmt::format("<section class=\"sheet\" id=\"{}\"><h3>Member {}: {}</h3>\n<p>entity {}, section {}, material {}, "
                      "length {} m</p>\n",

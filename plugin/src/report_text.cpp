@@ -35,6 +35,13 @@ std::string with_unit(double value, const std::string& unit) {
   return num(value);
 }
 
+double member_length(const analysis::FrameModel& model, const analysis::Member& member) {
+  double length = 0;
+  for (std::size_t e : member.elements)
+    length += (model.nodes[model.elements[e].nodes[1]] - model.nodes[model.elements[e].nodes[0]]).norm();
+  return length;
+}
+
 std::vector<const analysis::CheckResult*> governing_per_member(const Analysis& a) {
   std::vector<const analysis::CheckResult*> governing(a.built.model.members.size(), nullptr);
   for (const auto& c : a.checks)

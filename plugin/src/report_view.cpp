@@ -38,12 +38,8 @@ std::string view_data(const Analysis& a) {
     const auto& el = model.elements[chains[m].elements.front()];
     fy[m] = analysis::material_for_section(model.materials[el.material], model.sections[el.section]).fy;
     std::string path = std::to_string(el.nodes[0]);
-    double length = 0;
-    for (std::size_t e : chains[m].elements) {
-      const auto& part = model.elements[e];
-      path += "," + std::to_string(part.nodes[1]);
-      length += (model.nodes[part.nodes[1]] - model.nodes[part.nodes[0]]).norm();
-    }
+    for (std::size_t e : chains[m].elements) path += "," + std::to_string(model.elements[e].nodes[1]);
+    const double length = member_length(model, chains[m]);
     const auto* g = m < governing.size() ? governing[m] : nullptr;
     d += fmt::format("{}{{\"id\":{},\"label\":{},\"section\":{},\"material\":{},\"length\":{},\"path\":[{}],\"u\":{}{}}}",
                      m ? "," : "", m, quoted(m < a.built.member_sources.size() ? member_label(a, m) : ""),
