@@ -9,12 +9,15 @@
 #include "stepframe/analysis/parallel.hpp"
 #include "stepframe/analysis/stiffness_factor.hpp"
 
+#include <fmt/format.h>
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <iterator>
 #include <memory>
+#include <optional>
 #include <stdexcept>
 
 namespace stepframe::analysis {
@@ -158,78 +161,127 @@ AxialForce axial_pattern(const FrameModel& model, const LoadResult& first_order)
   return [start, loads](std::size_t e, double x) { return internal_forces_at((*start)[e], (*loads)[e], x)(0); };
 }
 
+// A case's load vector, enforced displacements and element loads.
+Loading case_loading(const FrameModel& model, const LoadCase& lc, const System& system) {
+  Loading l;
+  auto loads = std::make_shared<std::vector<LocalLoads>>(element_local_loads(model, lc));
+  l.f = load_vector(model, lc, *loads);
+  l.settlement = settlement_vector(model, lc);
+  l.terms = {LoadTerm{1.0, std::move(loads)}};
+  check_tied_loads(system.ties, lc.name, l.f, model);
+  return l;
+}
+
+// The cases' displacements: every right-hand side F_f - K_fs u_s (enforced
+// displacements u_s at the supported DOFs) solved in one pass on the factor.
+std::vector<LoadResult> solve_cases(const std::vector<LoadCase>& cases, const Loading* loadings, const System& system,
+                                    const DofNumbering& dofs, const StiffnessFactor& factor) {
+  Eigen::MatrixXd rhs(dofs.free_count(), static_cast<Eigen::Index>(cases.size()));
+  for (std::size_t i = 0; i < cases.size(); ++i)
+    rhs.col(static_cast<Eigen::Index>(i)) = free_part(loadings[i].f - system.k_full * loadings[i].settlement, dofs);
+  const Eigen::MatrixXd solutions = factor.solve(rhs);
+  std::vector<LoadResult> results(cases.size());
+  for (std::size_t i = 0; i < cases.size(); ++i) {
+    results[i].name = cases[i].name;
+    results[i].displacements = expand_free(solutions.col(static_cast<Eigen::Index>(i)), dofs) + loadings[i].settlement;
+  }
+  return results;
+}
+
+// A combination by superposition (linear analysis): u, F and enforced
+// displacements summed with their factors; member loads are the cases' own,
+// shared, with the factor attached.
+std::pair<LoadResult, Loading> superpose(const Combination& combo, const std::vector<LoadResult>& results,
+                                         const std::vector<Loading>& loadings) {
+  const Eigen::Index size = results.front().displacements.size();
+  LoadResult r;
+  r.name = combo.name;
+  r.is_combination = true;
+  r.serviceability = combo.serviceability;
+  r.displacements = Eigen::VectorXd::Zero(size);
+  Loading l;
+  l.f = Eigen::VectorXd::Zero(size);
+  l.settlement = Eigen::VectorXd::Zero(size);
+  for (const auto& [index, factor_value] : combo.factors) {
+    r.displacements += factor_value * results[index].displacements;
+    l.f += factor_value * loadings[index].f;
+    l.settlement += factor_value * loadings[index].settlement;
+    l.terms.push_back(LoadTerm{factor_value, loadings[index].terms.front().loads});
+  }
+  return {std::move(r), std::move(l)};
+}
+
+// The model with the derived loads (SolveOptions::derive_loads) added.
+FrameModel with_derived(const FrameModel& model, DerivedLoads derived) {
+  FrameModel extended = model;
+  std::move(derived.cases.begin(), derived.cases.end(), std::back_inserter(extended.cases));
+  std::move(derived.combinations.begin(), derived.combinations.end(), std::back_inserter(extended.combinations));
+  validate_model(extended);
+  return extended;
+}
+
 }  // namespace
 
-std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& options) {
+std::vector<LoadResult> solve(const FrameModel& given, const SolveOptions& options) {
   auto report = [&](std::string_view stage, double fraction) {
     if (options.progress) options.progress(stage, std::clamp(fraction, 0.0, 1.0));
   };
-  validate_model(model);
+  validate_model(given);
   if (options.stations < 2) throw std::invalid_argument("SolveOptions::stations must be at least 2 (both member ends)");
-  if (!has_any_support(model))
+  if (!has_any_support(given))
     throw UnstableFrame("the frame is unstable: it has no supports; fix at least one node against translation "
                         "and rotation",
                         {});
-  spdlog::debug("analysing frame: {} nodes, {} elements, {} load cases, {} combinations", model.nodes.size(),
-                model.elements.size(), model.cases.size(), model.combinations.size());
+  spdlog::debug("analysing frame: {} nodes, {} elements, {} load cases, {} combinations", given.nodes.size(),
+                given.elements.size(), given.cases.size(), given.combinations.size());
 
   // Assembly: the stiffness and every case's loads.
   report("assembly", 0.0);
-  const DofNumbering dofs = number_dofs(model);
-  const System system = assemble_system(model, dofs, nullptr);
+  const DofNumbering dofs = number_dofs(given);
+  const System system = assemble_system(given, dofs, nullptr);
   std::vector<Loading> loadings;
-  loadings.reserve(model.cases.size() + model.combinations.size());
-  for (const LoadCase& lc : model.cases) {
-    Loading l;
-    auto loads = std::make_shared<std::vector<LocalLoads>>(element_local_loads(model, lc));
-    l.f = load_vector(model, lc, *loads);
-    l.settlement = settlement_vector(model, lc);
-    l.terms = {LoadTerm{1.0, std::move(loads)}};
-    check_tied_loads(system.ties, lc.name, l.f, model);
-    loadings.push_back(std::move(l));
-  }
+  for (const LoadCase& lc : given.cases) loadings.push_back(case_loading(given, lc, system));
   spdlog::debug("assembled {} DOFs ({} free), {} stiffness non-zeros", system.k_full.rows(), dofs.free_count(),
                 system.k_full.nonZeros());
 
-  // One factorisation; every case's right-hand side F_f - K_fs u_s (enforced
-  // displacements u_s at the supported DOFs) solved in one pass.
+  // One factorisation for everything that follows.
   report("factorisation", 0.0);
-  const StiffnessFactor factor(system.k_free, dofs, model.nodes);
-  Eigen::MatrixXd rhs(dofs.free_count(), static_cast<Eigen::Index>(loadings.size()));
-  for (std::size_t i = 0; i < loadings.size(); ++i)
-    rhs.col(static_cast<Eigen::Index>(i)) = free_part(loadings[i].f - system.k_full * loadings[i].settlement, dofs);
-  const Eigen::MatrixXd solutions = factor.solve(rhs);
+  const StiffnessFactor factor(system.k_free, dofs, given.nodes);
+  std::vector<LoadResult> results = solve_cases(given.cases, loadings.data(), system, dofs, factor);
 
-  std::vector<LoadResult> results;
-  results.reserve(model.cases.size() + model.combinations.size());
-  for (std::size_t i = 0; i < model.cases.size(); ++i) {
-    LoadResult r;
-    r.name = model.cases[i].name;
-    r.displacements = expand_free(solutions.col(static_cast<Eigen::Index>(i)), dofs) + loadings[i].settlement;
-    results.push_back(std::move(r));
-  }
-
-  // Combinations by superposition (linear analysis): u, F and enforced
-  // displacements are summed with their factors; member loads are the cases'
-  // own, shared, with the factor attached.
-  const Eigen::Index size = system.k_full.rows();
-  for (const Combination& combo : model.combinations) {
-    LoadResult r;
-    r.name = combo.name;
-    r.is_combination = true;
-    r.serviceability = combo.serviceability;
-    r.displacements = Eigen::VectorXd::Zero(size);
-    Loading l;
-    l.f = Eigen::VectorXd::Zero(size);
-    l.settlement = Eigen::VectorXd::Zero(size);
-    for (const auto& [index, factor_value] : combo.factors) {
-      r.displacements += factor_value * results[index].displacements;
-      l.f += factor_value * loadings[index].f;
-      l.settlement += factor_value * loadings[index].settlement;
-      l.terms.push_back(LoadTerm{factor_value, loadings[index].terms.front().loads});
+  // Loads derived from the first-order results: their cases solved on the same factor.
+  std::optional<FrameModel> extended;
+  if (options.derive_loads) {
+    std::vector<LoadResult> first = results;
+    for (std::size_t i = 0; i < first.size(); ++i) first[i].element_loads = loadings[i].terms;
+    for (const Combination& combo : given.combinations) {
+      auto [r, l] = superpose(combo, results, loadings);
+      r.element_loads = l.terms;
+      first.push_back(std::move(r));
+      loadings.push_back(std::move(l));
     }
-    loadings.push_back(std::move(l));
+    for (std::size_t i = 0; i < first.size(); ++i)
+      first[i].reactions = reactions_of(given, system.k_full, dofs, first[i].displacements, loadings[i].f);
+    loadings.resize(given.cases.size());
+    DerivedLoads derived = options.derive_loads(given, first);
+    if (!derived.cases.empty() || !derived.combinations.empty()) {
+      extended = with_derived(given, std::move(derived));
+      for (std::size_t i = given.cases.size(); i < extended->cases.size(); ++i)
+        loadings.push_back(case_loading(*extended, extended->cases[i], system));
+      auto more = solve_cases({extended->cases.begin() + static_cast<std::ptrdiff_t>(given.cases.size()),
+                               extended->cases.end()},
+                              loadings.data() + given.cases.size(), system, dofs, factor);
+      std::move(more.begin(), more.end(), std::back_inserter(results));
+    }
+  }
+  const FrameModel& model = extended ? *extended : given;
+
+  // Combinations by superposition.
+  results.reserve(model.cases.size() + model.combinations.size());
+  for (const Combination& combo : model.combinations) {
+    auto [r, l] = superpose(combo, results, loadings);
     results.push_back(std::move(r));
+    loadings.push_back(std::move(l));
   }
 
   // Recovery of every case and combination (second order first where asked).
@@ -254,7 +306,9 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
     } else {
       r.reactions = reactions_of(model, system.k_full, dofs, r.displacements, loadings[i].f);
     }
-    r.members = summarise_members(model, chains, r);
+    // A derived case exists as a part of derived combinations: displacements and reactions only.
+    const bool derived_case = i >= given.cases.size() && i < model.cases.size();
+    if (!derived_case) r.members = summarise_members(model, chains, r);
   }
 
   // Buckling of every combination that asks for it (every case when there are none), all
@@ -278,9 +332,14 @@ std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& optio
       }
     }
   }
-  spdlog::info("frame analysed: {} nodes, {} elements, {} free DOFs, {} load case{}, {} combination{}",
-               model.nodes.size(), model.elements.size(), dofs.free_count(), model.cases.size(),
-               model.cases.size() == 1 ? "" : "s", model.combinations.size(), model.combinations.size() == 1 ? "" : "s");
+  auto counted = [](std::size_t n, const char* word) { return fmt::format("{} {}{}", n, word, n == 1 ? "" : "s"); };
+  spdlog::info("frame analysed: {} nodes, {} elements, {} free DOFs, {}, {}{}", model.nodes.size(),
+               model.elements.size(), dofs.free_count(), counted(given.cases.size(), "load case"),
+               counted(given.combinations.size(), "combination"),
+               extended ? fmt::format(" (and {}, {} derived from the first-order results)",
+                                      counted(model.cases.size() - given.cases.size(), "case"),
+                                      counted(model.combinations.size() - given.combinations.size(), "combination"))
+                        : std::string());
   return results;
 }
 

@@ -88,8 +88,9 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   analysis::SolveOptions options;
   options.progress = [&](std::string_view stage, double f) { report(stage, f); };
   options.buckling_modes = a.project.buckling_modes;
-  a.sway_imperfections = detail::add_sway_imperfections(a.project, a.built.model, options);
-  a.results = analysis::solve(a.built.model, options);
+  auto solved = detail::solve_with_sway_imperfections(a.project, a.built.model, options);
+  a.results = std::move(solved.results);
+  a.sway_imperfections = std::move(solved.records);
   // The load cases the sway variants add (imperfection forces, horizontal parts to amplify) are only parts
   // of those variants (listed in a.sway_imperfections): not results of their own.
   std::erase_if(a.results, [&](const analysis::LoadResult& r) {

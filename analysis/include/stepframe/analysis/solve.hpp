@@ -13,6 +13,13 @@
 
 namespace stepframe::analysis {
 
+/// Cases and combinations added to a model during its solve (see
+/// SolveOptions::derive_loads).
+struct DerivedLoads {
+  std::vector<LoadCase> cases;             ///< appended after the model's own cases
+  std::vector<Combination> combinations;   ///< appended after its own combinations; case indices count the new cases
+};
+
 struct SolveOptions {
   std::size_t stations = 21;  ///< stations per member for internal forces and deflections
   /// Buckling modes per combination (alpha_cr and mode shapes; every load
@@ -27,6 +34,15 @@ struct SolveOptions {
   /// "recovery", "buckling") and the fraction of it done, in [0, 1]; each
   /// stage reports 0 when it starts. May be empty.
   std::function<void(std::string_view stage, double fraction)> progress;
+  /// Loads that follow from the first-order results (the sway imperfection
+  /// forces of EN 1993-1-1 5.3.2 follow from the column forces): called once,
+  /// after the cases and combinations are solved to first order and before
+  /// any recovery, second-order iteration or buckling analysis, with the model
+  /// and those results (displacements, reactions and element loads; no member
+  /// summaries yet). What it returns is solved on the same factorisation, as
+  /// if the model had held it from the start, except that the derived cases,
+  /// parts of the derived combinations, get no member summaries. May be empty.
+  std::function<DerivedLoads(const FrameModel&, const std::vector<LoadResult>&)> derive_loads;
 };
 
 /// A free direction of the structure: the frame is a mechanism there.
@@ -44,8 +60,8 @@ class UnstableFrame : public std::runtime_error {
   std::vector<FreeDirection> free_directions;
 };
 
-/// Results of every load case (in model order) followed by every combination
-/// (in model order). Cases are solved together (one factorisation, all load
+/// Results of every load case (in model order, then the derived ones)
+/// followed by every combination (in model order, then the derived ones). Cases are solved together (one factorisation, all load
 /// vectors as one multi-column right-hand side); combinations are the
 /// factored sums of the cases, or, when the model asks for second order, each
 /// solved by P-Delta iteration. Buckling (alpha_cr and modes) is analysed for
