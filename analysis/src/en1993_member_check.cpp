@@ -7,6 +7,7 @@
 #include <fmt/format.h>
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <map>
 #include <numbers>
@@ -100,20 +101,23 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
 
   // 5.5 classification and 6.2 cross-section resistance, station by station. The class shows in
   // the 6.2 clause; a class 4 section (outside this screening) is a failing check of its own.
+  // The worst station of each is kept as numbers; its result is worded once, after the loop.
   double worst_section = -1, worst_shear = -1, worst_class = -1;
-  CheckResult section_check, shear_check, class_check;
+  const Station* class_station = nullptr;
+  Classification class_worst;
+  std::array<double, 5> shear_worst{};  // station, Vy, Vz, Vpl_y_Rd, Vpl_z_Rd
+  struct {
+    bool plastic = false;
+    Classification cls;
+    double x = 0;
+    std::array<double, 7> at{};  // N, My, Mz, N_Rd, My_Rd, Mz_Rd, linear sum
+  } section_worst;
   for (const Station& st : line.stations) {
     const double N = st.forces(N_), My = st.forces(My_), Mz = st.forces(Mz_);
     const double Vy = std::abs(st.forces(Vy_)), Vz = std::abs(st.forces(Vz_));
     const Classification cls = classify(s, fy, N, My);
-    if (cls.section_class == 4 && cls.class3_utilisation > worst_class) {
-      worst_class = cls.class3_utilisation;
-      class_check = result("5.5 classification",
-                           fmt::format("EN 1993-1-1 5.5, Table 5.2: class {} ({}); class 4 needs effective properties "
-                                       "(EN 1993-1-5), not covered",
-                                       cls.section_class, cls.governing_part),
-                           st.x, cls.class3_utilisation, 1.0);
-    }
+    if (cls.section_class == 4 && cls.class3_utilisation > worst_class)
+      worst_class = cls.class3_utilisation, class_station = &st, class_worst = cls;
     const double NRd = s.A * fy / f.gamma_M0;  // (6.6) and (6.10)
     double MyRd = modulus_y(s, cls.section_class) * fy / f.gamma_M0;  // (6.13), (6.14)
     double MzRd = modulus_z(s, cls.section_class) * fy / f.gamma_M0;
@@ -132,27 +136,44 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double u = plastic ? *plastic : linear;
     if (u > worst_section) {
       worst_section = u;
-      section_check = result("6.2 cross-section",
-                             fmt::format("EN 1993-1-1 {}, with 6.2.8 shear; class {} ({})",
-                                         plastic ? "6.2.9.1 (6.36)-(6.41), plastic N + My + Mz"
-                                                 : "6.2.1(7) eq. (6.2), N + My + Mz",
-                                         cls.section_class, cls.governing_part),
-                             st.x, u, 1.0);
-      section_check.details = {{"class", cls.section_class}, {"N_Ed", N},      {"My_Ed", My},          {"Mz_Ed", Mz},
-                               {"N_Rd", NRd},                {"My_Rd", MyRd},  {"Mz_Rd", MzRd},        {"u_linear", linear}};
+      section_worst = {plastic.has_value(), cls, st.x, {N, My, Mz, NRd, MyRd, MzRd, linear}};
     }
     if (VplZ > 0 && VplY > 0) {
       const double uv = std::max(Vz / VplZ, Vy / VplY);
-      if (uv > worst_shear) {
-        worst_shear = uv;
-        shear_check = result("6.2.6 shear", "EN 1993-1-1 6.2.6 eq. (6.17), plastic shear resistance", st.x, uv, 1.0);
-        shear_check.details = {{"Vy_Ed", Vy}, {"Vz_Ed", Vz}, {"Vpl_y_Rd", VplY}, {"Vpl_z_Rd", VplZ}};
-      }
+      if (uv > worst_shear) worst_shear = uv, shear_worst = {st.x, Vy, Vz, VplY, VplZ};
     }
   }
-  if (worst_class >= 0) out.push_back(class_check);
-  out.push_back(section_check);
-  if (worst_shear >= 0) out.push_back(shear_check);
+  if (class_station)
+    out.push_back(result("5.5 classification",
+                         fmt::format("EN 1993-1-1 5.5, Table 5.2: class {} ({}); class 4 needs effective properties "
+                                     "(EN 1993-1-5), not covered",
+                                     class_worst.section_class, class_worst.governing_part),
+                         class_station->x, worst_class, 1.0));
+  const auto& w = section_worst.at;
+  CheckResult section_check = result("6.2 cross-section",
+                                     fmt::format("EN 1993-1-1 {}, with 6.2.8 shear; class {} ({})",
+                                                 section_worst.plastic ? "6.2.9.1 (6.36)-(6.41), plastic N + My + Mz"
+                                                                       : "6.2.1(7) eq. (6.2), N + My + Mz",
+                                                 section_worst.cls.section_class, section_worst.cls.governing_part),
+                                     section_worst.x, worst_section, 1.0);
+  section_check.details = {{"class", section_worst.cls.section_class},
+                           {"N_Ed", w[0]},
+                           {"My_Ed", w[1]},
+                           {"Mz_Ed", w[2]},
+                           {"N_Rd", w[3]},
+                           {"My_Rd", w[4]},
+                           {"Mz_Rd", w[5]},
+                           {"u_linear", w[6]}};
+  out.push_back(std::move(section_check));
+  if (worst_shear >= 0) {
+    CheckResult shear = result("6.2.6 shear", "EN 1993-1-1 6.2.6 eq. (6.17), plastic shear resistance",
+                               shear_worst[0], worst_shear, 1.0);
+    shear.details = {{"Vy_Ed", shear_worst[1]},
+                     {"Vz_Ed", shear_worst[2]},
+                     {"Vpl_y_Rd", shear_worst[3]},
+                     {"Vpl_z_Rd", shear_worst[4]}};
+    out.push_back(std::move(shear));
+  }
 
   // Member buckling.
   double NEd = 0;  // largest compression
