@@ -5,6 +5,7 @@
 #include "stepframe/project_reader.hpp"
 #include "stepframe/run.hpp"
 
+#include "modal_run.hpp"
 #include "sway_variants.hpp"
 
 #include <spdlog/spdlog.h>
@@ -99,6 +100,12 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   });
   detail::require_finite_results(a.results, a.project.model.string());
 
+  std::vector<analysis::CheckResult> frequency_checks;
+  if (a.project.modes.count > 0) {
+    report("natural frequencies", 0);
+    frequency_checks = detail::run_natural_frequencies(a, [&](double f) { report("natural frequencies", f); });
+  }
+
   report("checks", 0);
   const auto& spec = a.project.checks;
   const auto& model = a.built.model;
@@ -116,6 +123,7 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
                                         {spec.gamma_M0, spec.gamma_M1}, spec.en1993->ltb));
   if (spec.stability)
     add(analysis::check_frame_stability(pick(a.results, spec.stability->combinations), spec.stability->alpha_cr_min));
+  add(std::move(frequency_checks));
   detail::require_finite_checks(a.checks, a.project.model.string());
   report("checks", 1);
   return a;

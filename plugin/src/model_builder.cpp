@@ -1,5 +1,6 @@
 #include "stepframe/model_builder.hpp"
 
+#include "area_load_builder.hpp"
 #include "selector_pattern.hpp"
 #include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/counted.hpp"
@@ -645,6 +646,20 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
                                          analysis::dof_names[static_cast<std::size_t>(d)]));
           lc.settlements.push_back({node, d, *value});
         }
+    // Area loads: panels of the plane's members, their loads added as member loads (global axes).
+    std::vector<analysis::AreaLoadResult> area;
+    for (const auto& spec_area : spec.area_loads) {
+      const std::optional<CompiledSelector> where =
+          spec_area.where ? std::optional<CompiledSelector>(*spec_area.where) : std::nullopt;
+      std::vector<std::size_t> elements;
+      for (std::size_t m = 0; m < model.members.size(); ++m)
+        if (!where || where->matches(built.member_sources[m]))
+          elements.insert(elements.end(), model.members[m].elements.begin(), model.members[m].elements.end());
+      auto result = detail::build_area_load(model, spec_area, std::move(elements), tol);
+      for (const auto& l : result.loads) lc.partial_loads.push_back(l.load);
+      area.push_back(std::move(result));
+    }
+    built.area_loads.push_back(std::move(area));
     model.cases.push_back(std::move(lc));
   }
 
@@ -659,6 +674,23 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
       combination.factors.emplace_back(static_cast<std::size_t>(it - project.cases.begin()), factor);
     }
     model.combinations.push_back(std::move(combination));
+  }
+
+  // Point masses for natural frequencies, and the members each frequency check looks at.
+  built.point_masses.assign(model.nodes.size(), 0.0);
+  for (const auto& spec : project.masses)
+    for (std::size_t node : select_nodes(spec.where, model.nodes, wireframe.labels, tol)) built.point_masses[node] += spec.mass;
+  for (const auto& check : project.checks.frequency) {
+    std::vector<std::size_t> members;
+    if (check.where) {
+      const CompiledSelector where(*check.where);
+      for (std::size_t m = 0; m < model.members.size(); ++m)
+        if (where.matches(built.member_sources[m])) members.push_back(m);
+      if (members.empty())
+        throw InputError(check.where->origin.describe() +
+                         ": matches no member; check the name/layer/product patterns against `stepframe inspect`");
+    }
+    built.frequency_members.push_back(std::move(members));
   }
   return built;
 }

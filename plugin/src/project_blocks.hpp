@@ -18,4 +18,28 @@ OutputsSpec read_outputs(const Reader& r, const YAML::Node& node);
 ChecksSpec read_checks(const Reader& r, const YAML::Node& node, const std::vector<std::string>& cases,
                        const std::vector<CombinationSpec>& combinations);
 
+/// `[psi0, psi1, psi2]`, each between 0 and 1 (a case's `psi:`, a category's in `generate: {psi: ...}`).
+analysis::PsiFactors read_psi(const Reader& r, const YAML::Node& node, const std::string& path);
+
+/// A `generate:` item of the `combinations:` block (README "Generated
+/// combinations"): the combinations of EN 1990 or ASCE/SEI 7 for the cases'
+/// categories, every factor overridable.
+std::vector<CombinationSpec> read_generated_combinations(const Reader& r, const YAML::Node& node,
+                                                         const std::string& path, const std::vector<CaseSpec>& cases);
+
+/// The `masses:` block (README "Natural frequencies"): point masses on nodes.
+std::vector<PointMassSpec> read_masses(const Reader& r, const YAML::Node& node);
+
+/// `checks.frequency`: a list of natural-frequency limits.
+std::vector<FrequencyCheckSpec> read_frequency_checks(const Reader& r, const YAML::Node& node, const std::string& path);
+
+/// `cases[i].area_loads` (README "Area loads").
+std::vector<AreaLoadSpec> read_area_loads(const Reader& r, const YAML::Node& node, const std::string& path);
+
+/// The selectors of project_reader.cpp, for the block readers: members chosen by `where:`, and the
+/// nodes of an item given by `where:` or `near:` beside its other keys (`allowed`: the item's keys).
+MemberSelector member_selector(const Reader& r, const YAML::Node& where, const std::string& path);
+NodeSelector node_target(const Reader& r, const YAML::Node& item, const std::string& path, const std::string& what,
+                         const std::vector<std::string>& allowed);
+
 }  // namespace stepframe::detail

@@ -69,7 +69,7 @@ ChecksSpec read_checks(const Reader& r, const YAML::Node& node, const std::vecto
     p.stress = StressCheckSpec{defaults(false)};
     return p;
   }
-  r.check_keys(node, "checks", {"stress", "deflection", "en1993", "drift", "stability", "partial_factors"});
+  r.check_keys(node, "checks", {"stress", "deflection", "en1993", "drift", "stability", "frequency", "partial_factors"});
   auto names_for = [&](const YAML::Node& check, const std::string& path, bool sls = false) {
     return check["combinations"] ? read_name_list(r, check["combinations"], path + ".combinations", names)
                                  : defaults(sls);
@@ -101,6 +101,7 @@ ChecksSpec read_checks(const Reader& r, const YAML::Node& node, const std::vecto
     spec.combinations = names_for(st, "checks.stability");
     p.stability = spec;
   }
+  if (const auto f = node["frequency"]) p.frequency = read_frequency_checks(r, f, "checks.frequency");
   if (const auto f = node["partial_factors"]) {
     r.check_keys(f, "checks.partial_factors", {"gamma_M0", "gamma_M1"});
     if (f["gamma_M0"]) p.gamma_M0 = positive_ratio(r, f["gamma_M0"], "checks.partial_factors.gamma_M0", "1.0");

@@ -357,11 +357,23 @@ MemberLoadSpec read_member_load(const Reader& r, const YAML::Node& node, const s
 }
 
 CaseSpec read_case(const Reader& r, const YAML::Node& node, const std::string& path) {
-  r.check_keys(node, path, {"name", "self_weight", "member_loads", "node_loads", "settlements"});
+  r.check_keys(node, path,
+               {"name", "self_weight", "member_loads", "node_loads", "settlements", "area_loads", "category", "group", "psi"});
   CaseSpec c;
   c.origin = r.where(node, path);
   if (!node["name"]) r.fail(node, path, "a load case needs a name");
   c.name = r.text(node["name"], path + ".name");
+  if (const auto category = node["category"]) {
+    const auto name = r.text(category, path + ".category");
+    c.category = analysis::parse_category(name);
+    if (!c.category)
+      r.fail(category, path + ".category",
+             "'" + name + "' is not a category" + did_you_mean(name, analysis::category_names()) +
+                 " (permanent, imposed_A to imposed_H, snow, snow_high, wind, temperature, rain, accidental)");
+  }
+  if (node["group"]) c.group = r.text(node["group"], path + ".group");
+  if (node["area_loads"]) c.area_loads = detail::read_area_loads(r, node["area_loads"], path + ".area_loads");
+  if (node["psi"]) c.psi = detail::read_psi(r, node["psi"], path + ".psi");
   if (node["self_weight"]) c.self_weight = r.boolean(node["self_weight"], path + ".self_weight");
   if (const auto loads = node["member_loads"]) {
     r.expect_list(loads, path + ".member_loads");
@@ -404,7 +416,7 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
   Reader r(file);
   if (!root.IsMap()) throw InputError(file.string() + ": a project file is a YAML mapping with at least 'model:'");
   r.check_keys(root, "", {"model", "units", "merge_tolerance", "curve_max_turn", "join_crossings", "materials", "sections",
-                          "rules", "supports", "cases", "combinations", "checks", "analysis", "outputs"});
+                          "rules", "supports", "cases", "combinations", "checks", "analysis", "outputs", "masses"});
   r.units_ = read_units(r, root["units"]);
 
   Project p;
@@ -543,20 +555,39 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
   if (p.cases.empty()) r.fail(root, "cases", "the project defines no load case; add cases: [{name: G, self_weight: true}]");
   const std::vector<std::string> case_names = result_names;
 
-  if (const auto node = root["combinations"]) {
+  if (const YAML::Node given = root["combinations"]) {
+    // `combinations: {generate: {...}}` is the list of that one item (reset, not assignment: the latter
+    // would overwrite the project's own tree).
+    YAML::Node node = given;
+    if (given.IsMap() && given["generate"]) {
+      node.reset(YAML::Node(YAML::NodeType::Sequence));
+      node.push_back(given);
+    }
     r.expect_list(node, "combinations");
     if (node.size() > detail::max_results)
       r.fail(node, "combinations", fmt::format("{} combinations, more than the {} a project may have", node.size(),
                                                detail::max_results));
+    auto add = [&](CombinationSpec c, const YAML::Node& at, const std::string& key) {
+      if (std::find(result_names.begin(), result_names.end(), c.name) != result_names.end())
+        r.fail(at, key, "the name '" + c.name + "' is already used by a case or combination");
+      if (p.combinations.size() >= detail::max_results)
+        r.fail(at, key, fmt::format("more than the {} combinations a project may have", detail::max_results));
+      result_names.push_back(c.name);
+      p.combinations.push_back(std::move(c));
+    };
     for (std::size_t i = 0; i < node.size(); ++i) {
       const auto path = Reader::index("combinations", i);
+      if (node[i].IsMap() && node[i]["generate"]) {
+        r.check_keys(node[i], path, {"generate"});
+        for (auto& c : detail::read_generated_combinations(r, node[i]["generate"], path + ".generate", p.cases))
+          add(std::move(c), node[i], path + ".generate");
+        continue;
+      }
       r.check_keys(node[i], path, {"name", "factors", "kind"});
       CombinationSpec c;
       c.origin = r.where(node[i], path);
       if (!node[i]["name"]) r.fail(node[i], path, "a combination needs a name");
       c.name = r.text(node[i]["name"], path + ".name");
-      if (std::find(result_names.begin(), result_names.end(), c.name) != result_names.end())
-        r.fail(node[i]["name"], path + ".name", "the name '" + c.name + "' is already used by a case or combination");
       if (!node[i]["factors"] || !node[i]["factors"].IsMap() || node[i]["factors"].size() == 0)
         r.fail(node[i], path + ".factors", "a combination needs factors: {CASE: factor, ...}");
       for (const auto& f : node[i]["factors"]) {
@@ -576,8 +607,7 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
           r.fail(kind, path + ".kind", "expected uls (ultimate) or sls (serviceability), got '" + value + "'");
         c.serviceability = value == "sls";
       }
-      result_names.push_back(c.name);
-      p.combinations.push_back(std::move(c));
+      add(std::move(c), node[i]["name"], path + ".name");
     }
   }
 
@@ -586,7 +616,28 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
   if (const auto node = root["analysis"]) {
     r.check_keys(node, "analysis",
                  {"shear_deformation", "second_order", "buckling_modes", "sls_buckling", "sway_imperfection",
-                  "sway_amplification"});
+                  "sway_amplification", "modes", "mass_from", "mode_parts"});
+    if (node["modes"]) {
+      const double n = r.number(node["modes"], "analysis.modes", dimension::none);
+      if (!(n >= 0 && n <= 200 && n == std::floor(n)))
+        r.fail(node["modes"], "analysis.modes", "must be a whole number from 0 (no natural frequencies) to 200");
+      p.modes.count = static_cast<std::size_t>(n);
+    }
+    if (node["mode_parts"]) {
+      const double n = r.number(node["mode_parts"], "analysis.mode_parts", dimension::none);
+      if (!(n >= 1 && n <= 20 && n == std::floor(n)))
+        r.fail(node["mode_parts"], "analysis.mode_parts", "must be a whole number from 1 to 20 (4 is usual)");
+      p.modes.parts = static_cast<std::size_t>(n);
+    }
+    if (const auto from = node["mass_from"]) {
+      const auto name = r.text(from, "analysis.mass_from");
+      if (std::find(result_names.begin(), result_names.end(), name) == result_names.end())
+        r.fail(from, "analysis.mass_from",
+               "no load case or combination is named '" + name + "'" + did_you_mean(name, result_names));
+      p.modes.mass_from = name;
+    }
+    if ((node["mass_from"] || node["mode_parts"]) && p.modes.count == 0)
+      r.fail(node, "analysis", "mass_from and mode_parts belong to natural frequencies: add modes: N (e.g. 6)");
     if (node["sway_amplification"]) {
       p.sway_amplification = r.boolean(node["sway_amplification"], "analysis.sway_amplification");
       if (p.sway_amplification && node["second_order"] && r.boolean(node["second_order"], "analysis.second_order"))
@@ -616,11 +667,28 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
       p.buckling_modes = static_cast<std::size_t>(n);
     }
   }
+  p.masses = detail::read_masses(r, root["masses"]);
+  if (!p.checks.frequency.empty() && p.modes.count == 0)
+    r.fail(root["checks"]["frequency"], "checks.frequency", "frequency checks need natural frequencies: add analysis: {modes: N}");
   p.outputs = detail::read_outputs(r, root["outputs"]);
   return p;
 }
 
 }  // namespace
+
+namespace detail {
+
+MemberSelector member_selector(const Reader& r, const YAML::Node& where, const std::string& path) {
+  return read_member_selector(r, where, path);
+}
+
+NodeSelector node_target(const Reader& r, const YAML::Node& item, const std::string& path, const std::string& what,
+                         const std::vector<std::string>& allowed) {
+  check_item_keys(r, item, path, allowed, Selects::nodes);
+  return read_node_target(r, item, path, what);
+}
+
+}  // namespace detail
 
 namespace {
 

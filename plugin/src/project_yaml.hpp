@@ -96,6 +96,7 @@ class Reader {
                             : dim == dimension::area          ? "\"5380 mm2\""
                             : dim == dimension::second_moment ? "\"8.356e7 mm4\""
                             : dim == dimension::section_modulus ? "\"2.3e4 mm3\""
+                            : dim == dimension::mass          ? "\"850 kg\""
                                                               : "\"1.0\"";
     return std::string("a bare number in ") + units_.describe_bare(dim) + " or a string with its unit such as " +
            with_unit;

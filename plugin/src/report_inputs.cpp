@@ -166,7 +166,8 @@ std::string inputs_section(const Analysis& a) {
   for (const auto& c : p.combinations) {
     std::vector<std::string> terms;
     for (const auto& [name, factor] : c.factors) terms.push_back(fmt::format("{} × {}", num(factor, 3), name));
-    h += fmt::format("<li>{} = {}</li>", esc(c.name), esc(fmt::format("{}", fmt::join(terms, " + "))));
+    std::string rule = c.rule.empty() ? "" : " (" + c.rule + (c.leading.empty() ? "" : ", leading " + c.leading) + ")";
+    h += fmt::format("<li>{} = {}{}</li>", esc(c.name), esc(fmt::format("{}", fmt::join(terms, " + "))), esc(rule));
   }
   h += "</ul>\n";
 

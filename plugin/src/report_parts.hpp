@@ -50,6 +50,8 @@ std::string browser_view_section(const Analysis& analysis);
 std::string sheets_section(const Analysis& analysis);
 std::string reactions_section(const Analysis& analysis);
 std::string inputs_section(const Analysis& analysis);
+std::string modes_section(const Analysis& analysis);
+std::string area_loads_section(const Analysis& analysis);  ///< report_area_loads.cpp; empty without area loads  ///< natural frequencies (report_modes.cpp); empty without them
 
 /// RFC 4648 base64.
 std::string base64(const std::vector<std::uint8_t>& bytes);

@@ -194,6 +194,24 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
   w.end_array();
   w.newline();
 
+  // Every combination of the project with its factors; generated ones name the rule that wrote them.
+  w.key("combinations").begin_array();
+  for (const auto& c : a.project.combinations) {
+    w.newline();
+    w.begin_object();
+    w.key("name").value(c.name);
+    w.key("limit_state").value(c.serviceability ? "sls" : "uls");
+    if (c.rule.empty()) w.key("rule").null();
+    else w.key("rule").value(c.rule);
+    if (!c.leading.empty()) w.key("leading").value(c.leading);
+    w.key("factors").begin_object();
+    for (const auto& [name, factor] : c.factors) w.key(name).value(factor);
+    w.end_object();
+    w.end_object();
+  }
+  w.end_array();
+  w.newline();
+
   w.key("results").begin_array();
   for (const auto& r : a.results) {
     w.newline();
@@ -239,6 +257,88 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
     w.end_object();
   }
   w.end_array();
+  w.newline();
+
+  // Area loads: per case and entry, the panels found and the member loads made of them (global axes).
+  w.key("area_loads").begin_array();
+  {
+    std::vector<std::size_t> member_of(model.elements.size(), 0);
+    for (std::size_t m = 0; m < model.members.size(); ++m)
+      for (std::size_t e : model.members[m].elements) member_of[e] = m;
+    for (std::size_t c = 0; c < a.built.area_loads.size(); ++c)
+      for (std::size_t i = 0; i < a.built.area_loads[c].size(); ++i) {
+        const auto& area = a.built.area_loads[c][i];
+        w.newline();
+        w.begin_object();
+        w.key("case").value(a.project.cases[c].name);
+        w.key("entry").value(i);
+        w.key("area").value(area.area);
+        w.key("total_force").value(area.total_force);
+        w.key("panels").begin_array();
+        for (const auto& panel : area.panels) {
+          w.newline();
+          w.begin_object();
+          w.key("area").value(panel.area);
+          w.key("method").value(panel.method);
+          w.key("outline").begin_array();
+          for (const auto& p : panel.outline) vec3(w, p);
+          w.end_array();
+          w.end_object();
+        }
+        w.end_array();
+        w.key("member_loads").begin_array();
+        for (const auto& l : area.loads) {
+          w.newline();
+          w.begin_object();
+          w.key("member").value(member_of[l.load.element]);
+          w.key("element").value(l.load.element);
+          w.key("panel").value(l.panel);
+          w.key("from").value(l.load.a);
+          w.key("to").value(l.load.b);
+          w.key("w_start");
+          vec3(w, l.load.w_start);
+          w.key("w_end");
+          vec3(w, l.load.w_end);
+          w.end_object();
+        }
+        w.end_array();
+        w.end_object();
+      }
+  }
+  w.end_array();
+  w.newline();
+
+  // Natural frequencies (analysis.modes): null without them. Shapes are in vtk/mode_N.vtu.
+  w.key("modes");
+  if (!a.modes) {
+    w.null();
+  } else {
+    const auto& m = *a.modes;
+    w.begin_object();
+    if (a.project.modes.mass_from) w.key("mass_from").value(*a.project.modes.mass_from);
+    else w.key("mass_from").null();
+    w.key("total_mass").value(m.total_mass);
+    w.key("added_mass").value(a.added_mass);
+    w.key("moving_mass");
+    vec3(w, Eigen::Vector3d(m.moving_mass[0], m.moving_mass[1], m.moving_mass[2]));
+    w.key("parts").value(m.parts);
+    w.key("list").begin_array();
+    for (std::size_t i = 0; i < m.modes.size(); ++i) {
+      const auto& mode = m.modes[i];
+      w.newline();
+      w.begin_object();
+      w.key("number").value(i + 1);
+      w.key("frequency").value(mode.frequency);
+      w.key("period").value(1.0 / mode.frequency);
+      w.key("effective_mass");
+      vec3(w, Eigen::Vector3d(mode.effective_mass[0], mode.effective_mass[1], mode.effective_mass[2]));
+      w.key("mass_ratio");
+      vec3(w, Eigen::Vector3d(mode.mass_ratio[0], mode.mass_ratio[1], mode.mass_ratio[2]));
+      w.end_object();
+    }
+    w.end_array();
+    w.end_object();
+  }
   w.newline();
 
   w.key("diagnostics").begin_array();

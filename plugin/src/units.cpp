@@ -90,6 +90,7 @@ std::string describe(Dimension d) {
   if (d == dimension::line_load) return "force per length";
   if (d == dimension::stress) return "stress";
   if (d == dimension::density) return "density (mass per volume)";
+  if (d == dimension::mass) return "mass";
   if (d == dimension::none) return "plain number";
   return "length^" + std::to_string(d.length) + " force^" + std::to_string(d.force) + " mass^" +
          std::to_string(d.mass);
@@ -142,6 +143,7 @@ double UnitSystem::si_per_bare(Dimension d) const {
 
 std::string UnitSystem::describe_bare(Dimension d) const {
   if (d == dimension::density) return "kg/m3";
+  if (d == dimension::mass) return "kg";
   if (d == dimension::stress && stress) return stress_name;
   if (d == dimension::line_load && line_load) return line_load_name;
   std::string numerator, denominator;

@@ -136,6 +136,15 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
                          mode});
       }
     }
+    // Natural vibration modes (analysis.modes): one line model each.
+    if (analysis.modes)
+      for (std::size_t m = 0; m < analysis.modes->modes.size(); ++m) {
+        const auto& mode = analysis.modes->modes[m];
+        const std::filesystem::path file = std::filesystem::path("vtk") / (file_stem(fmt::format("natural_mode{}", m + 1), used) + ".vtu");
+        viz::write_vibration_mode_vtu(dir / file, model, mode, m + 1, outputs.compression);
+        written.push_back(file);
+        index.push_back({"natural modes", fmt::format("mode {} ({:.3g} Hz)", m + 1, mode.frequency), file});
+      }
     if (!index.empty()) text_file("frame.vtm", viz::multiblock_index(index));
     control.report("tables", 0);
     text_file("checks.csv", checks_csv(analysis));

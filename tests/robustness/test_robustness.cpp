@@ -111,6 +111,15 @@ const std::vector<Case> cases = {
     {"load 1e300 kN/m: results not finite", run, with_load("-1e300"), {}, 2,
      "not finite (NaN or infinity)"},
     {"10001 load cases refused by count", run, "<many-cases>", {}, 2, "more than the 10000"},
+    {"point mass 1e12 kg", run, with_extra("masses:\n  - {near: [6000, 0, 0], mass: 1e12}\n"), {}, 2, "at most 10000 t"},
+    {"psi factor 1.5", run,
+     base_head + base_supports + "cases:\n  - {name: G, category: permanent, self_weight: true}\n"
+                 "  - {name: W, category: wind, psi: [1.5, 0.2, 0]}\n",
+     {}, 2, "between 0 and 1"},
+    {"modes 1e9", run, with_extra("analysis: {modes: 1e9}\n"), {}, 2, "from 0 (no natural frequencies) to 200"},
+    {"area load without a unit", run,
+     base_head + base_supports + "cases:\n  - name: W\n    area_loads: [{pressure: 2.5, plane: {z: 0}}]\n", {}, 2,
+     "with its unit"},
     // Selectors
     {"(a+)+b on a long name does not hang", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {name: \"(a+)+b\"}\n    material: S355\n" +

@@ -18,6 +18,7 @@
 #include <algorithm>
 #include <cmath>
 #include <stdexcept>
+#include <tuple>
 
 namespace stepframe::viz {
 namespace {
@@ -168,9 +169,13 @@ void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameM
   detail::write_grid(file, grid, options.compression);
 }
 
-void write_mode_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
-                    const analysis::LoadResult& result, std::size_t mode, VtkCompression compression) {
-  const auto& m = result.buckling_modes.at(mode);
+namespace {
+
+// A mode shape as a line model: each element a polyline through seven evenly spaced points, point
+// data "mode_shape", and the given field data (name, value, unit).
+void write_shape_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
+                     const analysis::BucklingMode& m, const std::vector<std::tuple<std::string, double, std::string>>& fields,
+                     VtkCompression compression) {
   if (m.inner_points.size() != model.elements.size())
     throw std::invalid_argument("write_mode_vtu: mode does not belong to this model");
   constexpr vtkIdType per_element = 7;  // six parts: the mode's curve inside each element shows
@@ -200,12 +205,36 @@ void write_mode_vtu(const std::filesystem::path& file, const analysis::FrameMode
   grid->GetPointData()->AddArray(shape);
   grid->GetPointData()->SetVectors(shape);
   grid->GetCellData()->AddArray(member_id);
-  vtkNew<vtkDoubleArray> alpha;
-  alpha->SetName("alpha");
-  alpha->InsertNextValue(m.alpha);
-  grid->GetFieldData()->AddArray(alpha);
-  detail::describe(grid->GetFieldData(), {{"mode_shape", "1 (largest translation 1)"}, {"alpha", "1"}, {"points", "m"}});
+  std::vector<std::pair<std::string, std::string>> units{{"mode_shape", "1 (largest translation 1)"}, {"points", "m"}};
+  for (const auto& [name, value, unit] : fields) {
+    vtkNew<vtkDoubleArray> array;
+    array->SetName(name.c_str());
+    array->InsertNextValue(value);
+    grid->GetFieldData()->AddArray(array);
+    units.emplace_back(name, unit);
+  }
+  detail::describe(grid->GetFieldData(), units);
   detail::write_grid(file, grid, compression);
+}
+
+}  // namespace
+
+void write_mode_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
+                    const analysis::LoadResult& result, std::size_t mode, VtkCompression compression) {
+  write_shape_vtu(file, model, result.buckling_modes.at(mode), {{"alpha", result.buckling_modes.at(mode).alpha, "1"}},
+                  compression);
+}
+
+void write_vibration_mode_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
+                              const analysis::VibrationMode& mode, std::size_t number, VtkCompression compression) {
+  write_shape_vtu(file, model, mode.shape,
+                  {{"frequency", mode.frequency, "Hz"},
+                   {"period", 1.0 / mode.frequency, "s"},
+                   {"mode_number", static_cast<double>(number), "1"},
+                   {"mass_ratio_x", mode.mass_ratio[0], "1"},
+                   {"mass_ratio_y", mode.mass_ratio[1], "1"},
+                   {"mass_ratio_z", mode.mass_ratio[2], "1"}},
+                  compression);
 }
 
 }  // namespace stepframe::viz

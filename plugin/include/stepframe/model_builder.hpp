@@ -2,6 +2,7 @@
 // From a project and a wireframe to the structural model: sections, materials
 // and roll from rules and CAD attributes; supports and loads from selectors.
 
+#include "stepframe/analysis/area_loads.hpp"
 #include "stepframe/analysis/en1993.hpp"
 #include "stepframe/analysis/frame_model.hpp"
 #include "stepframe/geometry/diagnostic.hpp"
@@ -21,6 +22,11 @@ struct BuiltModel {
   /// Findings about the model as built (e.g. members near, but not within, the vertical tolerance);
   /// the run adds them to the wireframe's diagnostics.
   std::vector<geometry::Diagnostic> diagnostics;
+  std::vector<double> point_masses;  ///< per node: the project's `masses:` [kg]
+  /// Per `checks.frequency` entry: the members its `where:` selects (empty: no selector, the whole frame).
+  std::vector<std::vector<std::size_t>> frequency_members;
+  /// Per case, per `area_loads` entry: the panels found and the member loads made of it.
+  std::vector<std::vector<analysis::AreaLoadResult>> area_loads;
 };
 
 /// How the project turns the file's edges into a wireframe: merge tolerance,

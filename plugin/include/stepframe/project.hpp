@@ -2,6 +2,7 @@
 // A stepframe project: what to analyse and how, as read from a project file
 // (format: README, "Project file"). Every value is SI; the reader converts.
 
+#include "stepframe/analysis/combination_rules.hpp"
 #include "stepframe/analysis/en1993.hpp"
 #include "stepframe/analysis/material.hpp"
 #include "stepframe/analysis/section.hpp"
@@ -95,6 +96,19 @@ struct NodeLoadSpec {
   Eigen::Vector3d moment = Eigen::Vector3d::Zero();  ///< [N m]
 };
 
+/// A pressure on the panels of a plane (`cases[i].area_loads`, README "Area loads").
+struct AreaLoadSpec {
+  double pressure = 0;                              ///< [Pa]; positive along the load's direction
+  std::optional<MemberSelector> where{};            ///< the members that bound panels (default: all in the plane)
+  std::optional<double> plane_x{}, plane_y{}, plane_z{};  ///< `plane: {z: 3.5}` [m]
+  std::vector<Eigen::Vector3d> polygon{};           ///< the region's outline [m] (gives the plane too)
+  std::vector<std::vector<Eigen::Vector3d>> openings{};  ///< outlines left unloaded [m]
+  bool normal = false;       ///< `direction: normal`: along the plane's normal (else `global`: -Z)
+  bool two_way = true;       ///< `span: two_way` | `one_way`
+  Eigen::Vector3d beams_along = Eigen::Vector3d::UnitX();  ///< one-way: the beams along this carry the load
+  SourceLine origin{};
+};
+
 struct CaseSpec {
   std::string name;
   bool self_weight = false;
@@ -102,6 +116,11 @@ struct CaseSpec {
   std::vector<NodeLoadSpec> node_loads;
   std::vector<SettlementSpec> settlements{};
   SourceLine origin;
+  /// `category:` the kind of action, for generated combinations (README "Generated combinations").
+  std::optional<analysis::ActionCategory> category{};
+  std::string group{};                            ///< `group:` cases of one group are alternatives
+  std::optional<analysis::PsiFactors> psi{};      ///< `psi: [psi0, psi1, psi2]`: the case's own factors
+  std::vector<AreaLoadSpec> area_loads{};
 };
 
 struct CombinationSpec {
@@ -112,6 +131,9 @@ struct CombinationSpec {
   /// that says SLS or serviceability, or factors all at most 1, mean sls;
   /// anything else uls (see default_serviceability).
   bool serviceability = false;
+  /// Generated combinations: the rule that wrote it ("EN 1990 6.10b") and its leading case; empty when written by hand.
+  std::string rule{};
+  std::string leading{};
 };
 
 /// The limit state a combination without `kind:` is taken for: sls when its
@@ -148,12 +170,23 @@ struct StabilityCheckSpec {
   std::vector<std::string> combinations;
 };
 
+/// Natural-frequency limits (`checks.frequency`), set by the project (README "Natural frequencies"):
+/// a lowest frequency, and/or a band around a machine's running frequency that no mode may enter.
+struct FrequencyCheckSpec {
+  std::optional<MemberSelector> where;  ///< the members (floor, walkway, machine support); none: the whole frame
+  std::optional<double> min_hz;         ///< [Hz]
+  std::optional<double> running_hz;     ///< [Hz]
+  double band = 0.2;                    ///< half-width as a fraction of running_hz
+  SourceLine origin;
+};
+
 struct ChecksSpec {
   std::optional<StressCheckSpec> stress;
   std::optional<DeflectionCheckSpec> deflection;
   std::optional<En1993CheckSpec> en1993;
   std::optional<DriftCheckSpec> drift;
   std::optional<StabilityCheckSpec> stability;
+  std::vector<FrequencyCheckSpec> frequency{};
   double gamma_M0 = 1.0;  ///< EN 1993-1-1 6.1(1) NOTE 2B recommended values
   double gamma_M1 = 1.0;
 };
@@ -193,6 +226,19 @@ struct SwayImperfectionSpec {
   std::optional<double> phi;  ///< the project's own phi instead of phi_0 alpha_h alpha_m
 };
 
+/// A point mass on nodes (`masses:`): equipment, tanks; translational, in every direction.
+struct PointMassSpec {
+  NodeSelector where;
+  double mass = 0;  ///< [kg] at each node selected
+};
+
+/// Natural frequencies (`analysis.modes`, `analysis.mass_from`, `analysis.mode_parts`).
+struct ModesSpec {
+  std::size_t count = 0;                 ///< lowest modes wanted; 0: no modal analysis
+  std::optional<std::string> mass_from;  ///< a case or combination whose gravity loads become mass (by g)
+  std::size_t parts = 4;                 ///< parts every element is divided into for the modes
+};
+
 struct Project {
   std::filesystem::path file;        ///< the project file itself
   std::filesystem::path model;       ///< the STEP file, resolved against the project's folder
@@ -216,6 +262,8 @@ struct Project {
   /// analysis.sway_amplification: EN 1993-1-1 5.2.2(5), sway effects times 1 / (1 - 1/alpha_cr) in the
   /// sway variants of combinations with 3 <= alpha_cr < 10 (an alternative to second_order).
   bool sway_amplification = false;
+  ModesSpec modes;                    ///< analysis.modes, analysis.mass_from, analysis.mode_parts
+  std::vector<PointMassSpec> masses;  ///< masses:
   OutputsSpec outputs;
 };
 

@@ -2,6 +2,7 @@
 // Running a project end to end: read, build, solve, check, write.
 
 #include "stepframe/analysis/checks.hpp"
+#include "stepframe/analysis/natural_frequencies.hpp"
 #include "stepframe/analysis/results.hpp"
 #include "stepframe/analysis/sway_imperfection.hpp"
 #include "stepframe/errors.hpp"
@@ -51,6 +52,9 @@ struct Analysis {
   std::vector<analysis::CheckResult> checks;
   /// Sway imperfections applied (analysis.sway_imperfection), per ultimate combination and direction.
   std::vector<SwayImperfectionRecord> sway_imperfections;
+  /// Natural frequencies (analysis.modes), with the added mass they include; empty without modes.
+  std::optional<analysis::ModalResult> modes;
+  double added_mass = 0;  ///< [kg] from analysis.mass_from and masses: together
 
   ExitStatus status() const;  ///< pass or check_failed
 };

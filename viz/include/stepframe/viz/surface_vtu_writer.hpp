@@ -4,6 +4,7 @@
 // flange tip shows; and buckling modes as line models.
 
 #include "stepframe/analysis/frame_model.hpp"
+#include "stepframe/analysis/natural_frequencies.hpp"
 #include "stepframe/analysis/results.hpp"
 #include "stepframe/viz/vtk_compression.hpp"
 
@@ -43,5 +44,12 @@ void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameM
 void write_mode_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
                     const analysis::LoadResult& result, std::size_t mode,
                     VtkCompression compression = VtkCompression::lz4);
+
+/// Writes a natural vibration mode (numbered from 1) as a line model like
+/// write_mode_vtu: point data "mode_shape" (largest translation 1), field data
+/// "frequency" [Hz], "period" [s], "mode_number", "mass_ratio_x/y/z".
+void write_vibration_mode_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
+                              const analysis::VibrationMode& mode, std::size_t number,
+                              VtkCompression compression = VtkCompression::lz4);
 
 }  // namespace stepframe::viz
