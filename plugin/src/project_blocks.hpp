@@ -18,4 +18,12 @@ OutputsSpec read_outputs(const Reader& r, const YAML::Node& node);
 ChecksSpec read_checks(const Reader& r, const YAML::Node& node, const std::vector<std::string>& cases,
                        const std::vector<CombinationSpec>& combinations);
 
+/// The `fabrication:` block (README "Shop data and fabrication checks"); camber.load must name one of
+/// `results` (cases and combinations).
+FabricationSpec read_fabrication(const Reader& r, const YAML::Node& node, const std::vector<std::string>& results);
+
+/// The `suggest:` block (README "Suggesting sections"): every item of sections: must name a catalogue
+/// family or section.
+SuggestSpec read_suggest(const Reader& r, const YAML::Node& node);
+
 }  // namespace stepframe::detail

@@ -37,6 +37,7 @@ PeopleUnit people_unit(const std::string& si_unit) {
   if (si_unit == "m") return {"mm", 1e3};
   if (si_unit == "N") return {"kN", 1e-3};
   if (si_unit == "N*m") return {"kN*m", 1e-3};
+  if (si_unit == "kg") return {"kg", 1.0};
   return {"", 1.0};  // a ratio
 }
 

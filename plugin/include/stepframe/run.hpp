@@ -9,6 +9,7 @@
 #include "stepframe/model_builder.hpp"
 #include "stepframe/project.hpp"
 #include "stepframe/run_control.hpp"
+#include "stepframe/shop_data.hpp"
 
 #include <nlohmann/json.hpp>
 
@@ -51,6 +52,7 @@ struct Analysis {
   std::vector<analysis::CheckResult> checks;
   /// Sway imperfections applied (analysis.sway_imperfection), per ultimate combination and direction.
   std::vector<SwayImperfectionRecord> sway_imperfections;
+  ShopData shop;  ///< piece marks and precamber (shop_data.hpp)
 
   ExitStatus status() const;  ///< pass or check_failed
 };
