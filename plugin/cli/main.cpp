@@ -177,8 +177,8 @@ int main(int argc, char** argv) {
 
   auto* run = app.add_subcommand(
       "run", "Analyse a project. Writes results.json, report.html, checks.csv, takeoff.csv, takeoff_by_section.csv, "
-             "reactions.csv, end_forces.csv, frame.vtm and vtk/*.vtu into the output folder (also when checks fail; "
-             "nothing on bad input), and a summary on stdout");
+             "reactions.csv, end_forces.csv, cutlist.csv, connections.csv, frame.vtm and vtk/*.vtu into the output "
+             "folder (also when checks fail; nothing on bad input), and a summary on stdout");
   run->footer(exit_statuses);
   std::filesystem::path project, out;
   bool run_json = false;
