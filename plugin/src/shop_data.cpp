@@ -3,6 +3,7 @@
 #include "stepframe/shop_data.hpp"
 
 #include "stepframe/analysis/lifting.hpp"
+#include "table_helpers.hpp"
 #include "stepframe/analysis/local_axes.hpp"
 
 #include <fmt/format.h>
@@ -16,13 +17,6 @@
 
 namespace stepframe {
 namespace {
-
-double member_length(const analysis::FrameModel& model, const analysis::Member& member) {
-  double length = 0;
-  for (std::size_t e : member.elements)
-    length += (model.nodes[model.elements[e].nodes[1]] - model.nodes[model.elements[e].nodes[0]]).norm();
-  return length;
-}
 
 const Eigen::Vector3d& member_start(const analysis::FrameModel& model, const analysis::Member& member) {
   return model.nodes[model.elements[member.elements.front()].nodes[0]];
@@ -75,7 +69,7 @@ ShopData shop_data(const Project& project, const BuiltModel& built, const std::v
     if (releases[1] < releases[0]) std::swap(releases[0], releases[1]);  // the same piece turned end for end
     pieces.push_back({kind_letter(member_start(model, member), member_end(model, member)),
                       model.sections[first.section].designation, model.materials[first.material].name, releases,
-                      shop.camber[m], member_length(model, member), m});
+                      shop.camber[m], detail::member_length(model, m), m});
   }
   auto key = [](const Piece& p) { return std::tie(p.letter, p.section, p.material, p.releases, p.camber); };
   std::sort(pieces.begin(), pieces.end(), [&](const Piece& a, const Piece& b) {
@@ -114,7 +108,7 @@ std::vector<analysis::CheckResult> fabrication_checks(const Project& project, co
   for (std::size_t m = 0; m < model.members.size(); ++m) {
     const auto& first = model.elements[model.members[m].elements.front()];
     const auto& section = model.sections[first.section];
-    const double length = member_length(model, model.members[m]);
+    const double length = detail::member_length(model, m);
     const double mass = section.A * model.materials[first.material].density * length;  // kg = A rho L
     if (fab.max_length) limit_check(m, "handling length", length, *fab.max_length, "m");
     if (fab.max_mass) limit_check(m, "handling mass", mass, *fab.max_mass, "kg");

@@ -2,6 +2,8 @@
 
 #include "stepframe/tables.hpp"
 
+#include "table_helpers.hpp"
+
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -11,19 +13,8 @@
 namespace stepframe {
 namespace {
 
-std::string csv_field(const std::string& text) {
-  if (text.find_first_of(",\"\n") == std::string::npos) return text;
-  std::string out = "\"";
-  for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
-  return out + "\"";
-}
-
-double member_length(const analysis::FrameModel& model, std::size_t m) {
-  double length = 0;
-  for (std::size_t e : model.members[m].elements)
-    length += (model.nodes[model.elements[e].nodes[1]] - model.nodes[model.elements[e].nodes[0]]).norm();
-  return length;
-}
+using detail::csv_field;
+using detail::member_length;
 
 std::string mark_of(const Analysis& a, std::size_t m) { return m < a.shop.marks.size() ? a.shop.marks[m] : ""; }
 double camber_of(const Analysis& a, std::size_t m) { return m < a.shop.camber.size() ? a.shop.camber[m] : 0.0; }
