@@ -1,6 +1,8 @@
 // The stepframe command line: data on stdout, logs on stderr.
 
 #include "batch_command.hpp"
+#include "compare_command.hpp"
+#include "suggest_command.hpp"
 #include "init_command.hpp"
 #include "progress_display.hpp"
 #include "sections_command.hpp"
@@ -13,6 +15,7 @@
 #include <spdlog/sinks/stdout_color_sinks.h>
 #include <spdlog/spdlog.h>
 
+#include <algorithm>
 #include <atomic>
 #include <csignal>
 #include <cstdlib>
@@ -67,7 +70,19 @@ void print_timings(stepframe::cli::ProgressDisplay& display) {
 }
 
 int run_command(const std::filesystem::path& project, const std::filesystem::path& out, bool json, bool show_progress,
-                bool timings, std::optional<stepframe::VtkSelection> vtk) {
+                bool timings, std::optional<stepframe::VtkSelection> vtk, const std::filesystem::path& baseline_path,
+                double max_increase, bool suggest) {
+  // The baseline is read first: a bad one stops the run before anything is written, and a baseline that
+  // is the output folder itself (the previous run) is read before the run replaces it.
+  std::optional<stepframe::Revision> baseline;
+  if (!baseline_path.empty()) {
+    try {
+      baseline = stepframe::read_revision(baseline_path);
+    } catch (const stepframe::InputError& e) {
+      spdlog::error("--baseline {}", e.what());
+      return static_cast<int>(stepframe::ExitStatus::bad_input);
+    }
+  }
   stepframe::cli::ProgressDisplay display(show_progress);
   stepframe::RunControl control;
   control.progress = display.callback();
@@ -95,6 +110,17 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   } else {
     std::cout << stepframe::summary_text(*outcome.analysis);
     std::cout << "\nresults: " << (outcome.files.empty() ? std::string("(none)") : outcome.files.back().parent_path().string()) << "\n";
+  }
+  const auto run_out = out.empty() ? stepframe::default_out_dir(project) : out;
+  // The suggestion is advice: it leaves the run's status alone unless it could not be made.
+  if (suggest) {
+    const int made = stepframe::cli::suggest_after_run(*outcome.analysis, run_out, !json);
+    if (made != 0) return made;
+  }
+  if (baseline) {
+    const int gate = stepframe::cli::compare_with_baseline(
+        *baseline, {project.string(), stepframe::results_json(*outcome.analysis)}, run_out, max_increase, !json);
+    return std::max(status, gate);
   }
   return status;
 }
@@ -151,8 +177,8 @@ int main(int argc, char** argv) {
 
   auto* run = app.add_subcommand(
       "run", "Analyse a project. Writes results.json, report.html, checks.csv, takeoff.csv, takeoff_by_section.csv, "
-             "reactions.csv, end_forces.csv, frame.vtm and vtk/*.vtu into the output folder (also when checks fail; "
-             "nothing on bad input), and a summary on stdout");
+             "reactions.csv, end_forces.csv, cutlist.csv, connections.csv, frame.vtm and vtk/*.vtu into the output "
+             "folder (also when checks fail; nothing on bad input), and a summary on stdout");
   run->footer(exit_statuses);
   std::filesystem::path project, out;
   bool run_json = false;
@@ -171,6 +197,13 @@ int main(int argc, char** argv) {
                   "VTK files for every result (all), for the governing combinations (governing) or none, "
                   "whatever the project's outputs: block says")
       ->transform(CLI::CheckedTransformer(vtk_choices, CLI::ignore_case));
+
+  std::filesystem::path run_baseline;
+  double run_max_increase = stepframe::CompareOptions{}.max_increase;
+  stepframe::cli::add_baseline_options(*run, run_baseline, run_max_increase);
+  bool run_suggest = false;
+  run->add_flag("--suggest", run_suggest,
+                "Also suggest sections for failing members (as `stepframe suggest`) into <out>/suggest/");
 
   auto* inspect = app.add_subcommand("inspect", "Show what a STEP file holds: unit, extent, attributes, diagnostics; "
                                                 "through a project file also each member's section and material, the "
@@ -202,6 +235,12 @@ int main(int argc, char** argv) {
   stepframe::cli::BatchCommandOptions batch_options;
   auto* batch = stepframe::cli::add_batch_command(app, batch_options);
 
+  stepframe::cli::CompareCommandOptions compare_options;
+  auto* compare = stepframe::cli::add_compare_command(app, compare_options);
+
+  stepframe::cli::SuggestCommandOptions suggest_options;
+  auto* suggest = stepframe::cli::add_suggest_command(app, suggest_options);
+
   stepframe::cli::SectionsOptions sections_options;
   auto* sections = stepframe::cli::add_sections_command(app, sections_options);
 
@@ -214,7 +253,11 @@ int main(int argc, char** argv) {
   spdlog::set_level(quiet ? spdlog::level::warn : verbose ? spdlog::level::debug : spdlog::level::info);
 
   try {
-    if (*run) return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk);
+    if (*run)
+      return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk, run_baseline,
+                         run_max_increase, run_suggest);
+    if (*compare) return stepframe::cli::compare_command(compare_options);
+    if (*suggest) return stepframe::cli::suggest_command(suggest_options);
     if (*sections) return stepframe::cli::sections_command(sections_options);
     if (*batch) return stepframe::cli::batch_command(batch_options, terminal && !quiet);
     if (*init) return stepframe::cli::init_command(init_model, init_output, init_force, init_tolerance_mm);

@@ -124,6 +124,8 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   if (spec.stability)
     add(analysis::check_frame_stability(pick(a.results, spec.stability->combinations), spec.stability->alpha_cr_min));
   add(std::move(frequency_checks));
+  add(fabrication_checks(a.project, a.built));
+  a.shop = shop_data(a.project, a.built, a.results);
   detail::require_finite_checks(a.checks, a.project.model.string());
   report("checks", 1);
   return a;

@@ -7,6 +7,7 @@
 
 #include <fmt/format.h>
 
+#include <array>
 #include <cmath>
 #include <cstddef>
 #include <functional>
@@ -69,6 +70,12 @@ class JsonWriter {
   void numbers(const Range& values) {
     begin_array();
     for (const auto& v : values) value(static_cast<double>(v));
+    end_array();
+  }
+  template <std::size_t N>
+  void bools(const std::array<bool, N>& values) {
+    begin_array();
+    for (bool v : values) value(v);
     end_array();
   }
   void strings(const std::vector<std::string>& values) {

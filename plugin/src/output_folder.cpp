@@ -125,7 +125,8 @@ StagingFolder::StagingFolder(const fs::path& out_dir) : out_dir_(normalised(out_
   if (fs::exists(status)) {
     if (!fs::is_directory(status))
       throw InputError(out_dir_.string() + ": exists and is not a folder; give a new or an earlier results folder as --out");
-    if (!fs::is_empty(out_dir_, ec) && !fs::exists(out_dir_ / "results.json"))
+    if (!fs::is_empty(out_dir_, ec) && !fs::exists(out_dir_ / "results.json") && !fs::exists(out_dir_ / "compare.json") &&
+        !fs::exists(out_dir_ / "suggest.json"))
       throw InputError(out_dir_.string() +
                        ": the output folder holds files that are not stepframe results (no results.json), and a run "
                        "replaces the whole folder; choose a new or empty folder for --out");

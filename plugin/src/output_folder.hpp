@@ -43,7 +43,7 @@ class OutputFolderLock {
 /// otherwise. Create it only while holding the folder's OutputFolderLock: it
 /// first removes the staging folders that killed runs left behind. An existing
 /// `out_dir` must be a folder that is empty or holds earlier results
-/// (results.json); anything else is refused with InputError, so a mistyped
+/// (results.json, or compare.json / suggest.json of `compare` / `suggest`); anything else is refused with InputError, so a mistyped
 /// --out never deletes someone's files.
 class StagingFolder {
  public:

@@ -42,4 +42,12 @@ MemberSelector member_selector(const Reader& r, const YAML::Node& where, const s
 NodeSelector node_target(const Reader& r, const YAML::Node& item, const std::string& path, const std::string& what,
                          const std::vector<std::string>& allowed);
 
+/// The `fabrication:` block (README "Shop data and fabrication checks"); camber.load must name one of
+/// `results` (cases and combinations).
+FabricationSpec read_fabrication(const Reader& r, const YAML::Node& node, const std::vector<std::string>& results);
+
+/// The `suggest:` block (README "Suggesting sections"): every item of sections: must name a catalogue
+/// family or section.
+SuggestSpec read_suggest(const Reader& r, const YAML::Node& node);
+
 }  // namespace stepframe::detail

@@ -416,7 +416,8 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
   Reader r(file);
   if (!root.IsMap()) throw InputError(file.string() + ": a project file is a YAML mapping with at least 'model:'");
   r.check_keys(root, "", {"model", "units", "merge_tolerance", "curve_max_turn", "join_crossings", "materials", "sections",
-                          "rules", "supports", "cases", "combinations", "checks", "analysis", "outputs", "masses"});
+                          "rules", "supports", "cases", "combinations", "checks", "analysis", "outputs", "masses",
+                          "fabrication", "suggest"});
   r.units_ = read_units(r, root["units"]);
 
   Project p;
@@ -671,6 +672,8 @@ Project read_project_root(const YAML::Node& root, const std::filesystem::path& f
   if (!p.checks.frequency.empty() && p.modes.count == 0)
     r.fail(root["checks"]["frequency"], "checks.frequency", "frequency checks need natural frequencies: add analysis: {modes: N}");
   p.outputs = detail::read_outputs(r, root["outputs"]);
+  p.fabrication = detail::read_fabrication(r, root["fabrication"], result_names);
+  p.suggest = detail::read_suggest(r, root["suggest"]);
   return p;
 }
 

@@ -175,6 +175,7 @@ std::string report_html(const Analysis& a) {
   h += report::reactions_section(a);
   h += report::modes_section(a);
   h += report::area_loads_section(a);
+  h += report::shop_section(a);
   h += diagnostics(a);
   h += report::inputs_section(a);
   h += "<p class=\"caution\">" + esc(std::string(caution)) + "</p>\n</body></html>\n";

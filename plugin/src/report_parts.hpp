@@ -49,6 +49,8 @@ std::string pictures_section(const Analysis& analysis);
 std::string browser_view_section(const Analysis& analysis);
 std::string sheets_section(const Analysis& analysis);
 std::string reactions_section(const Analysis& analysis);
+/// Piece marks with their counts and the recommended precamber (report_shop.cpp).
+std::string shop_section(const Analysis& analysis);
 std::string inputs_section(const Analysis& analysis);
 std::string modes_section(const Analysis& analysis);
 std::string area_loads_section(const Analysis& analysis);  ///< report_area_loads.cpp; empty without area loads  ///< natural frequencies (report_modes.cpp); empty without them

@@ -5,6 +5,7 @@
 #include "stepframe/run.hpp"
 
 #include "json_shapes.hpp"
+#include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/analysis/member_line.hpp"
 
 
@@ -187,6 +188,20 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
     w.key("section").value(model.sections[first.section].designation);
     w.key("material").value(model.materials[first.material].name);
     w.key("length").value(length);
+    // Mass = A rho L [kg]; local z of the first element (global components, the section's orientation);
+    // releases of the member's ends (ux uy uz rx ry rz, local axes): what `compare` tells apart.
+    const auto& last = model.elements[chain.back()];
+    w.key("mass").value(model.sections[first.section].A * model.materials[first.material].density * length);
+    w.key("z_axis");
+    vec3(w, analysis::local_axes(model.nodes[first.nodes[0]], model.nodes[first.nodes[1]], first.roll).row(2).transpose());
+    w.key("releases").begin_object();
+    w.key("start").bools(first.releases[0]);
+    w.key("end").bools(last.releases[1]);
+    w.end_object();
+    if (i < a.shop.marks.size()) {
+      w.key("mark").value(a.shop.marks[i]);
+      w.key("camber").value(a.shop.camber[i]);
+    }
     w.key("source");
     source(w, a.built.member_sources[i]);
     w.end_object();
@@ -207,6 +222,18 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
     w.key("factors").begin_object();
     for (const auto& [name, factor] : c.factors) w.key(name).value(factor);
     w.end_object();
+    w.end_object();
+  }
+  w.end_array();
+  w.newline();
+
+  w.key("supports").begin_array();
+  for (const auto& s : model.supports) {
+    w.newline();
+    w.begin_object();
+    w.key("node").value(s.node);
+    w.key("fixed").bools(s.fixed);
+    w.key("spring").numbers(s.spring);
     w.end_object();
   }
   w.end_array();

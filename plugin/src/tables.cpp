@@ -1,5 +1,7 @@
 #include "stepframe/tables.hpp"
 
+#include "table_helpers.hpp"
+
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -9,25 +11,11 @@
 namespace stepframe {
 namespace {
 
-// RFC 4180 quoting for text fields.
-std::string csv_field(const std::string& text) {
-  if (text.find_first_of(",\"\n") == std::string::npos) return text;
-  std::string out = "\"";
-  for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
-  return out + "\"";
-}
+using detail::csv_field;
+using detail::member_length;
 
 const analysis::FrameElement& first_element(const analysis::FrameModel& model, std::size_t member) {
   return model.elements[model.members[member].elements.front()];
-}
-
-double member_length(const analysis::FrameModel& model, std::size_t member) {
-  double length = 0;
-  for (std::size_t e : model.members[member].elements) {
-    const auto& el = model.elements[e];
-    length += (model.nodes[el.nodes[1]] - model.nodes[el.nodes[0]]).norm();
-  }
-  return length;
 }
 
 }  // namespace
@@ -37,6 +25,7 @@ PeopleUnit people_unit(const std::string& si_unit) {
   if (si_unit == "m") return {"mm", 1e3};
   if (si_unit == "N") return {"kN", 1e-3};
   if (si_unit == "N*m") return {"kN*m", 1e-3};
+  if (si_unit == "kg") return {"kg", 1.0};
   return {"", 1.0};  // a ratio
 }
 

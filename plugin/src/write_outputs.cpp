@@ -114,7 +114,7 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
       const std::filesystem::path surface = std::filesystem::path("vtk") / (stem + ".surface.vtu");
       if (wanted(outputs.line_models, i)) {
         viz::write_line_model_vtu(dir / line, model, result, utilisation,
-                                  {outputs.line_model_points, outputs.compression});
+                                  {outputs.line_model_points, outputs.compression, analysis.shop.marks});
         written.push_back(line);
         index.push_back({"line model", result.name, line});
       }
@@ -152,6 +152,8 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
     text_file("takeoff_by_section.csv", takeoff_by_section_csv(analysis));
     text_file("reactions.csv", reactions_csv(analysis));
     text_file("end_forces.csv", end_forces_csv(analysis));
+    text_file("cutlist.csv", cutlist_csv(analysis));
+    text_file("connections.csv", connections_csv(analysis));
     control.report("results.json", 0);
     {
       std::ofstream out(dir / "results.json", std::ios::binary);

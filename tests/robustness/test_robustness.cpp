@@ -133,6 +133,16 @@ const std::vector<Case> cases = {
     {"--tolerance -1", "inspect {S} --tolerance -1", "", {}, 2, "merge tolerance"},
     {"--tolerance nan", "inspect {S} --tolerance nan", "", {}, 2, "merge tolerance"},
     {"--tolerance 1e9", "inspect {S} --tolerance 1e9", "", {}, 2, "at most 1000"},
+    // Revisions, fabrication, suggestions
+    {"compare: a side that is not there", "compare {P} {D}/absent --out {D}/cmp", "", {}, 2, "absent: not found"},
+    {"compare: a side that is not results.json", "compare {P} {S} --out {D}/cmp", "", {}, 2, "not valid JSON"},
+    {"run --baseline that is not there", "run {P} --out {D}/out --baseline {D}/absent", "", {}, 2, "--baseline"},
+    {"fabrication: camber of an unknown case", run, with_extra("fabrication:\n  camber: {load: DEAD}\n"), {}, 2,
+     "fabrication.camber.load"},
+    {"fabrication: lifting points out of order", run,
+     with_extra("fabrication:\n  lifting: {points: [0.8, 0.2]}\n"), {}, 2, "0 <= a < b <= 1"},
+    {"suggest: a section list naming nothing", "suggest {P} --out {D}/sug", with_extra("suggest:\n  sections: [XYZ]\n"),
+     {}, 2, "neither a catalogue family"},
     // Output folder
     {"output folder holding other files", "run {P} --out {D}/notes", "<notes>", {}, 2, "not stepframe results"},
     {"output folder that cannot be made", "run {P} --out /sys/stepframe-robustness", "", {}, 2, "not writable"},

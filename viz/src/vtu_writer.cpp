@@ -109,6 +109,13 @@ void write_line_model_vtu(const std::filesystem::path& file, const analysis::Fra
   grid->GetCellData()->AddArray(member_id);
   grid->GetCellData()->AddArray(section_id);
   grid->GetCellData()->AddArray(section);
+  if (options.marks.size() == chains.size()) {
+    vtkNew<vtkStringArray> mark;
+    mark->SetName("mark");
+    mark->SetNumberOfValues(cells);
+    for (std::size_t m = 0; m < chains.size(); ++m) mark->SetValue(static_cast<vtkIdType>(m), options.marks[m]);
+    grid->GetCellData()->AddArray(mark);
+  }
   detail::describe(grid->GetFieldData(), {{"displacement", "m"}, {"von_mises", "Pa"}, {"N", "N (tension > 0)"},
                                           {"Vy", "N"}, {"Vz", "N"}, {"T", "N*m"}, {"My", "N*m"}, {"Mz", "N*m"},
                                           {"stress", "Pa"}, {"normal_stress", "Pa"}, {"utilisation", "1"},

@@ -239,6 +239,39 @@ struct ModesSpec {
   std::size_t parts = 4;                 ///< parts every element is divided into for the modes
 };
 
+/// Precamber of beams (`fabrication.camber`): members that are not vertical and whose local deflection
+/// under `load` (a case or combination of the permanent loads) exceeds `threshold` get a recommended
+/// precamber: that deflection rounded down to the shop's `increment` (common practice).
+struct CamberSpec {
+  std::string load;
+  double threshold = 0.010;  ///< [m]
+  double increment = 0.005;  ///< [m]
+  SourceLine origin;
+};
+
+/// The lifting check (`fabrication.lifting`) of members longer than `min_length`.
+struct LiftingSpec {
+  double min_length = 0;                   ///< [m]
+  std::array<double, 2> points{0.2, 0.8};  ///< sling positions as fractions of the length
+  double dynamic_factor = 1.25;            ///< on the self weight (common practice, from memory)
+};
+
+/// The `fabrication:` block: identical pieces, handling limits, camber, lifting.
+struct FabricationSpec {
+  double mark_tolerance = 0.002;      ///< [m] pieces whose lengths differ by at most this share a mark
+  std::optional<double> max_length;   ///< [m] the longest piece the shop and transport take
+  std::optional<double> max_mass;     ///< [kg] the heaviest
+  std::optional<CamberSpec> camber;
+  std::optional<LiftingSpec> lifting;
+};
+
+/// The `suggest:` block: what `stepframe suggest` may choose from (section_upsizing.hpp).
+struct SuggestSpec {
+  /// Families ("IPE") or designations ("HEB 240") the suggestions may use; empty: each member's own family.
+  std::vector<std::string> sections;
+  std::optional<double> lighten_below;  ///< also lighten groups used below this utilisation
+};
+
 struct Project {
   std::filesystem::path file;        ///< the project file itself
   std::filesystem::path model;       ///< the STEP file, resolved against the project's folder
@@ -265,6 +298,8 @@ struct Project {
   ModesSpec modes;                    ///< analysis.modes, analysis.mass_from, analysis.mode_parts
   std::vector<PointMassSpec> masses;  ///< masses:
   OutputsSpec outputs;
+  FabricationSpec fabrication;  ///< fabrication: (README "Shop data and fabrication checks")
+  SuggestSpec suggest;          ///< suggest: (README "Suggesting sections")
 };
 
 }  // namespace stepframe

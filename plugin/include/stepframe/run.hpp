@@ -10,6 +10,7 @@
 #include "stepframe/model_builder.hpp"
 #include "stepframe/project.hpp"
 #include "stepframe/run_control.hpp"
+#include "stepframe/shop_data.hpp"
 
 #include <nlohmann/json.hpp>
 
@@ -55,6 +56,7 @@ struct Analysis {
   /// Natural frequencies (analysis.modes), with the added mass they include; empty without modes.
   std::optional<analysis::ModalResult> modes;
   double added_mass = 0;  ///< [kg] from analysis.mass_from and masses: together
+  ShopData shop;  ///< piece marks and precamber (shop_data.hpp)
 
   ExitStatus status() const;  ///< pass or check_failed
 };

@@ -39,4 +39,15 @@ std::string reactions_csv(const Analysis& analysis);
 /// Vz, T, My, Mz with the governing combination: connection design forces.
 std::string end_forces_csv(const Analysis& analysis);
 
+/// cutlist.csv (shop_tables.cpp): one row per piece mark (shop_data.hpp): section, material,
+/// centreline length (the longest of the mark; connection allowances are the detailer's), count, mass
+/// per metre, each and in all, recommended precamber, and the members; sorted by section and length,
+/// then the total.
+std::string cutlist_csv(const Analysis& analysis);
+
+/// connections.csv (shop_tables.cpp): per node where member ends meet, one row per member end with
+/// the largest and smallest of N, Vy, Vz, T, My, Mz over the combinations (over the cases when there
+/// are none) and the combination that gives each: the forces each connection is designed for.
+std::string connections_csv(const Analysis& analysis);
+
 }  // namespace stepframe

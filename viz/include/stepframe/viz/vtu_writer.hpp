@@ -8,6 +8,7 @@
 
 #include <cstddef>
 #include <filesystem>
+#include <string>
 #include <vector>
 
 namespace stepframe::viz {
@@ -18,6 +19,8 @@ struct LineModelOptions {
   /// interpolated by the viewer (results.json has the exact extremes).
   std::size_t points_per_element = 11;
   VtkCompression compression = VtkCompression::lz4;
+  /// Per member: its piece mark, written as the cell array "mark" (none when empty).
+  std::vector<std::string> marks{};
 };
 
 /// Writes `result` for `model` to `file` (binary, compressed appended data;
@@ -32,7 +35,7 @@ struct LineModelOptions {
 ///             (largest |sigma| [Pa]), "utilisation" (when given) and
 ///             "utilisation_colour" (its colour on stepframe's scale as sRGB
 ///             bytes: shown as they are, the report's colours), "member_id",
-///             "section_id", "section" (designation).
+///             "section_id", "section" (designation), "mark" (piece mark, when given).
 /// Writes exactly `file`; callers that need atomic output pass a temporary
 /// name and rename it. Throws std::runtime_error naming the file on failure.
 void write_line_model_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,

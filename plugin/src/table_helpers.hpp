@@ -1,0 +1,29 @@
+#pragma once
+// Helpers the plain-text tables share (tables.cpp, shop_tables.cpp, shop_data.cpp).
+
+#include "stepframe/analysis/frame_model.hpp"
+
+#include <cstddef>
+#include <string>
+
+namespace stepframe::detail {
+
+/// RFC 4180 quoting for text fields.
+inline std::string csv_field(const std::string& text) {
+  if (text.find_first_of(",\"\n") == std::string::npos) return text;
+  std::string out = "\"";
+  for (char c : text) out += c == '"' ? std::string("\"\"") : std::string(1, c);
+  return out + "\"";
+}
+
+/// A member's length along its elements [m].
+inline double member_length(const analysis::FrameModel& model, std::size_t member) {
+  double length = 0;
+  for (std::size_t e : model.members[member].elements) {
+    const auto& el = model.elements[e];
+    length += (model.nodes[el.nodes[1]] - model.nodes[el.nodes[0]]).norm();
+  }
+  return length;
+}
+
+}  // namespace stepframe::detail
