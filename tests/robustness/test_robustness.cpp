@@ -111,6 +111,8 @@ const std::vector<Case> cases = {
     {"load 1e300 kN/m: results not finite", run, with_load("-1e300"), {}, 2,
      "not finite (NaN or infinity)"},
     {"10001 load cases refused by count", run, "<many-cases>", {}, 2, "more than the 10000"},
+    {"checks.aisc360.method not LRFD or ASD", run, with_extra("checks:\n  aisc360: {method: LSD}\n"), {}, 2,
+     "expected LRFD"},
     // Selectors
     {"(a+)+b on a long name does not hang", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {name: \"(a+)+b\"}\n    material: S355\n" +

@@ -2,6 +2,7 @@
 // A stepframe project: what to analyse and how, as read from a project file
 // (format: README, "Project file"). Every value is SI; the reader converts.
 
+#include "stepframe/analysis/aisc360.hpp"
 #include "stepframe/analysis/en1993.hpp"
 #include "stepframe/analysis/material.hpp"
 #include "stepframe/analysis/section.hpp"
@@ -136,6 +137,13 @@ struct En1993CheckSpec {
   analysis::en1993::LateralTorsionalOptions ltb{};
 };
 
+/// ANSI/AISC 360-16 member checks (chapters D to H, effective length method):
+/// `checks: {aisc360: {method: LRFD | ASD, combinations: [...]}}`.
+struct Aisc360CheckSpec {
+  std::vector<std::string> combinations;
+  analysis::aisc360::Method method = analysis::aisc360::Method::lrfd;
+};
+
 /// Storey drift: relative horizontal displacement of the ends of each vertical member <= h / ratio.
 struct DriftCheckSpec {
   double storey_ratio = 300;
@@ -152,6 +160,7 @@ struct ChecksSpec {
   std::optional<StressCheckSpec> stress;
   std::optional<DeflectionCheckSpec> deflection;
   std::optional<En1993CheckSpec> en1993;
+  std::optional<Aisc360CheckSpec> aisc360;
   std::optional<DriftCheckSpec> drift;
   std::optional<StabilityCheckSpec> stability;
   double gamma_M0 = 1.0;  ///< EN 1993-1-1 6.1(1) NOTE 2B recommended values
