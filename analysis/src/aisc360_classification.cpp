@@ -100,6 +100,12 @@ std::vector<Element> elements(const Section& s, double E, double Fy) {
   return out;
 }
 
+const Element* find_element(const std::vector<Element>& els, const std::string& name) {
+  for (const auto& e : els)
+    if (e.name == name) return &e;
+  return nullptr;
+}
+
 bool slender_in_compression(const std::vector<Element>& elements) {
   return std::any_of(elements.begin(), elements.end(), [](const Element& e) { return e.ratio > e.lambda_r_a; });
 }

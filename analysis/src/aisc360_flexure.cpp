@@ -16,12 +16,6 @@ namespace {
 
 constexpr double pi = std::numbers::pi;
 
-const Element* element(const std::vector<Element>& els, const std::string& name) {
-  for (const auto& e : els)
-    if (e.name == name) return &e;
-  return nullptr;
-}
-
 /// The element of that name with the largest ratio (the flange of a mono-symmetric I, the longer angle leg).
 const Element* worst(const std::vector<Element>& els, const std::string& name) {
   const Element* w = nullptr;
@@ -168,11 +162,11 @@ Strength major_flexure(const Section& s, const Material& m, double Lb, double Cb
     case SectionShape::rolled_i:
     case SectionShape::welded_i:
     case SectionShape::channel: {
-      const Element *web = element(els, "web"), *flange = worst(els, "flange");
+      const Element *web = find_element(els, "web"), *flange = worst(els, "flange");
       if (!web || !flange) break;
-      if (element(els, "bottom flange"))
+      if (find_element(els, "bottom flange"))
         return outside("F4/F5: I section with unequal flanges: outside this screening (F2 and F3 need double symmetry)",
-                       flange->ratio, element(els, "flange")->ratio);
+                       flange->ratio, find_element(els, "flange")->ratio);
       if (class_of(*web) != Slenderness::compact)
         return outside(fmt::format("F4/F5: {} web (h/tw = {:.1f} > lambda_pw = {:.1f}): outside this screening",
                                    slenderness_name(class_of(*web)), web->ratio, web->lambda_p),
@@ -212,15 +206,15 @@ Strength major_flexure(const Section& s, const Material& m, double Lb, double Cb
       return finish(g, d, scope);
     }
     case SectionShape::rhs: {
-      const Element *web = element(els, "web"), *flange = element(els, "flange");
+      const Element *web = find_element(els, "web"), *flange = find_element(els, "flange");
       if (!web || !flange) break;
       return hss_rect(s, m, *flange, *web, s.Wpl_y, s.Wy(), s.Iy, s.depth, s.iz(), Lb, Cb, true);
     }
     case SectionShape::chs:
-      if (const Element* wall = element(els, "wall")) return hss_round(s, m, *wall);
+      if (const Element* wall = find_element(els, "wall")) return hss_round(s, m, *wall);
       break;
     case SectionShape::tee: {
-      const Element *stem = element(els, "stem"), *flange = element(els, "flange");
+      const Element *stem = find_element(els, "stem"), *flange = find_element(els, "flange");
       if (!stem || !flange) break;
       const double Sx = s.Wy(), My = Fy * Sx;  // Sx to the farther fibre (the stem's tip): the smaller modulus
       const double Iy = s.Iz, d = s.depth;
@@ -321,7 +315,7 @@ Strength minor_flexure(const Section& s, const Material& m) {
       return finish(g, {{"Mp", Mp}, {"Sy", Sy}, {"Zy", Zy}, {"b_t", flange->ratio}}, "F6 minor axis");
     }
     case SectionShape::rhs: {
-      const Element *web = element(els, "web"), *flange = element(els, "flange");
+      const Element *web = find_element(els, "web"), *flange = find_element(els, "flange");
       if (!web || !flange) break;
       // About the minor axis the walls of height H are the flanges and those of width B the webs:
       // their ratios take the flange (case 17) and web (case 19) limits of Table B4.1b.
@@ -331,7 +325,7 @@ Strength minor_flexure(const Section& s, const Material& m) {
       return hss_rect(s, m, fl, wb, Zy, Sy, s.Iz, s.width, 0, 0, 1.0, false);
     }
     case SectionShape::chs:
-      if (const Element* wall = element(els, "wall")) return hss_round(s, m, *wall);
+      if (const Element* wall = find_element(els, "wall")) return hss_round(s, m, *wall);
       break;
     case SectionShape::angle: {
       const Element* leg = worst(els, "leg");

@@ -14,12 +14,6 @@ namespace {
 
 constexpr double pi = std::numbers::pi;
 
-const Element* element(const std::vector<Element>& els, const std::string& name) {
-  for (const auto& e : els)
-    if (e.name.find(name) != std::string::npos) return &e;
-  return nullptr;
-}
-
 /// Vn = 0.6 Fy Aw Cv2 of an element of ratio h/t with buckling coefficient kv (G3-1, G4-1, G6-1).
 Strength plate_shear(const std::string& clause, double Aw, double h_t, double kv, const Material& m) {
   Strength st;
@@ -69,7 +63,7 @@ Strength major_shear(const Section& s, const Material& m, double Lv) {
     case SectionShape::rolled_i:
     case SectionShape::welded_i:
     case SectionShape::channel: {
-      const Element* web = element(els, "web");
+      const Element* web = find_element(els, "web");
       if (!web) break;
       Strength st;
       const double h_tw = web->ratio, Aw = s.depth * web->t;  // G2.1: Aw = d tw
@@ -91,7 +85,7 @@ Strength major_shear(const Section& s, const Material& m, double Lv) {
       return st;
     }
     case SectionShape::tee: {
-      const Element* stem = element(els, "stem");
+      const Element* stem = find_element(els, "stem");
       if (!stem) break;
       // G3: tee stem, b = d, kv = 1.2 (G3-1).
       return plate_shear("G3 tee stem (G3-1), kv = 1.2", s.depth * stem->t, stem->ratio, 1.2, m);
@@ -106,13 +100,13 @@ Strength major_shear(const Section& s, const Material& m, double Lv) {
       return plate_shear("G3 single angle (G3-1), kv = 1.2, shorter leg b t", leg->width * leg->t, leg->ratio, 1.2, m);
     }
     case SectionShape::rhs: {
-      const Element* web = element(els, "web");
+      const Element* web = find_element(els, "web");
       if (!web) break;
       // G4: Aw = 2 h t with h = H - 3t, kv = 5 (G4-1).
       return plate_shear("G4 rectangular HSS (G4-1), Aw = 2 h t, kv = 5", 2 * web->width * web->t, web->ratio, 5.0, m);
     }
     case SectionShape::chs:
-      if (const Element* wall = element(els, "wall")) return round_shear(s, m, *wall, Lv);
+      if (const Element* wall = find_element(els, "wall")) return round_shear(s, m, *wall, Lv);
       break;
     default: break;
   }
@@ -127,7 +121,7 @@ Strength minor_shear(const Section& s, const Material& m, double Lv) {
     case SectionShape::welded_i:
     case SectionShape::channel:
     case SectionShape::tee: {
-      const Element* flange = element(els, "flange");
+      const Element* flange = find_element(els, "flange");
       if (!flange) break;
       // G6 (G6-1): 0.6 Fy bf tf Cv2 per flange, h/t = b/t of Table B4.1 (bf/2tf for I and tees, bf/tf for
       // channels), kv = 1.2; the flanges' sum. A tee has one flange.
@@ -136,7 +130,7 @@ Strength minor_shear(const Section& s, const Material& m, double Lv) {
       return plate_shear("G6 weak-axis shear (G6-1), kv = 1.2", flanges * bf * flange->t, flange->ratio, 1.2, m);
     }
     case SectionShape::rhs: {
-      const Element* flange = element(els, "flange");
+      const Element* flange = find_element(els, "flange");
       if (!flange) break;
       return plate_shear("G4 rectangular HSS (G4-1), Aw = 2 b t, kv = 5", 2 * flange->width * flange->t, flange->ratio,
                          5.0, m);

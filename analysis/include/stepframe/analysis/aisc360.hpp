@@ -10,12 +10,12 @@
 // The equations and their numbers are those of ANSI/AISC 360-16 as recalled
 // (from memory: no copy of the Specification is in the reference folder; the
 // one published design example that is, F.1-1A/B, is run end to end in
-// tests/plugin/test_worked_examples.cpp). Stability follows the effective
+// tests/plugin/test_aisc360_examples.cpp). Stability follows the effective
 // length method of Appendix 7 (7.2): K factors are the rules' `buckling`
 // factors, required strengths are amplified by B1 (Appendix 8, 8.2.1) and,
 // for a first-order result, by B2 (8.2.2, from the elastic critical load
-// factor); the method is allowed while B2 <= 1.5 (7.2.1(b)),
-// check_effective_length_method.
+// factor of the lowest sway buckling mode); the method is allowed while
+// B2 <= 1.5 (7.2.1(b)), check_effective_length_method.
 //
 // Axes: the Specification's x (major) axis is the section's y axis here, its
 // y (minor) axis the section's z axis (section.hpp); forces follow results.hpp
@@ -89,6 +89,9 @@ const char* slenderness_name(Slenderness s);
 /// b = B - 3t, h = H - 3t, B4.1b(d)), round HSS (D/t). Empty for sections
 /// given by their properties alone.
 std::vector<Element> elements(const Section& section, double E, double Fy);
+
+/// The element of that name ("web", "flange", "stem", "wall"), or nullptr.
+const Element* find_element(const std::vector<Element>& elements, const std::string& name);
 
 /// Table B4.1a: nonslender unless some element's ratio exceeds lambda_r.
 bool slender_in_compression(const std::vector<Element>& elements);
