@@ -280,7 +280,9 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   // angles by H2 (H2-1, the ratios summed: about principal axes the stress ratios equal the force
   // ratios); HSS with Tr > 0.2 Tc by H3.2 (H3-6).
   const bool any_moment = worst_major >= 0 || worst_minor >= 0;
-  if (flexure_covered && comp.covered && any_moment && (Pc_req > 0 || Pt_req > 0)) {
+  // Torsion above 0.2 Tc somewhere brings in (H3-6) even without axial force.
+  const bool twisted = worst_torsion > 0.2;
+  if (flexure_covered && comp.covered && any_moment && (Pc_req > 0 || Pt_req > 0 || twisted)) {
     double worst = -1;
     CheckResult h;
     for (const Station& p : st) {
@@ -319,7 +321,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
         h = make("H interaction",
                  fmt::format("AISC 360-16 {} {}; required strengths with B1 = {:.3f}/{:.3f} (x/y, Appendix 8 A-8-3) "
                              "and B2 = {:.3f}; {}",
-                             clause, N < 0 ? "in compression" : "in tension", B1x, B1y, B2, method_name(method)),
+                             clause, N < 0 ? "in compression" : N > 0 ? "in tension" : "without axial force", B1x, B1y, B2, method_name(method)),
                  p.x, u, 1.0, "1", std::move(d));
       }
     }

@@ -442,3 +442,72 @@ TEST_CASE("AISC 360 effective length method: allowed while B2 <= 1.5, B2 from th
   CHECK(detail(braced[0].details, "sway_mode") == 0.0);
   CHECK(detail(braced[0].details, "alpha_sway") == Approx(strut_results[0].buckling_modes.back().alpha));
 }
+
+TEST_CASE("AISC 360 F9, F10, G3, G6: tees, single angles and weak-axis shear") {
+  const Material m = astm_steel(50);
+  // Tee (welded dimensions, 8 in deep, 6 in x 0.5 in flange, 0.3 in stem), stem in tension, Lb = 0:
+  // Mn = Mp = Fy Zx <= 1.6 My (F9-2), My = Fy Sx.
+  const Section tee = tee_section("T8", {8 * in, 6 * in, 0.3 * in, 0.5 * in, 0.0});
+  const Strength tension_stem = major_flexure(tee, m, 0, 1.0, false);
+  CHECK(tension_stem.Rn == Approx(std::min(m.fy * tee.Wpl_y, 1.6 * m.fy * tee.Wy())));
+  // Stem in compression: Mn = My (F9-4), or less by stem local buckling, d/tw = 26.7 between
+  // 0.84 sqrt(E/Fy) = 20.2 and 1.52 sqrt(E/Fy) = 36.6: Fcr = (1.43 - 0.515 (d/tw) sqrt(Fy/E)) Fy (F9-18).
+  const double dt = 8 / 0.3, Fcr = (1.43 - 0.515 * dt * std::sqrt(50.0 / 29000)) * m.fy;
+  const Strength compression_stem = major_flexure(tee, m, 0, 1.0, true);
+  CHECK(compression_stem.Rn == Approx(std::min(m.fy, Fcr) * tee.Wy()));
+  CHECK_THAT(compression_stem.clause, Contains("F9-18"));
+  // G3: Vn = 0.6 Fy d tw Cv2 (G3-1), kv = 1.2: d/tw = 26.7 <= 1.10 sqrt(kv E/Fy) = 29.0, Cv2 = 1 (G2-9).
+  CHECK(major_shear(tee, m, 1.0).Rn == Approx(0.6 * m.fy * 8 * in * 0.3 * in));
+  // Equal-leg angle L4x4x1/2 about its major principal axis, Lb = 6 ft, Cb = 1:
+  // Mcr = 9 E Ag rz t Cb / (8 Lb) (F10-4); My/Mcr <= 1: Mn = (1.92 - 1.17 sqrt(My/Mcr)) My <= 1.5 My (F10-2).
+  const auto angle = find_catalogue_section("L4X4X1/2");
+  REQUIRE(angle);
+  const double Lb = 72 * in, My = m.fy * angle->Wy();
+  const double Mcr = 9 * m.E * angle->A * angle->iz() * 0.5 * in / (8 * Lb);
+  REQUIRE(My / Mcr <= 1.0);
+  const Strength a = major_flexure(*angle, m, Lb, 1.0);
+  CHECK(a.Rn == Approx(std::min(1.5 * My, (1.92 - 1.17 * std::sqrt(My / Mcr)) * My)));
+  CHECK(detail(a.details, "Mcr") == Approx(Mcr));
+  // About the minor principal axis: yielding only, Mn = 1.5 My (F10-1); b/t = 8 is compact (0.54 sqrt(E/Fy) = 13).
+  CHECK(minor_flexure(*angle, m).Rn == Approx(1.5 * m.fy * angle->Wz()));
+  // An unequal-leg angle bent about its major axis needs beta_w: outside this screening.
+  CHECK_FALSE(major_flexure(*find_catalogue_section("L6X4X1/2"), m, Lb, 1.0).covered);
+  // G6 weak-axis shear of a W18x50: 0.6 Fy (2 bf tf) Cv2 (G6-1), kv = 1.2, bf/2tf = 6.58: Cv2 = 1; 256.5 kip.
+  CHECK(minor_shear(W18X50(), m, 1.0).Rn / kip == Approx(0.6 * 50 * 2 * 7.5 * 0.57));
+}
+
+TEST_CASE("AISC 360 H3.2: an HSS under torsion above 0.2 Tc takes (H3-6)") {
+  // A 10 ft HSS6x6x3/8 cantilever in A500 Gr. C (Fy = 50 ksi) under a 200 kip-in torque and a 5 kip end load.
+  const auto hss = find_catalogue_section("HSS6X6X3/8");
+  REQUIRE(hss);
+  const Material m = astm_steel(50);
+  const double L = 120 * in, T = 200 * kip_in, V = 5 * kip;
+  FrameModel model;
+  model.nodes = {{0, 0, 0}, {L, 0, 0}};
+  model.sections = {*hss};
+  model.materials = {m};
+  model.elements = {{{0, 1}, 0, 0, 0.0}};
+  model.supports = {test::support(0, test::fixed_all)};
+  LoadCase lc;
+  lc.name = "T";
+  lc.node_loads = {{1, Eigen::Vector3d(0, 0, -V), Eigen::Vector3d(T, 0, 0)}};
+  model.cases = {lc};
+  const auto results = solve(model);
+  MemberInput member;
+  member.section = &model.sections[0];
+  member.material = m;
+  member.length = L;
+  member.cantilever = true;
+  const auto line = member_line(model, results[0], member_chains(model)[0], LineDetail::stations);
+  const auto checks = check_member(member, line, "T", Method::lrfd);
+  const Strength tor = torsional_strength(*hss, m, L);
+  const double Tc = tor.available(Method::lrfd), Tr_Tc = T / Tc;
+  REQUIRE(Tr_Tc > 0.2);
+  CHECK(find(checks, "H3 torsion").utilisation == Approx(Tr_Tc).epsilon(1e-6));
+  // At the root: Mr = V L; (H3-6) (Pr/Pc + Mr/Mc) + (Vr/Vc + Tr/Tc)^2 with Pr = 0.
+  const double Mc = major_flexure(*hss, m, L, 1.0).available(Method::lrfd), Vc = major_shear(*hss, m, L).available(Method::lrfd);
+  const double expected = V * L / Mc + std::pow(V / Vc + Tr_Tc, 2);
+  const auto& h = find(checks, "H interaction");
+  CHECK_THAT(h.clause, Contains("H3-6"));
+  CHECK(h.utilisation == Approx(expected).epsilon(1e-4));
+}
