@@ -121,6 +121,11 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   if (spec.en1993)
     add(analysis::en1993::check_members(model, pick(a.results, spec.en1993->combinations), a.built.buckling,
                                         {spec.gamma_M0, spec.gamma_M1}, spec.en1993->ltb));
+  if (spec.aisc360) {
+    const auto results = pick(a.results, spec.aisc360->combinations);
+    add(analysis::aisc360::check_members(model, results, a.built.buckling, spec.aisc360->method));
+    add(analysis::aisc360::check_effective_length_method(model, results, spec.aisc360->method));
+  }
   if (spec.stability)
     add(analysis::check_frame_stability(pick(a.results, spec.stability->combinations), spec.stability->alpha_cr_min));
   add(std::move(frequency_checks));

@@ -48,6 +48,21 @@ En1993CheckSpec read_en1993(const Reader& r, const YAML::Node& e, std::vector<st
   return spec;
 }
 
+Aisc360CheckSpec read_aisc360(const Reader& r, const YAML::Node& a, std::vector<std::string> names) {
+  r.check_keys(a, "checks.aisc360", {"combinations", "method"});
+  Aisc360CheckSpec spec{std::move(names)};
+  if (const auto m = a["method"]) {
+    const std::string value = r.text(m, "checks.aisc360.method");
+    if (value == "LRFD" || value == "lrfd") spec.method = analysis::aisc360::Method::lrfd;
+    else if (value == "ASD" || value == "asd") spec.method = analysis::aisc360::Method::asd;
+    else
+      r.fail(m, "checks.aisc360.method",
+             "expected LRFD (load and resistance factor design, AISC 360-16 B3.1) or ASD (allowable strength design, "
+             "B3.2), got '" + value + "'");
+  }
+  return spec;
+}
+
 }  // namespace
 
 ChecksSpec read_checks(const Reader& r, const YAML::Node& node, const std::vector<std::string>& cases,
@@ -69,7 +84,8 @@ ChecksSpec read_checks(const Reader& r, const YAML::Node& node, const std::vecto
     p.stress = StressCheckSpec{defaults(false)};
     return p;
   }
-  r.check_keys(node, "checks", {"stress", "deflection", "en1993", "drift", "stability", "frequency", "partial_factors"});
+  r.check_keys(node, "checks",
+               {"stress", "deflection", "en1993", "aisc360", "drift", "stability", "frequency", "partial_factors"});
   auto names_for = [&](const YAML::Node& check, const std::string& path, bool sls = false) {
     return check["combinations"] ? read_name_list(r, check["combinations"], path + ".combinations", names)
                                  : defaults(sls);
@@ -86,6 +102,7 @@ ChecksSpec read_checks(const Reader& r, const YAML::Node& node, const std::vecto
     p.deflection = spec;
   }
   if (const auto e = node["en1993"]) p.en1993 = read_en1993(r, e, names_for(e, "checks.en1993"));
+  if (const auto a = node["aisc360"]) p.aisc360 = read_aisc360(r, a, names_for(a, "checks.aisc360"));
   if (const auto d = node["drift"]) {
     r.check_keys(d, "checks.drift", {"storey_ratio", "combinations"});
     DriftCheckSpec spec;

@@ -51,8 +51,8 @@ std::string check_row(const Analysis& a, const analysis::CheckResult& c) {
   return fmt::format("<tr{}><td>{}</td><td>{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
                      "<td class=\"num\">{}</td><td class=\"num\">{}</td><td>{}</td></tr>\n",
                      c.pass ? "" : " class=\"failed\"", who, esc(c.check), esc(c.combination),
-                     c.member == analysis::whole_frame ? "" : num(c.station, 3), with_unit(c.value, c.unit),
-                     with_unit(c.limit, c.unit), num(c.utilisation, 3), esc(c.clause));
+                     c.member == analysis::whole_frame ? "" : num(c.station, 3), with_unit(c.value, c.unit, a.project),
+                     with_unit(c.limit, c.unit, a.project), num(c.utilisation, 3), esc(c.clause));
 }
 
 constexpr const char* check_header =
@@ -112,8 +112,8 @@ std::string members_table(const Analysis& a) {
     if (c)
       h += fmt::format("<td>{}</td><td>{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td><td class=\"num\">{}</td>"
                        "<td class=\"num\">{}</td></tr>\n",
-                       esc(c->check), esc(c->combination), num(c->station, 3), with_unit(c->value, c->unit),
-                       with_unit(c->limit, c->unit), num(c->utilisation, 3));
+                       esc(c->check), esc(c->combination), num(c->station, 3), with_unit(c->value, c->unit, a.project),
+                       with_unit(c->limit, c->unit, a.project), num(c->utilisation, 3));
     else
       h += "<td colspan=\"6\">not checked</td></tr>\n";
   }

@@ -21,6 +21,11 @@ std::string num(double value, int digits = 4);
 /// A check's value or limit in the unit people read ("Pa" -> MPa, "N" -> kN, "m" -> mm, "N*m" -> kN*m).
 std::string with_unit(double value, const std::string& si_unit);
 
+/// The same in the project's units when it works in US customary force units
+/// (units.force kip or lbf): forces in kip (lbf), moments in kip*ft or kip*in
+/// after units.length, stresses in ksi (psi), lengths in inches; else as above.
+std::string with_unit(double value, const std::string& si_unit, const Project& project);
+
 /// A member's length along its elements [m].
 double member_length(const analysis::FrameModel& model, const analysis::Member& member);
 

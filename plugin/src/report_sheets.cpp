@@ -36,8 +36,8 @@ std::string sheets_section(const Analysis& a) {
       h += fmt::format("<div class=\"check{}\"><h4>{} — utilisation {} ({})</h4>\n<p>{}<br>under {} at x = {} m: "
                        "{} against {}</p>\n",
                        c->pass ? "" : " failed", esc(c->check), num(c->utilisation, 3), c->pass ? "passes" : "FAILS",
-                       esc(c->clause), esc(c->combination), num(c->station, 3), with_unit(c->value, c->unit),
-                       with_unit(c->limit, c->unit));
+                       esc(c->clause), esc(c->combination), num(c->station, 3), with_unit(c->value, c->unit, a.project),
+                       with_unit(c->limit, c->unit, a.project));
       if (!c->details.empty()) {
         h += "<table class=\"details\"><tr><th>step</th><th>value</th></tr>";
         for (const auto& [name, value] : c->details)

@@ -68,8 +68,8 @@ std::string view_data(const Analysis& a) {
   for (const auto& c : a.checks)
     if (c.member < checks.size())
       checks[c.member] += fmt::format("{}[{},{},{},{},{},{}]", checks[c.member].empty() ? "" : ",", quoted(c.check),
-                                      quoted(c.combination), quoted(with_unit(c.value, c.unit)),
-                                      quoted(with_unit(c.limit, c.unit)), n5(c.utilisation), c.pass ? "true" : "false");
+                                      quoted(c.combination), quoted(with_unit(c.value, c.unit, a.project)),
+                                      quoted(with_unit(c.limit, c.unit, a.project)), n5(c.utilisation), c.pass ? "true" : "false");
   d += "],\"checks\":[";
   for (std::size_t m = 0; m < checks.size(); ++m) d += (m ? ",[" : "[") + checks[m] + "]";
   const auto order = members_by_utilisation(a);

@@ -145,6 +145,7 @@ void expand_checks(Project& project, const std::map<std::string, std::vector<std
   if (checks.stress) expand(checks.stress->combinations);
   if (checks.deflection) expand(checks.deflection->combinations);
   if (checks.en1993) expand(checks.en1993->combinations);
+  if (checks.aisc360) expand(checks.aisc360->combinations);
   if (checks.drift) expand(checks.drift->combinations);
   if (checks.stability) expand(checks.stability->combinations);
 }

@@ -120,6 +120,8 @@ const std::vector<Case> cases = {
     {"area load without a unit", run,
      base_head + base_supports + "cases:\n  - name: W\n    area_loads: [{pressure: 2.5, plane: {z: 0}}]\n", {}, 2,
      "with its unit"},
+    {"checks.aisc360.method not LRFD or ASD", run, with_extra("checks:\n  aisc360: {method: LSD}\n"), {}, 2,
+     "expected LRFD"},
     // Selectors
     {"(a+)+b on a long name does not hang", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {name: \"(a+)+b\"}\n    material: S355\n" +

@@ -3,6 +3,7 @@
 // (format: README, "Project file"). Every value is SI; the reader converts.
 
 #include "stepframe/analysis/combination_rules.hpp"
+#include "stepframe/analysis/aisc360.hpp"
 #include "stepframe/analysis/en1993.hpp"
 #include "stepframe/analysis/material.hpp"
 #include "stepframe/analysis/section.hpp"
@@ -158,6 +159,13 @@ struct En1993CheckSpec {
   analysis::en1993::LateralTorsionalOptions ltb{};
 };
 
+/// ANSI/AISC 360-16 member checks (chapters D to H, effective length method):
+/// `checks: {aisc360: {method: LRFD | ASD, combinations: [...]}}`.
+struct Aisc360CheckSpec {
+  std::vector<std::string> combinations;
+  analysis::aisc360::Method method = analysis::aisc360::Method::lrfd;
+};
+
 /// Storey drift: relative horizontal displacement of the ends of each vertical member <= h / ratio.
 struct DriftCheckSpec {
   double storey_ratio = 300;
@@ -184,6 +192,7 @@ struct ChecksSpec {
   std::optional<StressCheckSpec> stress;
   std::optional<DeflectionCheckSpec> deflection;
   std::optional<En1993CheckSpec> en1993;
+  std::optional<Aisc360CheckSpec> aisc360;
   std::optional<DriftCheckSpec> drift;
   std::optional<StabilityCheckSpec> stability;
   std::vector<FrequencyCheckSpec> frequency{};
