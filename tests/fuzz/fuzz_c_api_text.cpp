@@ -15,6 +15,7 @@
 #include <cstdint>
 #include <cstdlib>
 #include <cstring>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -33,9 +34,12 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
   int status = 0;
   if (nul) {
     const std::size_t step_at = static_cast<std::size_t>(nul - bytes) + 1;
-    // The STEP text in a heap block of exactly its size, so reading past step_len is caught.
-    std::vector<char> step(bytes + step_at, bytes + size);
-    status = sf_run_project_text_with_step(run, project.c_str(), "/nonexistent/stepframe-fuzz", step.data(), step.size());
+    // The STEP text in a heap block of exactly its size (never a null pointer, even when empty),
+    // so reading past step_len is caught.
+    const std::size_t step_len = size - step_at;
+    const auto step = std::make_unique<char[]>(step_len);
+    std::memcpy(step.get(), bytes + step_at, step_len);
+    status = sf_run_project_text_with_step(run, project.c_str(), "/nonexistent/stepframe-fuzz", step.get(), step_len);
   } else {
     status = sf_run_project_text(run, project.c_str(), "/nonexistent/stepframe-fuzz");
   }
