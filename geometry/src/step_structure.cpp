@@ -134,21 +134,24 @@ void StepStructureCheck::character(char c) {
   const bool typed = std::exchange(after_keyword_, false);  // '(' after a keyword opens its parameters
   const bool was_empty = std::exchange(empty_list_, false);
   switch (c) {
-    case '(':
+    case '(': {
       if (++depth_ > max_step_nesting)
         fail(fmt::format("{}: parentheses nest more than {} levels deep; {}", here(), max_step_nesting, damaged));
-      if (owner_.size() <= static_cast<std::size_t>(depth_)) owner_.resize(static_cast<std::size_t>(depth_) + 1);
-      owner_[static_cast<std::size_t>(depth_)] = typed ? keyword_ : owner_[static_cast<std::size_t>(depth_) - 1];
+      const auto d = static_cast<std::size_t>(depth_);
+      if (owner_.size() <= d) owner_.resize(d + 1);
+      owner_[d] = typed ? keyword_ : owner_[d - 1];  // a list belongs to the entity or value it stands in
       empty_list_ = !typed;
       break;
-    case ')':
-      if (was_empty && current_ != 0 && !empty_list_allowed(owner_[static_cast<std::size_t>(depth_)]))
+    }
+    case ')': {
+      const std::string& owner = owner_[static_cast<std::size_t>(std::max(depth_, 0))];
+      if (was_empty && current_ != 0 && !empty_list_allowed(owner))
         fail(fmt::format("{}: an empty list '()' in {}; the STEP schemas want at least one item in this list and "
                          "OCCT's reader cannot take an empty one; {}",
-                         here(), owner_[static_cast<std::size_t>(depth_)].empty() ? "the entity" : owner_[static_cast<std::size_t>(depth_)],
-                         damaged));
+                         here(), owner.empty() ? "the entity" : owner, damaged));
       if (--depth_ < 0) fail(fmt::format("{}: a ')' closes no '('; {}", here(), damaged));
       break;
+    }
     case ';':
       if (depth_ != 0)
         fail(fmt::format("{}: the entity's parameter list is not closed before ';' ({} '(' open); {}", here(), depth_,
