@@ -65,15 +65,10 @@ case "${1:-demo}" in
     install_packages
     seconds=${2:-60}
     cmake --preset fuzz
-    cmake --build build-fuzz -j "$JOBS" --target fuzz_step_structure fuzz_step_import fuzz_designation fuzz_project_reader
-    corpus=build-fuzz/corpus
-    mkdir -p "$corpus/step" "$corpus/project" "$corpus/designation"
-    cp tests/data/*.stp data/demo/*.stp "$corpus/step/" 2>/dev/null || true
-    cp data/demo/*.yaml "$corpus/project/" 2>/dev/null || true
-    for d in IPE300 "HE 200 B" W12x26 "SHS 100x100x5" "CHS 219.1x8" PL20x300 L100x100x10 HSS6x6x3/8 W310x38.7; do
-      printf '%s' "$d" > "$corpus/designation/$(printf '%s' "$d" | tr -c 'A-Za-z0-9' '_')"
-    done
-    for target in step_structure:step step_import:step designation:designation project_reader:project; do
+    cmake --build build-fuzz -j "$JOBS" --target fuzz_step_structure fuzz_step_import fuzz_designation \
+      fuzz_project_reader fuzz_c_api_text
+    tests/fuzz/seed_corpora.sh build-fuzz/corpus
+    for target in step_structure:step step_import:step designation:designation project_reader:project c_api_text:c_api; do
       name=${target%%:*}
       echo "== fuzz_$name for $seconds s"
       (cd build-fuzz && "tests/fuzz/fuzz_$name" "corpus/${target##*:}" -max_total_time="$seconds" -rss_limit_mb=4096 \

@@ -1,5 +1,6 @@
 #include "shell_wireframes.hpp"
 
+#include <algorithm>
 #include <cctype>
 #include <map>
 #include <string>
@@ -138,6 +139,8 @@ std::optional<std::string> rewrite_shell_wireframes(std::string_view step_text) 
   std::map<std::size_t, std::pair<std::size_t, std::string>> edits;
   // The vertex shells of each shell-based model, rewritten as point sets.
   std::map<std::string, std::vector<std::string>> point_sets_of;
+  // The models left without a wire shell.
+  std::vector<std::string> without_edges;
   for (const auto& [id, instance] : instances) {
     if (instance.type != "SHELL_BASED_WIREFRAME_MODEL" || instance.args.size() != 2) continue;
     std::string shells;
@@ -166,8 +169,16 @@ std::optional<std::string> rewrite_shell_wireframes(std::string_view step_text) 
           edges += (edges.empty() ? "" : ",") + edge;
         }
       }
+      if (edges.empty()) continue;  // no edge to carry over (OCCT crashes on an empty edge set)
       edits[s->begin] = {s->end, "CONNECTED_EDGE_SET(" + s->args[0] + ",(" + edges + "))"};
       shells += (shells.empty() ? "" : ",") + shell;
+    }
+    if (shells.empty()) {
+      // No wire shell with edges (OCCT crashes on an empty edge-based model): an empty curve set,
+      // which OCCT reads safely, takes its place and the representation no longer lists it.
+      edits[instance.begin] = {instance.end, "GEOMETRIC_CURVE_SET(" + instance.args[0] + ",())"};
+      without_edges.push_back(id);
+      continue;
     }
     edits[instance.begin] = {instance.end, "EDGE_BASED_WIREFRAME_MODEL(" + instance.args[0] + ",(" + shells + "))"};
   }
@@ -179,6 +190,9 @@ std::optional<std::string> rewrite_shell_wireframes(std::string_view step_text) 
       for (std::size_t k = 0, n = items.size(); k < n; ++k)
         if (const auto sets = point_sets_of.find(items[k]); sets != point_sets_of.end())
           items.insert(items.end(), sets->second.begin(), sets->second.end());
+      std::erase_if(items, [&](const std::string& item) {
+        return std::find(without_edges.begin(), without_edges.end(), item) != without_edges.end();
+      });
       args[1] = "(" + joined(items) + ")";
     }
     edits[instance.begin] = {instance.end, "EDGE_BASED_WIREFRAME_SHAPE_REPRESENTATION(" + joined(args) + ")"};

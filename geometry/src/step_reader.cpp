@@ -6,6 +6,7 @@
 #include "harvest.hpp"
 #include "occt_messages.hpp"
 #include "shell_wireframes.hpp"
+#include "step_long_strings.hpp"
 #include "step_quotes.hpp"
 #include "step_attributes.hpp"
 #include "step_kind.hpp"
@@ -245,22 +246,48 @@ StepModel parse_and_read(const std::string& source, Read read) {
   return read_parsed(reader, source);
 }
 
-// Parses the text (shell-based wireframes rewritten first) through OCCT's stream reader.
-StepModel read_text(std::string_view text, const std::string& source) {
+// Parses the text through OCCT's stream reader, rewritten first where OCCT
+// would mis-read it: doubled quotes encoded, strings longer than OCCT takes
+// cut (`long_strings`, each with a warning), shell-based wireframes rewritten.
+StepModel read_text(std::string_view text, const std::string& source, const std::vector<StepLongString>& long_strings) {
   const std::optional<std::string> quotes = detail::encode_doubled_quotes(text);
   if (quotes) text = *quotes;
+  const std::optional<std::string> shortened =
+      long_strings.empty() ? std::nullopt : detail::shorten_long_strings(text, max_step_token);
+  if (shortened) text = *shortened;
   const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(text);
   std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : text)};
-  return parse_and_read(source, [&](STEPCAFControl_Reader& reader) {
+  StepModel model = parse_and_read(source, [&](STEPCAFControl_Reader& reader) {
     return reader.ChangeReader().ReadStream(source.c_str(), stream);
   });
+  for (const StepLongString& s : long_strings) {
+    const std::string where = s.entity != 0 ? fmt::format("a string of #{} (line {})", s.entity, s.line)
+                                            : fmt::format("a string of the header (line {})", s.line);
+    std::string message = fmt::format(
+        "{}: {} is {} characters long, more than OCCT's STEP reader takes; only its first {} characters were "
+        "read, followed by '...'",
+        source, where, s.length, max_step_token - 3);
+    spdlog::warn("{}", message);
+    model.diagnostics.push_back({Severity::warning, "step-string-shortened", std::move(message),
+                                 s.entity != 0 ? std::vector<std::string>{fmt::format("#{}", s.entity)}
+                                               : std::vector<std::string>{},
+                                 std::nullopt});
+  }
+  return model;
 }
+
+// What scan_file found: whether OCCT must be given rewritten text (the file
+// mentions a shell-based wireframe, a string holds a doubled quote or is
+// longer than OCCT takes) and the strings to cut.
+struct FileScan {
+  bool rewrite = false;
+  std::vector<StepLongString> long_strings;
+};
 
 // One pass over the file in blocks: checks its exchange structure before OCCT
 // sees it (StepStructureCheck) and tells whether OCCT must be given rewritten
-// text: the file mentions a shell-based wireframe or a string holds a doubled
-// quote. No copy of a large file is held.
-bool scan_file(const std::filesystem::path& file, const std::string& source) {
+// text. No copy of a large file is held.
+FileScan scan_file(const std::filesystem::path& file, const std::string& source) {
   errno = 0;
   std::ifstream in(file, std::ios::binary);
   if (!in)
@@ -287,7 +314,7 @@ bool scan_file(const std::filesystem::path& file, const std::string& source) {
   }
   if (in.bad()) fail(source, "could not be read to its end; check the file");
   structure.finish();
-  return mentions || structure.doubled_quotes();
+  return {mentions || structure.doubled_quotes() || !structure.long_strings().empty(), structure.long_strings()};
 }
 
 }  // namespace
@@ -302,11 +329,11 @@ StepModel read_step(const std::filesystem::path& file) {
     fail(source, "is not a regular file (a folder?). Give the path of a STEP file.");
   spdlog::info("reading STEP file {}", source);
 
-  if (scan_file(file, source)) {
+  if (const FileScan scan = scan_file(file, source); scan.rewrite) {
     std::ifstream in(file, std::ios::binary);
     std::ostringstream text;
     text << in.rdbuf();
-    return read_text(text.str(), source);
+    return read_text(text.str(), source, scan.long_strings);
   }
 
   return parse_and_read(source, [&](STEPCAFControl_Reader& reader) { return reader.ReadFile(source.c_str()); });
@@ -318,8 +345,8 @@ StepModel read_step_text(std::string_view step_text, std::string display_name) {
   if (step_text.find("ISO-10303-21") == std::string_view::npos)
     fail(display_name, fmt::format("is not STEP (ISO 10303-21) text: it does not start with ISO-10303-21;. {}",
                                    export_advice));
-  check_step_structure(step_text, display_name);
-  return read_text(step_text, display_name);
+  const std::vector<StepLongString> long_strings = check_step_structure(step_text, display_name);
+  return read_text(step_text, display_name, long_strings);
 }
 
 }  // namespace stepframe::geometry

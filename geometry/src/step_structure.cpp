@@ -24,9 +24,24 @@ bool token_char(char c) {
 
 bool digit(char c) { return std::isdigit(static_cast<unsigned char>(c)) != 0; }
 
+bool control(char c) {
+  const auto u = static_cast<unsigned char>(c);
+  return (u < 0x20 && c != '\n' && c != '\r' && c != '\t') || u == 0x7f;
+}
+
 }  // namespace
 
-StepStructureCheck::StepStructureCheck(std::string source) : source_(std::move(source)) {}
+bool empty_list_allowed(std::string_view entity_type) {
+  // Entities of presentation and product data that exporters write with an
+  // empty list, each tried with OCCT 7.6 (Debian 12) reading it safely.
+  static constexpr std::string_view allowed[] = {
+      "DRAUGHTING_MODEL", "MECHANICAL_DESIGN_GEOMETRIC_PRESENTATION_REPRESENTATION", "PRESENTATION_LAYER_ASSIGNMENT",
+      "PRESENTATION_STYLE_ASSIGNMENT", "PRODUCT", "PRODUCT_RELATED_PRODUCT_CATEGORY", "SHAPE_REPRESENTATION",
+      "STYLED_ITEM"};
+  return std::find(std::begin(allowed), std::end(allowed), entity_type) != std::end(allowed);
+}
+
+StepStructureCheck::StepStructureCheck(std::string source) : source_(std::move(source)), owner_(1) {}
 
 std::string StepStructureCheck::here() const {
   return current_ != 0 ? fmt::format("#{} (line {})", current_, line_) : fmt::format("line {}", line_);
@@ -48,25 +63,39 @@ void StepStructureCheck::feed(std::string_view piece) {
 
 void StepStructureCheck::character(char c) {
   if (c == '\n') ++line_;
+  if (control(c))
+    fail(fmt::format("{}: the text holds a control character (byte 0x{:02X}); STEP files are plain text; {}", here(),
+                     static_cast<unsigned>(static_cast<unsigned char>(c)), damaged));
   switch (mode_) {
     case Mode::comment:
       if (star_ && c == '/') mode_ = Mode::normal;
       star_ = c == '*';
+      run_ = c == '*' || c == '\n' ? 0 : run_ + 1;  // OCCT reads comment text between stars and line breaks
+      if (run_ > max_step_token)
+        fail(fmt::format("{}: a comment holds more than {} characters without a line break, more than OCCT's "
+                         "reader takes; {}",
+                         here(), max_step_token, damaged));
       return;
     case Mode::binary:
       if (c == '"') mode_ = Mode::normal;
+      else if (++run_ > max_step_token)
+        fail(fmt::format("{}: a binary value longer than {} characters, more than OCCT's reader takes; {}", here(),
+                         max_step_token, damaged));
       return;
     case Mode::string:
       if (!quote_) {
         quote_ = c == '\'';
+        if (!quote_) ++run_;
         return;
       }
       quote_ = false;
       if (c == '\'') {  // '' is a quote inside the string
         doubled_quotes_ = true;
+        run_ += 5;       // the reader gives OCCT \X\27 for it
         return;
       }
       mode_ = Mode::normal;   // the quote before ended the string: c is the next character
+      if (run_ > max_step_token) long_strings_.push_back({current_, run_line_, run_});
       break;
     case Mode::normal:
       break;
@@ -76,6 +105,7 @@ void StepStructureCheck::character(char c) {
     if (c == '*') {
       mode_ = Mode::comment;
       star_ = false;
+      run_ = 0;
       return;
     }
   }
@@ -83,6 +113,11 @@ void StepStructureCheck::character(char c) {
     if (token_.empty() && !word_.empty())
       fail_bare_word();
     token_ += c;
+    if (token_.size() > max_step_token)
+      fail(fmt::format("{}: a keyword, number or reference of more than {} characters ('{}...'), more than OCCT's "
+                       "reader takes; {}",
+                       here(), max_step_token, token_.substr(0, 24), damaged));
+    empty_list_ = false;
     return;
   }
   end_token();
@@ -96,14 +131,27 @@ void StepStructureCheck::character(char c) {
       fail_bare_word();
     word_.clear();
   }
+  const bool typed = std::exchange(after_keyword_, false);  // '(' after a keyword opens its parameters
+  const bool was_empty = std::exchange(empty_list_, false);
   switch (c) {
-    case '(':
+    case '(': {
       if (++depth_ > max_step_nesting)
         fail(fmt::format("{}: parentheses nest more than {} levels deep; {}", here(), max_step_nesting, damaged));
+      const auto d = static_cast<std::size_t>(depth_);
+      if (owner_.size() <= d) owner_.resize(d + 1);
+      owner_[d] = typed ? keyword_ : owner_[d - 1];  // a list belongs to the entity or value it stands in
+      empty_list_ = !typed;
       break;
-    case ')':
+    }
+    case ')': {
+      const std::string& owner = owner_[static_cast<std::size_t>(std::max(depth_, 0))];
+      if (was_empty && current_ != 0 && !empty_list_allowed(owner))
+        fail(fmt::format("{}: an empty list '()' in {}; the STEP schemas want at least one item in this list and "
+                         "OCCT's reader cannot take an empty one; {}",
+                         here(), owner.empty() ? "the entity" : owner, damaged));
       if (--depth_ < 0) fail(fmt::format("{}: a ')' closes no '('; {}", here(), damaged));
       break;
+    }
     case ';':
       if (depth_ != 0)
         fail(fmt::format("{}: the entity's parameter list is not closed before ';' ({} '(' open); {}", here(), depth_,
@@ -113,9 +161,12 @@ void StepStructureCheck::character(char c) {
     case '\'':
       mode_ = Mode::string;
       quote_ = false;
+      run_ = 0;
+      run_line_ = line_;
       break;
     case '"':
       mode_ = Mode::binary;
+      run_ = 0;
       break;
     default:
       break;
@@ -126,6 +177,7 @@ void StepStructureCheck::end_token() {
   if (token_.empty()) return;
   std::string t;
   t.swap(token_);
+  after_keyword_ = false;
   const char first = t.front();
   if (first == '#') {
     if (t.size() < 2 || !std::all_of(t.begin() + 1, t.end(), digit) || t.size() > 19)
@@ -155,6 +207,8 @@ void StepStructureCheck::end_token() {
   }
   if (std::isalpha(static_cast<unsigned char>(first)) != 0 || first == '!' || first == '_') {
     if (depth_ > 0) word_ = t;  // a keyword inside parameters must be followed by '(' (a typed value)
+    keyword_ = std::move(t);
+    after_keyword_ = true;
   }
 }
 
@@ -227,10 +281,11 @@ void StepStructureCheck::finish() {
   }
 }
 
-void check_step_structure(std::string_view text, const std::string& source) {
+std::vector<StepLongString> check_step_structure(std::string_view text, const std::string& source) {
   StepStructureCheck check(source);
   check.feed(text);
   check.finish();
+  return check.long_strings();
 }
 
 }  // namespace stepframe::geometry

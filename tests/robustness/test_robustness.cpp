@@ -76,6 +76,20 @@ const std::vector<Case> cases = {
     {"entity defined twice", run, "", {line_entity, line_entity + "\n#35 = LINE('',#36,#37);"}, 2,
      "#35 is defined twice"},
     {"parameter list not closed", run, "", {far_end, "#40 = CARTESIAN_POINT('',(6.E+03,0.,0.);"}, 2, "not closed"},
+    // Found by fuzz_step_import (tests/data/fuzz/): OCCT crashes on an empty list in many entities,
+    // and a NUL byte inside a keyword makes it read another entity than the one written.
+    {"empty list in a direction", run, "", {"#38 = DIRECTION('',(1.,0.,0.));", "#38 = DIRECTION('',());"}, 2,
+     "#38 (line 55): an empty list '()' in DIRECTION"},
+    {"NUL bytes inside a keyword", run, "", {curve_set, std::string("#33 = GEOMETRIC_CURVE_SET\0\0('IPE 300',(#34));", 45)},
+     2, "#33 (line 49): the text holds a control character (byte 0x00)"},
+    // Tokens longer than OCCT's lexer reads (16382 characters): strings are cut, anything else refused.
+    {"50000-character name cut with a warning", run,
+     base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {}\n    material: S355\n" + base_supports +
+         base_cases,
+     {curve_set, "#33 = GEOMETRIC_CURVE_SET('IPE 300 " + std::string(50000 - 8, 'x') + "',(#34));"}, 0,
+     "a string of #33 (line 49) is 50000 characters long"},
+    {"20000-character keyword", run, "", {far_end, "#40 = " + std::string(20000, 'P') + "('',(6.E+03,0.,0.));"}, 2,
+     "#40 (line 57): a keyword, number or reference of more than 16000 characters"},
     {"escaped quote followed by a comma in a name", run,
      base_head.substr(0, base_head.find("rules:")) +
          "rules:\n  - where: {name: \"IPE 300 'A', east\"}\n    section: IPE300\n    material: S355\n" +

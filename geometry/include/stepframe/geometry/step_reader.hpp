@@ -86,7 +86,8 @@ class StepReadError : public std::runtime_error {
 ///   "bodies-skipped" how many solids, shells and faces were ignored (one warning);
 ///   "no-length-unit" no unit declared, millimetres assumed;
 ///   "mixed-length-units" (info) parts declare different units;
-///   "edge-without-entity" (info) edges not traced to a STEP entity.
+///   "edge-without-entity" (info) edges not traced to a STEP entity;
+///   "step-string-shortened" a string longer than OCCT reads (max_step_token), cut.
 ///
 /// Throws StepReadError for a missing or unparsable file, or one with no
 /// usable edge. OCCT's STEP translator keeps process-wide settings and

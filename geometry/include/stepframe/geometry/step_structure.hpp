@@ -17,13 +17,41 @@ namespace stepframe::geometry {
 /// handful of levels: lists of lists of points).
 inline constexpr int max_step_nesting = 100;
 
+/// OCCT 7.6's STEP lexer keeps a token (a quoted string, a keyword, a number,
+/// a run of comment text) in a 16 KiB buffer that cannot grow: a token longer
+/// than 16382 characters stops its parse with "input buffer overflow"
+/// (tried with OCCT 7.6.3, Debian 12). stepframe takes this lower limit, for a
+/// margin: longer strings are cut to it before OCCT reads them (with a
+/// warning), any other longer token is refused.
+inline constexpr std::size_t max_step_token = 16000;
+
+/// A string longer than max_step_token: the entity holding it (0 in the
+/// header), the line it starts on and its length in characters as OCCT would
+/// read it (a doubled quote counts 5, since it is rewritten as \X\27).
+struct StepLongString {
+  std::uint64_t entity = 0;
+  std::size_t line = 0;
+  std::size_t length = 0;
+};
+
 /// Checks, as text arrives, that:
 /// - every reference (#12) names an entity the file defines, and no entity is defined twice;
 /// - no entity refers to itself, directly or through others (the STEP
 ///   schemas that stepframe reads allow no such cycle);
 /// - parentheses nest at most max_step_nesting deep and are balanced;
 /// - every number is finite (no 1E400) and no bare word (NAN, INF) stands
-///   where a value belongs.
+///   where a value belongs;
+/// - no entity instance holds an empty list `()`: the schemas' lists hold at
+///   least one item, and OCCT's reader crashes on an empty one in many
+///   entities (EDGE_LOOP, CONNECTED_EDGE_SET, TRIMMED_CURVE, DIRECTION...).
+///   A few entities of presentation and product data that exporters do
+///   write with an empty list, and that OCCT reads safely, are let through
+///   (empty_list_allowed);
+/// - the file holds no control characters (a NUL byte inside a keyword
+///   makes OCCT read another entity than the one written) other than tab,
+///   line feed and carriage return;
+/// - no keyword, number, reference, binary value or run of comment text is
+///   longer than max_step_token (longer strings are listed in long_strings()).
 /// Each failure throws StepReadError naming `source`, the entity (#id) and
 /// its line, and what to do.
 class StepStructureCheck {
@@ -38,6 +66,8 @@ class StepStructureCheck {
   /// True when a string holds a doubled quote ('O''Neil'), which OCCT's
   /// lexer mis-reads before a comma (the reader rewrites such text).
   bool doubled_quotes() const { return doubled_quotes_; }
+  /// The strings that must be cut before OCCT reads them (shorten_long_strings).
+  const std::vector<StepLongString>& long_strings() const { return long_strings_; }
 
  private:
   void character(char c);
@@ -53,10 +83,17 @@ class StepStructureCheck {
   bool star_ = false;           // a '*' that may close one
   bool quote_ = false;          // a quote inside a string that may be the first of ''
   bool doubled_quotes_ = false;
+  std::size_t run_ = 0;         // length of the string, binary value or comment text being read
+  std::size_t run_line_ = 0;    // the line it starts on
+  std::vector<StepLongString> long_strings_;
   std::string token_;
   std::string word_;            // a keyword waiting to see whether '(' follows
   std::size_t word_line_ = 0;
   int depth_ = 0;
+  std::vector<std::string> owner_;  // per depth: the entity type or typed value whose parameters are open
+  bool empty_list_ = false;     // a list '(' opened and nothing seen in it yet
+  std::string keyword_;         // the last keyword read
+  bool after_keyword_ = false;  // nothing but blanks since it
   std::size_t line_ = 1;
   // The entity being read.
   std::uint64_t current_ = 0;   // its id, 0 between entities
@@ -69,7 +106,10 @@ class StepStructureCheck {
   std::vector<std::uint64_t> refs_;
 };
 
-/// Runs StepStructureCheck over the whole text.
-void check_step_structure(std::string_view text, const std::string& source);
+/// True for the entity types whose lists may be empty (see StepStructureCheck).
+bool empty_list_allowed(std::string_view entity_type);
+
+/// Runs StepStructureCheck over the whole text; returns its long_strings().
+std::vector<StepLongString> check_step_structure(std::string_view text, const std::string& source);
 
 }  // namespace stepframe::geometry

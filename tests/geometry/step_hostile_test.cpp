@@ -1,0 +1,128 @@
+// STEP text that OCCT's reader cannot take as it is: inputs the fuzz targets
+// found (tests/data/fuzz/) and strings longer than OCCT's lexer reads. Each is
+// refused with a message naming the entity and line, or rewritten so that OCCT
+// reads it, never handed to OCCT to crash on.
+
+#include "stepframe/geometry/step_reader.hpp"
+#include "stepframe/geometry/step_structure.hpp"
+
+#include <catch2/catch.hpp>
+
+#include <algorithm>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+#include <string>
+
+namespace sg = stepframe::geometry;
+
+namespace {
+
+const std::filesystem::path data = STEPFRAME_TEST_DATA;
+
+std::string read_text(const std::filesystem::path& file) {
+  std::ifstream in(file, std::ios::binary);
+  std::ostringstream text;
+  text << in.rdbuf();
+  return text.str();
+}
+
+/// The message read_step_text refuses `text` with ("" when it reads it).
+std::string refusal(const std::string& text) {
+  try {
+    (void)sg::read_step_text(text, "<test>");
+  } catch (const sg::StepReadError& e) {
+    return e.what();
+  }
+  return "";
+}
+
+/// beam_6m_ipe300_mm.stp (one 6 m IPE 300 line, #33 its curve set on line 49)
+/// with `what` replaced by `with`.
+std::string beam_with(const std::string& what, const std::string& with) {
+  std::string text = read_text(data / "beam_6m_ipe300_mm.stp");
+  const auto at = text.find(what);
+  REQUIRE(at != std::string::npos);
+  return text.replace(at, what.size(), with);
+}
+
+const std::string curve_set = "#33 = GEOMETRIC_CURVE_SET('IPE 300',(#34));";
+
+}  // namespace
+
+TEST_CASE("fuzz finding: NUL bytes inside a keyword are refused before OCCT reads them", "[step][hostile]") {
+  // fuzz_step_import turned WIRE_SHELL into WIRE_SHELL followed by NUL bytes: OCCT's lexer skips NULs,
+  // the shell-wireframe rewrite did not, and OCCT crashed on the edge-based model it was then given.
+  const std::string message = refusal(read_text(data / "fuzz" / "nul_bytes_in_wire_shell_keyword.stp"));
+  CHECK_THAT(message, Catch::Contains("<test>: #51 (line 27): the text holds a control character (byte 0x00)"));
+}
+
+TEST_CASE("fuzz finding: a shell-based model without a wire shell is read without crashing OCCT",
+          "[step][hostile]") {
+  // The same model with its wire shell's type misspelt: the rewrite used to give OCCT an edge-based
+  // model with an empty list, on which OCCT crashes. Now the model is left out; what remains is the
+  // vertex shell's point, and a file without a single edge is refused as such.
+  const std::string message = refusal(read_text(data / "fuzz" / "shell_model_without_wire_shell.stp"));
+  CHECK_THAT(message, Catch::Contains("<test>: contains no usable edges (0 edges seen"));
+}
+
+TEST_CASE("an empty list is refused naming the entity, except where exporters write one", "[step][hostile]") {
+  // OCCT 7.6 crashes on an empty list in these (tried one by one); ISO 10303-42 gives each list at least one item.
+  for (const auto& [entity, type] : {std::pair{"#38 = DIRECTION('',());", "DIRECTION"},
+                                     {"#38 = EDGE_LOOP('',());", "EDGE_LOOP"},
+                                     {"#38 = CONNECTED_EDGE_SET('',());", "CONNECTED_EDGE_SET"},
+                                     {"#38 = TRIMMED_CURVE('',#35,(),(),.T.,.PARAMETER.);", "TRIMMED_CURVE"}}) {
+    CAPTURE(entity);
+    CHECK_THAT(refusal(beam_with("#38 = DIRECTION('',(1.,0.,0.));", entity)),
+               Catch::Contains(std::string("#38 (line 55): an empty list '()' in ") + type));
+  }
+  // A layer assignment with no items and a product without a context read as before.
+  CHECK(refusal(beam_with(curve_set, curve_set + "\n#98 = PRESENTATION_LAYER_ASSIGNMENT('EMPTY','',());")).empty());
+  CHECK(refusal(beam_with("'',(#30));", "'',());")).empty());
+  // Typed values and complex entities with no parameters are no lists: ( LENGTH_UNIT() NAMED_UNIT(*) ... ).
+  CHECK(sg::empty_list_allowed("STYLED_ITEM"));
+  CHECK_FALSE(sg::empty_list_allowed("EDGE_LOOP"));
+}
+
+TEST_CASE("a string longer than OCCT reads is cut with a warning naming the entity", "[step][hostile]") {
+  // OCCT 7.6's lexer stops at "input buffer overflow" on a token of 16383 characters or more (tried).
+  const std::string name = "IPE 300 " + std::string(50000 - 8, 'x');
+  const std::string text = beam_with(curve_set, "#33 = GEOMETRIC_CURVE_SET('" + name + "',(#34));");
+  const auto check_model = [&](const sg::StepModel& model) {
+    REQUIRE(model.edges.size() == 1);
+    const std::string& read = model.edges[0].source.name;
+    CHECK(read.size() == sg::max_step_token);
+    CHECK(read.starts_with("IPE 300 xxx"));
+    CHECK(read.ends_with("x..."));
+    const auto found = std::find_if(model.diagnostics.begin(), model.diagnostics.end(),
+                                    [](const sg::Diagnostic& d) { return d.code == "step-string-shortened"; });
+    REQUIRE(found != model.diagnostics.end());
+    CHECK(found->entities == std::vector<std::string>{"#33"});
+    CHECK_THAT(found->message, Catch::Contains("a string of #33 (line 49) is 50000 characters long"));
+  };
+  SECTION("in memory") { check_model(sg::read_step_text(text, "<test>")); }
+  SECTION("in a file") {
+    const auto file = std::filesystem::temp_directory_path() / "stepframe-long-name-test.stp";
+    std::ofstream(file, std::ios::binary) << text;
+    check_model(sg::read_step(file));
+    std::filesystem::remove(file);
+  }
+  SECTION("a cut keeps control directives whole") {
+    // \X2\...\X0\ encodes UTF-16 characters (ISO 10303-21 7.3.4): cut before it rather than inside.
+    const std::string encoded = "IPE 300 " + std::string(sg::max_step_token - 12, 'x') + "\\X2\\00E900E9\\X0\\tail";
+    const sg::StepModel model = sg::read_step_text(
+        beam_with(curve_set, "#33 = GEOMETRIC_CURVE_SET('" + encoded + "',(#34));"), "<test>");
+    REQUIRE(model.edges.size() == 1);
+    CHECK(model.edges[0].source.name == "IPE 300 " + std::string(sg::max_step_token - 12, 'x') + "...");
+  }
+}
+
+TEST_CASE("a keyword, number or comment longer than OCCT reads is refused naming the line", "[step][hostile]") {
+  CHECK_THAT(refusal(beam_with(curve_set, "#33 = " + std::string(20000, 'A') + "('IPE 300',(#34));")),
+             Catch::Contains("#33 (line 49): a keyword, number or reference of more than 16000 characters ('AAAA"));
+  CHECK_THAT(refusal(beam_with("#40 = CARTESIAN_POINT('',(6.E+03,0.,0.));",
+                               "#40 = CARTESIAN_POINT('',(6" + std::string(20000, '0') + ".,0.,0.));")),
+             Catch::Contains("#40 (line 57): a keyword, number or reference of more than 16000 characters"));
+  CHECK_THAT(refusal(beam_with(curve_set, "/* " + std::string(20000, 'c') + " */\n" + curve_set)),
+             Catch::Contains("line 49: a comment holds more than 16000 characters without a line break"));
+}
