@@ -15,6 +15,7 @@ namespace {
 
 using detail::csv_field;
 using detail::member_length;
+using detail::design_results;
 
 std::string mark_of(const Analysis& a, std::size_t m) { return m < a.shop.marks.size() ? a.shop.marks[m] : ""; }
 double camber_of(const Analysis& a, std::size_t m) { return m < a.shop.camber.size() ? a.shop.camber[m] : 0.0; }
@@ -64,11 +65,7 @@ std::string cutlist_csv(const Analysis& a) {
 
 std::string connections_csv(const Analysis& a) {
   const auto& model = a.built.model;
-  std::vector<const analysis::LoadResult*> pool;
-  for (const auto& r : a.results)
-    if (r.is_combination) pool.push_back(&r);
-  if (pool.empty())
-    for (const auto& r : a.results) pool.push_back(&r);
+  const std::vector<const analysis::LoadResult*> pool = design_results(a.results);
   // Member ends by node, in node order.
   std::map<std::size_t, std::vector<std::pair<std::size_t, int>>> ends;
   for (std::size_t m = 0; m < model.members.size(); ++m) {

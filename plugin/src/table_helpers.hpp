@@ -2,9 +2,11 @@
 // Helpers the plain-text tables share (tables.cpp, shop_tables.cpp, shop_data.cpp).
 
 #include "stepframe/analysis/frame_model.hpp"
+#include "stepframe/analysis/results.hpp"
 
 #include <cstddef>
 #include <string>
+#include <vector>
 
 namespace stepframe::detail {
 
@@ -24,6 +26,16 @@ inline double member_length(const analysis::FrameModel& model, std::size_t membe
     length += (model.nodes[el.nodes[1]] - model.nodes[el.nodes[0]]).norm();
   }
   return length;
+}
+
+/// The results the design tables go over: the combinations when there are any, else the cases.
+inline std::vector<const analysis::LoadResult*> design_results(const std::vector<analysis::LoadResult>& results) {
+  std::vector<const analysis::LoadResult*> pool;
+  for (const auto& r : results)
+    if (r.is_combination) pool.push_back(&r);
+  if (pool.empty())
+    for (const auto& r : results) pool.push_back(&r);
+  return pool;
 }
 
 }  // namespace stepframe::detail

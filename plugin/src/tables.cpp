@@ -13,6 +13,7 @@ namespace {
 
 using detail::csv_field;
 using detail::member_length;
+using detail::design_results;
 
 const analysis::FrameElement& first_element(const analysis::FrameModel& model, std::size_t member) {
   return model.elements[model.members[member].elements.front()];
@@ -116,11 +117,7 @@ std::string reactions_csv(const Analysis& a) {
 
 std::string end_forces_csv(const Analysis& a) {
   const auto& model = a.built.model;
-  std::vector<const analysis::LoadResult*> pool;
-  for (const auto& r : a.results)
-    if (r.is_combination) pool.push_back(&r);
-  if (pool.empty())
-    for (const auto& r : a.results) pool.push_back(&r);
+  const std::vector<const analysis::LoadResult*> pool = design_results(a.results);
 
   constexpr std::array<const char*, 6> names{"N_kN", "Vy_kN", "Vz_kN", "T_kNm", "My_kNm", "Mz_kNm"};
   std::string out = "member,entity,end,component,max,max_combination,min,min_combination\n";
