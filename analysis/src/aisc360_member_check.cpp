@@ -6,6 +6,7 @@
 #include "stepframe/analysis/aisc360.hpp"
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/analysis/parallel.hpp"
+#include "stepframe/analysis/worst_checks.hpp"
 
 #include <fmt/format.h>
 
@@ -377,7 +378,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
   // B2 per result (capped so a frame beyond its sway buckling load fails with finite numbers).
   std::vector<double> b2;
   for (const auto& f : sway_factors(model, results)) b2.push_back(f ? std::min(sway_amplifier(f->alpha, method), 1e3) : 1.0);
-  std::vector<std::map<std::string, CheckResult>> worst(chains.size());
+  std::vector<WorstByCheck> worst(chains.size());
   parallel_for(chains.size(), [&](std::size_t m) {
     const FrameElement& first = model.elements[chains[m].elements.front()];
     const std::size_t start = first.nodes[0], end = model.elements[chains[m].elements.back()].nodes[1];
@@ -391,16 +392,10 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
       const LineResult line = member_line(model, *results[i], chains[m], LineDetail::stations);
       in.length = line.length;
       in.B2 = b2[i];
-      for (CheckResult& c : check_member(in, line, results[i]->name, method)) {
-        auto [it, inserted] = worst[m].try_emplace(c.check, c);
-        if (!inserted && c.utilisation > it->second.utilisation) it->second = std::move(c);
-      }
+      keep_worst(worst[m], check_member(in, line, results[i]->name, method));
     }
   });
-  std::vector<CheckResult> out;
-  for (auto& per_member : worst)
-    for (auto& [check, c] : per_member) out.push_back(std::move(c));
-  return out;
+  return flatten(std::move(worst));
 }
 
 }  // namespace stepframe::analysis::aisc360

@@ -3,6 +3,7 @@
 #include "stepframe/analysis/en1993.hpp"
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/analysis/parallel.hpp"
+#include "stepframe/analysis/worst_checks.hpp"
 
 #include <fmt/format.h>
 
@@ -347,7 +348,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
   const auto chains = member_chains(model);
   // Per member, the worst result of each check over the results, ordered by check name; the
   // members are independent, so they are spread over the cores and joined in member order.
-  std::vector<std::map<std::string, CheckResult>> worst(chains.size());
+  std::vector<WorstByCheck> worst(chains.size());
   parallel_for(chains.size(), [&](std::size_t m) {
     const FrameElement& first = model.elements[chains[m].elements.front()];
     MemberInput in;
@@ -358,16 +359,10 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     for (const LoadResult* r : results) {
       const LineResult line = member_line(model, *r, chains[m], LineDetail::stations);
       in.length = line.length;
-      for (CheckResult& c : check_member(in, line, r->name, factors, ltb)) {
-        auto [it, inserted] = worst[m].try_emplace(c.check, c);
-        if (!inserted && c.utilisation > it->second.utilisation) it->second = std::move(c);
-      }
+      keep_worst(worst[m], check_member(in, line, r->name, factors, ltb));
     }
   });
-  std::vector<CheckResult> out;
-  for (auto& per_member : worst)
-    for (auto& [check, c] : per_member) out.push_back(std::move(c));
-  return out;
+  return flatten(std::move(worst));
 }
 
 }  // namespace stepframe::analysis::en1993
