@@ -1,6 +1,7 @@
 // Small text helpers and member orderings shared by the sections of report.html.
 
 #include "report_parts.hpp"
+#include "stepframe/tables.hpp"
 
 #include "stepframe/viz/colour_scale.hpp"
 #include "stepframe/viz/markup.hpp"
@@ -36,17 +37,12 @@ std::string with_unit(double value, const std::string& unit) {
 }
 
 std::string with_unit(double value, const std::string& unit, const Project& project) {
-  // Exact factors: inch = 0.0254 m, lbf = 0.45359237 kg x 9.80665 m/s^2 (as units.cpp).
-  const bool kip = project.force_unit == "kip", lbf = project.force_unit == "lbf";
-  if (!kip && !lbf) return with_unit(value, unit);
-  const double inch = 0.0254, force = (kip ? 1e3 : 1.0) * 0.45359237 * 9.80665;
-  const bool feet = project.length_unit == "ft" || project.length_unit == "foot";
-  const std::string f = kip ? "kip" : "lbf";
-  if (unit == "N") return num(value / force) + " " + f;
-  if (unit == "N*m") return num(value / (force * (feet ? 12 * inch : inch))) + " " + f + (feet ? "·ft" : "·in");
-  if (unit == "Pa") return num(value / (force / (inch * inch))) + (kip ? " ksi" : " psi");
-  if (unit == "m") return num(value / inch) + " in";
-  return num(value);
+  if (project.force_unit != "kip" && project.force_unit != "lbf") return with_unit(value, unit);
+  const PeopleUnit u = people_unit(unit, project);
+  if (u.name.empty()) return num(value);
+  std::string name = u.name;  // kip*ft -> kip·ft
+  if (const auto star = name.find('*'); star != std::string::npos) name.replace(star, 1, "·");
+  return num(value * u.factor) + " " + name;
 }
 
 double member_length(const analysis::FrameModel& model, const analysis::Member& member) {

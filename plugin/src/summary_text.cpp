@@ -1,5 +1,6 @@
 #include "stepframe/counted.hpp"
 #include "stepframe/run.hpp"
+#include "stepframe/tables.hpp"
 
 #include <fmt/format.h>
 
@@ -7,7 +8,15 @@
 
 namespace stepframe {
 
-// Report edge: SI inside, MPa and mm for people.
+// What the sway variants' forces are: a US project (AISC 360 checks only) that sets phi uses them as
+// the notional loads of AISC 360 C2.2b; otherwise they are EN 1993-1-1's sway imperfections.
+std::string sway_words(const Project& project) {
+  const bool us = project.checks.aisc360 && !project.checks.en1993 && project.sway_imperfection.phi;
+  return us ? fmt::format("notional loads {:g} Yi, AISC 360 C2.2b", *project.sway_imperfection.phi)
+            : "sway imperfections, EN 1993-1-1 5.3.2";
+}
+
+// Report edge: SI inside, the project's units for people (MPa and mm, or ksi and in).
 std::string summary_text(const Analysis& a) {
   const auto& model = a.built.model;
   std::string out;
@@ -17,10 +26,12 @@ std::string summary_text(const Analysis& a) {
   out += fmt::format("stepframe: {}  ({}, {}, {}, {}{})\n", pass ? "PASS" : "FAIL", counted(model.members.size(), "member"),
                      counted(model.nodes.size(), "node"), counted(a.project.cases.size(), "load case"),
                      counted(a.project.combinations.size(), "combination"),
-                     variants ? fmt::format(" + {} with sway imperfections, EN 1993-1-1 5.3.2", variants) : "");
+                     variants ? fmt::format(" + {} with {}", variants, sway_words(a.project)) : "");
 
-  out += fmt::format("\n{:<16} {:<12} {:>14} {:>14} {:>14} {:>9}\n", "case or comb.", "kind", "von Mises MPa",
-                     "local defl. mm", "node |u| mm", "alpha_cr");
+  const PeopleUnit stress_unit = people_unit("Pa", a.project), length_unit = people_unit("m", a.project);
+  out += fmt::format("\n{:<16} {:<12} {:>14} {:>14} {:>14} {:>9}\n", "case or comb.", "kind",
+                     "von Mises " + stress_unit.name, "local defl. " + length_unit.name,
+                     "node |u| " + length_unit.name, "alpha_cr");
   for (const auto& r : a.results) {
     double stress = 0, deflection = 0, u = 0;
     for (const auto& m : r.members)
@@ -28,8 +39,8 @@ std::string summary_text(const Analysis& a) {
     for (std::size_t n = 0; n < model.nodes.size(); ++n)
       u = std::max(u, r.displacements.segment<3>(static_cast<Eigen::Index>(6 * n)).norm());
     out += fmt::format("{:<16} {:<12} {:>14.1f} {:>14.2f} {:>14.2f} {:>9}\n", r.name,
-                       r.is_combination ? (r.second_order ? "comb. (P-D)" : "combination") : "case", stress / 1e6,
-                       deflection * 1e3, u * 1e3, r.alpha_cr ? fmt::format("{:.2f}", *r.alpha_cr) : "-");
+                       r.is_combination ? (r.second_order ? "comb. (P-D)" : "combination") : "case", stress * stress_unit.factor,
+                       deflection * length_unit.factor, u * length_unit.factor, r.alpha_cr ? fmt::format("{:.2f}", *r.alpha_cr) : "-");
   }
 
   if (!a.checks.empty()) {

@@ -30,6 +30,20 @@ PeopleUnit people_unit(const std::string& si_unit) {
   return {"", 1.0};  // a ratio
 }
 
+PeopleUnit people_unit(const std::string& si_unit, const Project& project) {
+  const bool kip = project.force_unit == "kip", lbf = project.force_unit == "lbf";
+  if (!kip && !lbf) return people_unit(si_unit);
+  // Exact factors: inch = 0.0254 m, lbf = 0.45359237 kg x 9.80665 m/s^2 (as units.cpp).
+  const double inch = 0.0254, force = (kip ? 1e3 : 1.0) * 0.45359237 * 9.80665;
+  const bool feet = project.length_unit == "ft" || project.length_unit == "foot";
+  const std::string f = kip ? "kip" : "lbf";
+  if (si_unit == "N") return {f, 1 / force};
+  if (si_unit == "N*m") return {f + (feet ? "*ft" : "*in"), 1 / (force * (feet ? 12 * inch : inch))};
+  if (si_unit == "Pa") return {kip ? "ksi" : "psi", inch * inch / force};
+  if (si_unit == "m") return {"in", 1 / inch};
+  return people_unit(si_unit);
+}
+
 std::string checks_csv(const Analysis& a) {
   const auto& model = a.built.model;
   std::vector<const analysis::CheckResult*> governing(model.members.size(), nullptr);
@@ -42,7 +56,7 @@ std::string checks_csv(const Analysis& a) {
     const auto& src = a.built.member_sources[m];
     const auto& section = model.sections[first_element(model, m).section].designation;
     if (const auto* c = governing[m]) {
-      const auto unit = people_unit(c->unit);
+      const auto unit = people_unit(c->unit, a.project);
       out += fmt::format("{},{},{},{},{:.4f},{:.6g},{:.6g},{},{},{},{},{:.4f},{}\n", m, csv_field(src.entity),
                          csv_field(src.name), csv_field(section), c->utilisation, c->value * unit.factor,
                          c->limit * unit.factor, unit.name, c->check, csv_field(c->clause), csv_field(c->combination),

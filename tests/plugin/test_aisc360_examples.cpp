@@ -13,11 +13,13 @@
 
 #include "stepframe/geometry/step_writer.hpp"
 #include "stepframe/stepframe.hpp"
+#include "stepframe/tables.hpp"
 #include "test_helpers.hpp"
 
 #include <catch2/catch.hpp>
 #include <nlohmann/json.hpp>
 
+#include <cmath>
 #include <string>
 
 using namespace stepframe;
@@ -161,4 +163,16 @@ TEST_CASE("the US demo platform runs to AISC 360 LRFD and passes") {
   CHECK(interaction >= 6);              // at least the six columns
   CHECK(columns_in_compression >= 6);
   CHECK(results.status() == ExitStatus::pass);
+  // People read US units where the project asks for kip (README "ANSI/AISC 360-16"): the summary and
+  // checks.csv as well as the report; 1 ksi = 6.894757 MPa (inch 0.0254 m, lbf 4.4482216 N, exact).
+  const std::string summary = summary_text(a);
+  CHECK_THAT(summary, Contains("von Mises ksi") && Contains("local defl. in") && Contains("notional loads 0.002 Yi"));
+  const std::string csv = checks_csv(a);
+  CHECK_FALSE(Contains(",MPa,").match(csv));
+  CHECK_FALSE(Contains(",kN*m,").match(csv));
+  const PeopleUnit ksi = people_unit("Pa", a.project), kip_ft = people_unit("N*m", a.project);
+  CHECK(ksi.name == "ksi");
+  CHECK(std::abs(1e6 * 6.894757 * ksi.factor - 1.0) < 1e-6);
+  CHECK(kip_ft.name == "kip*ft");  // 1 kip*ft = 4448.2216 N x 0.3048 m = 1355.818 N*m
+  CHECK(std::abs(1355.818 * kip_ft.factor - 1.0) < 1e-6);
 }

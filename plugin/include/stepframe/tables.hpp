@@ -16,6 +16,10 @@ struct PeopleUnit {
   double factor = 1;
 };
 PeopleUnit people_unit(const std::string& si_unit);
+/// The same in the project's units: a project whose `units.force` is kip or
+/// lbf reads ksi (psi), in, kip (lbf) and kip*ft or kip*in (after
+/// `units.length`: ft, else in); every other project the metric units above.
+PeopleUnit people_unit(const std::string& si_unit, const Project& project);
 
 /// checks.csv: one row per member: governing utilisation, the checked value
 /// and its limit in the unit named beside them, check, clause, combination and
