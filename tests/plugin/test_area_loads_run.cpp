@@ -5,6 +5,7 @@
 
 #include "stepframe/geometry/step_writer.hpp"
 #include "stepframe/stepframe.hpp"
+#include "run_options.hpp"
 #include "test_helpers.hpp"
 
 #include <catch2/catch.hpp>
@@ -17,11 +18,7 @@ using Catch::Matchers::Contains;
 
 namespace {
 
-RunOptions out_to(const std::filesystem::path& folder) {
-  RunOptions options;
-  options.out_dir = folder;
-  return options;
-}
+using test::out_to;
 
 void write_floor(const test::ScratchDir& dir) {
   std::vector<geometry::LineToWrite> lines;

@@ -8,6 +8,7 @@
 #include "stepframe/geometry/step_writer.hpp"
 #include "stepframe/project_reader.hpp"
 #include "stepframe/stepframe.hpp"
+#include "run_options.hpp"
 #include "test_helpers.hpp"
 
 #include <catch2/catch.hpp>
@@ -21,11 +22,7 @@ using Catch::Matchers::Contains;
 
 namespace {
 
-RunOptions out_to(const std::filesystem::path& folder) {
-  RunOptions options;
-  options.out_dir = folder;
-  return options;
-}
+using test::out_to;
 
 // A portal in the XZ plane (invented test data): HEA 200 columns 4 m high, an IPE 300 beam 6 m long.
 void write_portal(const test::ScratchDir& dir) {
