@@ -15,6 +15,7 @@
 #include "stepframe/stepframe.hpp"
 #include "stepframe/tables.hpp"
 #include "test_helpers.hpp"
+#include "worked_example_run.hpp"
 
 #include <catch2/catch.hpp>
 #include <nlohmann/json.hpp>
@@ -29,27 +30,9 @@ namespace {
 
 constexpr double kip = 4448.2216152605, ft = 0.3048, in = 0.0254;
 
-/// One straight edge along X from the origin, `length` metres long, named `name`.
-void write_member(const std::filesystem::path& file, double length, const std::string& name) {
-  geometry::LineToWrite line{{0, 0, 0}, {length, 0, 0}, {}};
-  line.attributes.name = name;
-  line.attributes.layers = {"MEMBER"};
-  geometry::write_step_wireframe(file, {line}, "mm");
-}
-
-const nlohmann::json& check_entry(const nlohmann::json& doc, const std::string& check) {
-  for (const auto& c : doc["checks"])
-    if (c["check"] == check) return c;
-  FAIL("results.json has no check " << check);
-  static const nlohmann::json none;
-  return none;
-}
-
-double detail(const nlohmann::json& check, const std::string& name) {
-  INFO(check.dump());
-  REQUIRE(check["details"].contains(name));
-  return check["details"][name].get<double>();
-}
+using test::check_entry;
+using test::detail;
+using test::write_member;
 
 /// The F.1-1 beam: W18x50, A992, 35 ft simple span, compression flange braced (3.5 ft spacing, below
 /// Lp = 5.83 ft: no lateral-torsional buckling, as continuous bracing), wD = 0.45 and wL = 0.75 kip/ft.

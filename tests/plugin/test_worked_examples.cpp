@@ -19,6 +19,7 @@
 #include "stepframe/geometry/step_writer.hpp"
 #include "stepframe/stepframe.hpp"
 #include "test_helpers.hpp"
+#include "worked_example_run.hpp"
 
 #include <catch2/catch.hpp>
 #include <nlohmann/json.hpp>
@@ -30,28 +31,9 @@ using Catch::Matchers::Contains;
 
 namespace {
 
-/// One straight edge along X from the origin, `length` metres long, named `name`, written in millimetres.
-void write_member(const std::filesystem::path& file, double length, const std::string& name) {
-  geometry::LineToWrite line{{0, 0, 0}, {length, 0, 0}, {}};
-  line.attributes.name = name;
-  line.attributes.layers = {"MEMBER"};
-  geometry::write_step_wireframe(file, {line}, "mm");
-}
-
-/// The check named `check` of results.json (one member, so one entry per check).
-const nlohmann::json& check_entry(const nlohmann::json& doc, const std::string& check) {
-  for (const auto& c : doc["checks"])
-    if (c["check"] == check) return c;
-  FAIL("results.json has no check " << check);
-  static const nlohmann::json none;
-  return none;
-}
-
-double detail(const nlohmann::json& check, const std::string& name) {
-  INFO(check.dump());
-  REQUIRE(check["details"].contains(name));
-  return check["details"][name].get<double>();
-}
+using test::check_entry;
+using test::detail;
+using test::write_member;
 
 }  // namespace
 
