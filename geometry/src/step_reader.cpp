@@ -1,6 +1,7 @@
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/geometry/step_structure.hpp"
 
+#include "broken_links.hpp"
 #include "declared_length_unit.hpp"
 #include "edge_entities.hpp"
 #include "harvest.hpp"
@@ -150,6 +151,16 @@ StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source) 
   const Handle(StepData_StepModel) step_model = reader.Reader().StepModel();
   if (step_model.IsNull() || step_model->NbEntities() == 0)
     fail(source, fmt::format("holds no STEP entities. {}", export_advice));
+
+  if (const std::vector<detail::BrokenLink> broken = detail::broken_structure_links(step_model); !broken.empty()) {
+    const detail::BrokenLink& first = broken.front();
+    fail(source, fmt::format("entity #{} ({}) ties the assembly together but OCCT could not read it ({}): it "
+                             "refers to an entity whose type is not allowed there, a misspelt or unknown entity "
+                             "type perhaps{}. Correct that reference or type in the file. {}",
+                             first.entity, first.type, first.failures,
+                             broken.size() > 1 ? fmt::format(" ({} such entities in all)", broken.size()) : "",
+                             export_advice));
+  }
 
   detail::XdeDocument document;
   // OCCT converts coordinates into the document's unit; fix it to millimetres

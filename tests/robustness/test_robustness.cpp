@@ -82,6 +82,9 @@ const std::vector<Case> cases = {
      "#38 (line 55): an empty list '()' in DIRECTION"},
     {"NUL bytes inside a keyword", run, "", {curve_set, std::string("#33 = GEOMETRIC_CURVE_SET\0\0('IPE 300',(#34));", 45)},
      2, "#33 (line 49): the text holds a control character (byte 0x00)"},
+    {"unknown type where the assembly expects a representation", run, "",
+     {"#10 = SHAPE_REPRESENTATION(", "#10 = SHAPPE_REPRESENTATION("}, 2,
+     "entity #3 (StepShape_ShapeDefinitionRepresentation) ties the assembly together but OCCT could not read it"},
     // Tokens longer than OCCT's lexer reads (16382 characters): strings are cut, anything else refused.
     {"50000-character name cut with a warning", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {}\n    material: S355\n" + base_supports +
