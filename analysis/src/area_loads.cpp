@@ -122,9 +122,11 @@ AreaLoadResult distribute_area_load(const FrameModel& model, const AreaLoadInput
         ++it;
         continue;
       }
-      for (const auto& [other, e] : it->second) {
-        auto& list = adjacent[other];
-        list.erase(std::remove_if(list.begin(), list.end(), [&](const auto& x) { return x.second == e; }), list.end());
+      for (const auto& link : it->second) {
+        auto& list = adjacent[link.first];
+        const auto member = link.second;  // a plain name: clang 14 cannot capture a structured binding
+        list.erase(std::remove_if(list.begin(), list.end(), [&](const auto& x) { return x.second == member; }),
+                   list.end());
       }
       it = adjacent.erase(it);
       pruned = true;

@@ -10,6 +10,7 @@ char* openblas_get_config(void);
 char* openblas_get_corename(void);
 int openblas_get_num_threads(void);
 int openblas_get_parallel(void);
+void openblas_set_num_threads(int num_threads);
 }
 #endif
 
@@ -32,6 +33,14 @@ std::string blas_description() {
 #else
   return "the reference BLAS (this build found no OpenBLAS: large factorisations are several times slower; "
          "install libopenblas-dev and rebuild)";
+#endif
+}
+
+void set_blas_threads(int threads) {
+#ifdef STEPFRAME_HAVE_OPENBLAS
+  openblas_set_num_threads(threads);
+#else
+  (void)threads;
 #endif
 }
 

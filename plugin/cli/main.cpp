@@ -5,6 +5,7 @@
 #include "suggest_command.hpp"
 #include "init_command.hpp"
 #include "progress_display.hpp"
+#include "stepframe/analysis/blas_info.hpp"
 #include "sections_command.hpp"
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/geometry/wireframe.hpp"
@@ -164,6 +165,11 @@ int main(int argc, char** argv) {
   const bool terminal = stepframe::cli::stderr_is_terminal();
   logger->set_pattern(terminal ? "\r\033[K%^%l%$: %v" : "%^%l%$: %v");
   spdlog::set_default_logger(logger);
+  // OpenBLAS' threads spin-wait for one another: with the second core busy (a
+  // build, another run) its two threads made the factorisation of a
+  // 10,000-member frame 4x and the buckling analysis 14x slower than one
+  // thread did (measured, README "Speed"). One thread unless the user asks.
+  if (std::getenv("OPENBLAS_NUM_THREADS") == nullptr) stepframe::analysis::set_blas_threads(1);
 
   // Named here, so help shows `stepframe`, not the path it was started by.
   CLI::App app{"stepframe: analyse steel frames drawn as STEP wireframes.\n" + std::string(stepframe::caution), "stepframe"};

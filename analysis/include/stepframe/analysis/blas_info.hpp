@@ -14,4 +14,9 @@ std::string blas_description();
 /// True when OpenBLAS is linked.
 bool optimised_blas();
 
+/// Runs OpenBLAS' kernels on `threads` threads from now on. Process-wide (OpenBLAS
+/// keeps one setting), so a library leaves this to its host; the command line
+/// calls it. No effect without OpenBLAS.
+void set_blas_threads(int threads);
+
 }  // namespace stepframe::analysis
