@@ -52,11 +52,27 @@ std::optional<double> plastic_interaction(const Section& s, const PlasticResista
   // The linear sum (6.2) bounds it from above, and n from below: lambda* lies in [1 / linear, 1 / n].
   const double linear = std::abs(N) / r.N + std::abs(My) / r.My + std::abs(Mz) / r.Mz;
   double lo = 1 / linear, hi = 2 * lo;
-  if (criterion(lo) > 1) hi = lo, lo = 0;  // never expected; keeps the bracket honest
-  while (criterion(hi) <= 1) lo = hi, hi *= 2;
+  double f_lo = criterion(lo) - 1, f_hi = 0;
+  if (f_lo > 0) hi = lo, f_hi = f_lo, lo = 0, f_lo = -1;  // never expected; keeps the bracket honest
+  else
+    while ((f_hi = criterion(hi) - 1) <= 0) lo = hi, f_lo = f_hi, hi *= 2;
+  // The root of criterion - 1 in [lo, hi] by the Illinois variant of regula falsi (Dowell & Jarratt,
+  // BIT 11, 1971; from memory): the false-position point, with the function value at an end kept twice
+  // in a row halved so that both ends close in; a bisection step while f(hi) is infinite (n >= 1).
+  int kept = 0;  // +1: lo kept last time, -1: hi kept
   for (int k = 0; k < 100 && hi - lo > 1e-10 * hi; ++k) {
-    const double mid = 0.5 * (lo + hi);
-    (criterion(mid) <= 1 ? lo : hi) = mid;
+    double at = std::isfinite(f_hi) ? lo - f_lo * (hi - lo) / (f_hi - f_lo) : 0.5 * (lo + hi);
+    if (!(at > lo && at < hi)) at = 0.5 * (lo + hi);  // round-off at an end
+    const double f = criterion(at) - 1;
+    if (f <= 0) {
+      lo = at, f_lo = f;
+      if (kept == -1) f_hi *= 0.5;
+      kept = -1;
+    } else {
+      hi = at, f_hi = f;
+      if (kept == 1) f_lo *= 0.5;
+      kept = 1;
+    }
   }
   return 1 / (0.5 * (lo + hi));
 }
