@@ -109,4 +109,13 @@ Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::Lo
   return picture;
 }
 
+void prepare_picture_rendering() {
+  detail::PictureScene scene;
+  scene.width = scene.height = 16;
+  scene.grey.push_back({{Eigen::Vector3d::Zero(), undeformed_colour()}, {Eigen::Vector3d::UnitX(), undeformed_colour()}});
+  std::string why_not;
+  const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
+  if (!detail::render_with_opengl(scene, why_not)) spdlog::debug("no offscreen OpenGL to prepare: {}", why_not);
+}
+
 }  // namespace stepframe::viz

@@ -52,6 +52,13 @@ struct Picture {
   std::vector<PictureLabel> labels; ///< one per PictureOptions::labelled member, in that order
 };
 
+/// Loads the offscreen OpenGL driver by drawing a tiny picture and throwing it
+/// away, so that the first real picture does not wait for the load (Mesa's
+/// software renderer takes about a quarter of a second the first time in a
+/// process; the driver's libraries then stay loaded). A run calls it on its
+/// spare core while the STEP file is read on the other. Never throws.
+void prepare_picture_rendering();
+
 /// Draws the members of `result` coloured as `options` say.
 Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
                            const PictureOptions& options = {});
