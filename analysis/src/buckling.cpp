@@ -1,5 +1,7 @@
 #include "stepframe/analysis/buckling.hpp"
 
+#include "divided_model.hpp"
+
 #include "stepframe/analysis/element_geometry.hpp"
 #include "stepframe/analysis/frame_element.hpp"
 #include "stepframe/analysis/geometric_stiffness.hpp"
@@ -130,53 +132,8 @@ class CondensedStiffnessOp {
   Eigen::Index size_;
 };
 
-// The model divided for the analysis: element e becomes parts[e] elements
-// through the nodes points[e] (its own end nodes first and last, new inner
-// nodes between, evenly spaced). With one part everywhere it is the model.
-struct Mesh {
-  FrameModel model;
-  std::vector<std::size_t> parts;                  // per original element
-  std::vector<std::vector<std::size_t>> points;    // per original element: node ids from start to end
-  std::vector<std::size_t> parent;                 // per mesh element: the original element
-  std::vector<double> part_start;                  // per mesh element: its start, as a fraction of the parent
-  std::vector<std::size_t> first_part;             // per original element: its first mesh element
-};
-
-Mesh divide(const FrameModel& model, const std::vector<std::size_t>& parts) {
-  Mesh mesh;
-  mesh.parts = parts;
-  FrameModel& sub = mesh.model;
-  sub.settings = model.settings;
-  sub.nodes = model.nodes;
-  sub.sections = model.sections;
-  sub.materials = model.materials;
-  sub.supports = model.supports;
-  mesh.points.resize(model.elements.size());
-  for (std::size_t e = 0; e < model.elements.size(); ++e) {
-    const FrameElement& el = model.elements[e];
-    const std::size_t n = parts[e];
-    const Eigen::Vector3d a = model.nodes[el.nodes[0]], b = model.nodes[el.nodes[1]];
-    std::vector<std::size_t>& points = mesh.points[e];
-    points.push_back(el.nodes[0]);
-    for (std::size_t k = 1; k < n; ++k) {
-      points.push_back(sub.nodes.size());
-      sub.nodes.push_back(a + (b - a) * (static_cast<double>(k) / static_cast<double>(n)));
-    }
-    points.push_back(el.nodes[1]);
-    mesh.first_part.push_back(sub.elements.size());
-    for (std::size_t k = 0; k < n; ++k) {
-      FrameElement part = el;
-      part.nodes = {points[k], points[k + 1]};
-      part.releases = {};
-      if (k == 0) part.releases[0] = el.releases[0];
-      if (k + 1 == n) part.releases[1] = el.releases[1];
-      sub.elements.push_back(part);
-      mesh.parent.push_back(e);
-      mesh.part_start.push_back(static_cast<double>(k) / static_cast<double>(n));
-    }
-  }
-  return mesh;
-}
+// The model divided for the analysis (divided_model.hpp).
+using Mesh = detail::DividedModel;
 
 // Axial force of each mesh element at its midpoint: exact for a constant
 // force, the midpoint rule of a varying one (self weight in a column).
@@ -523,7 +480,7 @@ std::vector<std::vector<BucklingMode>> buckling_modes(const FrameModel& model, c
   if (options.modes == 0 || patterns.empty()) return result;
 
   // Pass 1: the model's own elements, its own factorised stiffness.
-  const Mesh coarse = divide(model, std::vector<std::size_t>(model.elements.size(), 1));
+  const Mesh coarse = detail::divide_elements(model, std::vector<std::size_t>(model.elements.size(), 1));
   std::optional<OwnStiffness> own;
   if (!stiffness) own = factorise(model);
   const Sparse& k_free = stiffness ? stiffness->k_free : own->k_free;
@@ -563,7 +520,7 @@ std::vector<std::vector<BucklingMode>> buckling_modes(const FrameModel& model, c
 
   // Pass 2: one refined model for every pattern, its stiffness through the model's own factor,
   // each pattern started from its own pass-1 modes carried to the inner nodes.
-  const Mesh fine = divide(model, parts);
+  const Mesh fine = detail::divide_elements(model, parts);
   const DofNumbering fine_dofs = number_dofs(fine.model);
   const CondensedStiffnessOp fine_op(k_free, factor, inner_blocks(fine, fine_dofs), fine_dofs.free_count());
   spdlog::debug("buckling: {} of {} elements divided, {} DOFs", divided, model.elements.size(), fine_dofs.free_count());

@@ -1,5 +1,7 @@
 #include "stepframe/analysis/natural_frequencies.hpp"
 
+#include "divided_model.hpp"
+
 #include "stepframe/analysis/assembly.hpp"
 #include "stepframe/analysis/stiffness_factor.hpp"
 
@@ -16,47 +18,6 @@
 
 namespace stepframe::analysis {
 namespace {
-
-// The model with every element divided into `parts` equal elements: inner
-// nodes appended after the model's own, releases kept at the element's ends.
-struct Divided {
-  FrameModel model;
-  AddedMass added;
-  std::vector<std::vector<std::size_t>> inner;  // per original element: its inner nodes, start to end
-};
-
-Divided divide(const FrameModel& model, const AddedMass& added, std::size_t parts) {
-  Divided d;
-  FrameModel& m = d.model;
-  m.settings = model.settings;
-  m.nodes = model.nodes;
-  m.sections = model.sections;
-  m.materials = model.materials;
-  m.supports = model.supports;
-  d.added.at_node = added.at_node;
-  d.inner.resize(model.elements.size());
-  for (std::size_t e = 0; e < model.elements.size(); ++e) {
-    const FrameElement& el = model.elements[e];
-    const Eigen::Vector3d a = model.nodes[el.nodes[0]], b = model.nodes[el.nodes[1]];
-    std::vector<std::size_t> points{el.nodes[0]};
-    for (std::size_t k = 1; k < parts; ++k) {
-      d.inner[e].push_back(m.nodes.size());
-      points.push_back(m.nodes.size());
-      m.nodes.push_back(a + (b - a) * (static_cast<double>(k) / static_cast<double>(parts)));
-    }
-    points.push_back(el.nodes[1]);
-    for (std::size_t k = 0; k < parts; ++k) {
-      FrameElement part = el;
-      part.nodes = {points[k], points[k + 1]};
-      part.releases = {};
-      if (k == 0) part.releases[0] = el.releases[0];
-      if (k + 1 == parts) part.releases[1] = el.releases[1];
-      m.elements.push_back(part);
-      d.added.per_length.push_back(e < added.per_length.size() ? added.per_length[e] : 0.0);
-    }
-  }
-  return d;
-}
 
 // K^-1 x through the CHOLMOD factor: Spectra's (A - sigma B)^-1 for sigma = 0.
 struct InverseStiffness {
@@ -125,13 +86,17 @@ Eigenpairs lanczos_pairs(const Eigen::SparseMatrix<double>& m, const StiffnessFa
 ModalResult natural_frequencies(const FrameModel& model, const AddedMass& added, const ModalOptions& options,
                                 const std::function<void(double)>& progress) {
   const std::size_t parts = std::max<std::size_t>(options.parts, 1);
-  const Divided d = divide(model, added, parts);
+  const detail::DividedModel d = detail::divide_elements(model, std::vector<std::size_t>(model.elements.size(), parts));
   const FrameModel& mesh = d.model;
+  AddedMass divided_added;  // the point masses as they are, each element's line mass on each of its parts
+  divided_added.at_node = added.at_node;
+  for (std::size_t parent : d.parent)
+    divided_added.per_length.push_back(parent < added.per_length.size() ? added.per_length[parent] : 0.0);
   const DofNumbering dofs = number_dofs(mesh);
   Eigen::SparseMatrix<double> k_full = assemble_stiffness(mesh);
   tie_released_rotations(k_full, dofs, mesh);
   const Eigen::SparseMatrix<double> k = free_block(k_full, dofs);
-  const Eigen::SparseMatrix<double> m_full = assemble_mass(mesh, d.added);
+  const Eigen::SparseMatrix<double> m_full = assemble_mass(mesh, divided_added);
   const Eigen::SparseMatrix<double> m = free_block(m_full, dofs);
   if (progress) progress(0.1);
 
@@ -178,7 +143,8 @@ ModalResult natural_frequencies(const FrameModel& model, const AddedMass& added,
     mode.shape.displacements = scale * full.head(static_cast<Eigen::Index>(6 * model.nodes.size()));
     mode.shape.inner_points.resize(model.elements.size());
     for (std::size_t e = 0; e < model.elements.size(); ++e)
-      for (std::size_t node : d.inner[e]) mode.shape.inner_points[e].push_back(scale * full.segment<6>(global_dof(node, ux)));
+      for (std::size_t i = 1; i + 1 < d.points[e].size(); ++i)
+        mode.shape.inner_points[e].push_back(scale * full.segment<6>(global_dof(d.points[e][i], ux)));
     result.modes.push_back(std::move(mode));
   }
   std::sort(result.modes.begin(), result.modes.end(),
