@@ -1,7 +1,6 @@
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/geometry/step_structure.hpp"
 
-#include "broken_links.hpp"
 #include "declared_length_unit.hpp"
 #include "edge_entities.hpp"
 #include "harvest.hpp"
@@ -12,6 +11,7 @@
 #include "step_attributes.hpp"
 #include "step_kind.hpp"
 #include "step_origins.hpp"
+#include "unread_entities.hpp"
 #include "xde_document.hpp"
 
 #include <BRepAdaptor_Curve.hxx>
@@ -152,14 +152,15 @@ StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source) 
   if (step_model.IsNull() || step_model->NbEntities() == 0)
     fail(source, fmt::format("holds no STEP entities. {}", export_advice));
 
-  if (const std::vector<detail::BrokenLink> broken = detail::broken_structure_links(step_model); !broken.empty()) {
-    const detail::BrokenLink& first = broken.front();
-    fail(source, fmt::format("entity #{} ({}) ties the assembly together but OCCT could not read it ({}): it "
-                             "refers to an entity whose type is not allowed there, a misspelt or unknown entity "
-                             "type perhaps{}. Correct that reference or type in the file. {}",
-                             first.entity, first.type, first.failures,
-                             broken.size() > 1 ? fmt::format(" ({} such entities in all)", broken.size()) : "",
-                             export_advice));
+  const std::vector<detail::UnreadEntity> unread = detail::unread_entities(step_model);
+  const auto refused = std::find_if(unread.begin(), unread.end(), [](const auto& u) { return !u.presentation; });
+  if (refused != unread.end()) {
+    const auto count = std::count_if(unread.begin(), unread.end(), [](const auto& u) { return !u.presentation; });
+    fail(source, fmt::format("OCCT could not read entity #{} ({}: {}); its translation would follow the broken "
+                             "reference, so the file is refused{}. Correct the entity in the file: a misspelt or "
+                             "unknown entity type, or an entity of the wrong type where this one refers to it. {}",
+                             refused->entity, refused->type, refused->failures,
+                             count > 1 ? fmt::format(" ({} such entities in all)", count) : "", export_advice));
   }
 
   detail::XdeDocument document;
@@ -181,6 +182,12 @@ StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source) 
 
   StepModel model;
   model.file = source;
+  for (const detail::UnreadEntity& u : unread)  // presentation entities only: the others were refused above
+    model.diagnostics.push_back({Severity::warning, "step-entity-unread",
+                                 fmt::format("OCCT could not read #{} ({}: {}); its layers, styles or colours are "
+                                             "ignored",
+                                             u.entity, u.type, u.failures),
+                                 {fmt::format("#{}", u.entity)}, std::nullopt});
 
   const std::vector<detail::DeclaredLengthUnit> units = detail::declared_length_units(step_model);
   if (units.empty()) {

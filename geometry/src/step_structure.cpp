@@ -168,8 +168,14 @@ void StepStructureCheck::character(char c) {
       mode_ = Mode::binary;
       run_ = 0;
       break;
-    default:
+    case '=':
+    case ',':
+    case '$':
+    case '*':
+    case '&':  // &SCOPE
       break;
+    default:  // ISO 10303-21 5.3 writes nothing else outside strings, comments and binaries
+      fail(fmt::format("{}: the character '{}' cannot stand there (outside a string); {}", here(), c, damaged));
   }
 }
 

@@ -72,13 +72,29 @@ TEST_CASE("fuzz finding: an assembly link to an entity of an unknown type is ref
   // references to it as null and its transfer crashed in StepRepr_Representation::NbItems (two representation
   // relationships and the shape definition representation refer to #35).
   const std::string message = refusal(read_text(data / "fuzz" / "unknown_type_as_assembly_representation.stp"));
-  CHECK_THAT(message, Catch::Contains("<test>: entity #34 (StepShape_ShapeDefinitionRepresentation) ties the "
-                                      "assembly together but OCCT could not read it"));
-  CHECK_THAT(message, Catch::Contains("used_representation) : Entity has illegal type"));
-  CHECK_THAT(message, Catch::Contains("(3 such entities in all)"));
+  CHECK_THAT(message, Catch::Contains("<test>: OCCT could not read entity #34 (StepShape_ShapeDefinitionRepresentation: "
+                                      "Parameter n0.2 (property_definition_representation.used_representation) : "
+                                      "Entity has illegal type)"));
+  CHECK_THAT(message, Catch::Contains("the file is refused (3 such entities in all)"));
   // The same file spelt right reads (the shell-wireframe files, whose shape definition representations OCCT
   // cannot read before the rewrite, are read in the wireframe tests).
   CHECK(refusal(read_text(data / "mixed_units_assembly.stp")).empty());
+}
+
+TEST_CASE("fuzz finding: a point reference of the wrong type is refused before OCCT's transfer", "[step][hostile]") {
+  // fuzz_step_import wrote "#108] = CARTESIAN_POINT(...)" into x_braced_wall_mm.stp: the structure check let the
+  // stray ']' pass, OCCT read #108 as undefined, and its transfer crashed on the two polylines' null point.
+  // The stray character is refused now, and so is any reference OCCT reads as of an illegal type: here a
+  // polyline whose point is a direction.
+  std::string text = read_text(data / "x_braced_wall_mm.stp");
+  const std::string point = "#108 = CARTESIAN_POINT('',(5000.,0.,4000.));";
+  const auto at = text.find(point);
+  REQUIRE(at != std::string::npos);
+  CHECK_THAT(refusal(std::string(text).replace(at, 4, "#108]")),
+             Catch::Contains("<test>: #108 (line 40): the character ']' cannot stand there (outside a string)"));
+  CHECK_THAT(refusal(std::string(text).replace(at, point.size(), "#108 = DIRECTION('',(0.,0.,1.));")),
+             Catch::Contains("<test>: OCCT could not read entity #102 (StepGeom_Polyline: Parameter n0.2 "
+                             "(cartesian_point) : Entity has illegal type)"));
 }
 
 TEST_CASE("an empty list is refused naming the entity, except where exporters write one", "[step][hostile]") {

@@ -84,7 +84,11 @@ const std::vector<Case> cases = {
      2, "#33 (line 49): the text holds a control character (byte 0x00)"},
     {"unknown type where the assembly expects a representation", run, "",
      {"#10 = SHAPE_REPRESENTATION(", "#10 = SHAPPE_REPRESENTATION("}, 2,
-     "entity #3 (StepShape_ShapeDefinitionRepresentation) ties the assembly together but OCCT could not read it"},
+     "OCCT could not read entity #3 (StepShape_ShapeDefinitionRepresentation"},
+    {"a line whose point is a vector", run, "", {line_entity, "#35 = LINE('',#37,#37);"}, 2,
+     "OCCT could not read entity #35 (StepGeom_Line: Parameter n0.2 (pnt) : Entity has illegal type)"},
+    {"stray character after an entity number", run, "", {line_entity, "#35] = LINE('',#36,#37);"}, 2,
+     "the character ']' cannot stand there"},
     // Tokens longer than OCCT's lexer reads (16382 characters): strings are cut, anything else refused.
     {"50000-character name cut with a warning", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {}\n    material: S355\n" + base_supports +
