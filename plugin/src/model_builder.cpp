@@ -670,7 +670,7 @@ BuiltModel build_frame_model(const Project& project, const geometry::Wireframe& 
     combination.buckling = !spec.serviceability || project.sls_buckling;
     for (const auto& [case_name, factor] : spec.factors) {
       const auto it = std::find_if(project.cases.begin(), project.cases.end(),
-                                   [&](const CaseSpec& c) { return c.name == case_name; });
+                                   [&name = case_name](const CaseSpec& c) { return c.name == name; });
       combination.factors.emplace_back(static_cast<std::size_t>(it - project.cases.begin()), factor);
     }
     model.combinations.push_back(std::move(combination));
