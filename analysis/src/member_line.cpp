@@ -17,6 +17,14 @@ std::vector<Member> member_chains(const FrameModel& model) {
   return chains;
 }
 
+std::vector<std::size_t> element_members(const FrameModel& model) {
+  std::vector<std::size_t> owner(model.elements.size(), 0);
+  const auto chains = member_chains(model);
+  for (std::size_t m = 0; m < chains.size(); ++m)
+    for (std::size_t e : chains[m].elements) owner[e] = m;
+  return owner;
+}
+
 LocalLoads element_loads(const LoadResult& result, std::size_t element) {
   // Loads over the same stretch (or at the same point) are summed into one: the recovery then
   // evaluates one term where a combination of several cases would give several (superposition).

@@ -12,9 +12,7 @@ std::string area_loads_section(const Analysis& a) {
   bool any = false;
   for (const auto& per_case : a.built.area_loads) any = any || !per_case.empty();
   if (!any) return {};
-  std::vector<std::size_t> member_of(model.elements.size(), 0);
-  for (std::size_t m = 0; m < model.members.size(); ++m)
-    for (std::size_t e : model.members[m].elements) member_of[e] = m;
+  const std::vector<std::size_t> member_of = analysis::element_members(model);
   std::string h = "<h2 id=\"area-loads\">Area loads</h2>\n<p>Each area load's panels and the member loads made of "
                   "them (global axes, kN/m along the member, positions from the member's element start).</p>\n";
   for (std::size_t c = 0; c < a.built.area_loads.size(); ++c)

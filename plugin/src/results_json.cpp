@@ -289,9 +289,7 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
   // Area loads: per case and entry, the panels found and the member loads made of them (global axes).
   w.key("area_loads").begin_array();
   {
-    std::vector<std::size_t> member_of(model.elements.size(), 0);
-    for (std::size_t m = 0; m < model.members.size(); ++m)
-      for (std::size_t e : model.members[m].elements) member_of[e] = m;
+    const std::vector<std::size_t> member_of = analysis::element_members(model);
     for (std::size_t c = 0; c < a.built.area_loads.size(); ++c)
       for (std::size_t i = 0; i < a.built.area_loads[c].size(); ++i) {
         const auto& area = a.built.area_loads[c][i];

@@ -78,15 +78,6 @@ std::vector<analysis::SectionRing> drawn_outline(const analysis::Section& s) {
   return rings;
 }
 
-// The member each element belongs to.
-std::vector<int> element_members(const analysis::FrameModel& model) {
-  std::vector<int> owner(model.elements.size(), -1);
-  const auto chains = analysis::member_chains(model);
-  for (std::size_t m = 0; m < chains.size(); ++m)
-    for (std::size_t e : chains[m].elements) owner[e] = static_cast<int>(m);
-  return owner;
-}
-
 }  // namespace
 
 void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameModel& model,
@@ -94,7 +85,7 @@ void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameM
   if (result.displacements.size() != static_cast<Eigen::Index>(6 * model.nodes.size()))
     throw std::invalid_argument("write_surface_vtu: result does not belong to this model");
   const std::size_t stations = std::max<std::size_t>(2, options.sections_per_element);
-  const auto owner = element_members(model);
+  const auto owner = analysis::element_members(model);
   std::vector<std::vector<analysis::SectionRing>> outlines;
   for (const auto& s : model.sections) outlines.push_back(drawn_outline(s));
 
@@ -145,7 +136,7 @@ void write_surface_vtu(const std::filesystem::path& file, const analysis::FrameM
           const vtkIdType quad[4] = {a + i, a + (i + 1) % n, b + (i + 1) % n, b + i};
           offsets->SetValue(q, static_cast<int>(4 * q));
           for (int c = 0; c < 4; ++c) connectivity->SetValue(4 * q + c, static_cast<int>(quad[c]));
-          member_id->SetValue(q, owner[e]);
+          member_id->SetValue(q, static_cast<int>(owner[e]));
           element_id->SetValue(q, static_cast<int>(e));
         }
     }
@@ -179,7 +170,7 @@ void write_shape_vtu(const std::filesystem::path& file, const analysis::FrameMod
   if (m.inner_points.size() != model.elements.size())
     throw std::invalid_argument("write_mode_vtu: mode does not belong to this model");
   constexpr vtkIdType per_element = 7;  // six parts: the mode's curve inside each element shows
-  const auto owner = element_members(model);
+  const auto owner = analysis::element_members(model);
   const auto elements = static_cast<vtkIdType>(model.elements.size());
   auto positions = detail::float_array("positions", 3, per_element * elements);
   auto shape = detail::float_array("mode_shape", 3, per_element * elements);
@@ -192,7 +183,7 @@ void write_shape_vtu(const std::filesystem::path& file, const analysis::FrameMod
       detail::set(positions, p, a + t * (b - a));
       detail::set(shape, p, analysis::mode_translation(model, m, e, t));
     }
-    member_id->SetValue(static_cast<vtkIdType>(e), owner[e]);
+    member_id->SetValue(static_cast<vtkIdType>(e), static_cast<int>(owner[e]));
   });
   std::vector<vtkIdType> first(model.elements.size() + 1);
   for (std::size_t e = 0; e < first.size(); ++e) first[e] = static_cast<vtkIdType>(e) * per_element;

@@ -134,4 +134,7 @@ struct FrameModel {
 /// The model's members, or one member per element when the model gives none.
 std::vector<Member> member_chains(const FrameModel& model);
 
+/// For each element, its member's index in member_chains(model).
+std::vector<std::size_t> element_members(const FrameModel& model);
+
 }  // namespace stepframe::analysis
