@@ -2,6 +2,7 @@
 
 #include "stepframe/analysis/assembly.hpp"
 #include "stepframe/analysis/element_geometry.hpp"
+#include "stepframe/analysis/material.hpp"
 
 #include <Eigen/Geometry>
 
@@ -23,6 +24,15 @@ std::vector<std::size_t> element_members(const FrameModel& model) {
   for (std::size_t m = 0; m < chains.size(); ++m)
     for (std::size_t e : chains[m].elements) owner[e] = m;
   return owner;
+}
+
+std::vector<double> member_yield_strengths(const FrameModel& model, const std::vector<Member>& chains) {
+  std::vector<double> fy(chains.size());
+  for (std::size_t m = 0; m < chains.size(); ++m) {
+    const FrameElement& first = model.elements[chains[m].elements.front()];
+    fy[m] = material_for_section(model.materials[first.material], model.sections[first.section]).fy;
+  }
+  return fy;
 }
 
 LocalLoads element_loads(const LoadResult& result, std::size_t element) {

@@ -5,7 +5,7 @@
 
 #include "report_parts.hpp"
 
-#include "stepframe/analysis/material.hpp"
+#include "stepframe/analysis/member_line.hpp"
 #include "stepframe/viz/picture.hpp"
 
 #include <fmt/format.h>
@@ -57,15 +57,13 @@ const analysis::LoadResult* stress_result(const Analysis& a) {
   const auto& model = a.built.model;
   const auto chains = analysis::member_chains(model);
   bool any_combination = std::any_of(a.results.begin(), a.results.end(), [](const auto& r) { return r.is_combination; });
+  const std::vector<double> fy = analysis::member_yield_strengths(model, chains);
   const analysis::LoadResult* best = nullptr;
   double largest = -1;
   for (const auto& r : a.results) {
     if (any_combination && !r.is_combination) continue;
-    for (std::size_t m = 0; m < r.members.size(); ++m) {
-      const auto& el = model.elements[chains[m].elements.front()];
-      const double fy = analysis::material_for_section(model.materials[el.material], model.sections[el.section]).fy;
-      if (r.members[m].max_von_mises / fy > largest) largest = r.members[m].max_von_mises / fy, best = &r;
-    }
+    for (std::size_t m = 0; m < r.members.size(); ++m)
+      if (r.members[m].max_von_mises / fy[m] > largest) largest = r.members[m].max_von_mises / fy[m], best = &r;
   }
   return best;
 }

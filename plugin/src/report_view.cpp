@@ -4,7 +4,7 @@
 
 #include "report_parts.hpp"
 
-#include "stepframe/analysis/material.hpp"
+#include "stepframe/analysis/member_line.hpp"
 #include "stepframe/viz/browser_view.hpp"
 
 #include <fmt/format.h>
@@ -33,10 +33,9 @@ std::string view_data(const Analysis& a) {
   for (std::size_t i = 0; i < model.nodes.size(); ++i)
     d += fmt::format("{}{:.4f},{:.4f},{:.4f}", i ? "," : "", model.nodes[i].x(), model.nodes[i].y(), model.nodes[i].z());
   d += "],\"members\":[";
-  std::vector<double> fy(chains.size());
+  const std::vector<double> fy = analysis::member_yield_strengths(model, chains);
   for (std::size_t m = 0; m < chains.size(); ++m) {
     const auto& el = model.elements[chains[m].elements.front()];
-    fy[m] = analysis::material_for_section(model.materials[el.material], model.sections[el.section]).fy;
     std::string path = std::to_string(el.nodes[0]);
     for (std::size_t e : chains[m].elements) path += "," + std::to_string(model.elements[e].nodes[1]);
     const double length = member_length(model, chains[m]);

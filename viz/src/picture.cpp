@@ -75,10 +75,10 @@ Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::Lo
   detail::PictureScene scene;
   scene.width = options.width;
   scene.height = options.height;
+  // Stress pictures: von Mises over the fy the checks use for each member (EN 1993-1-1 3.2.1).
+  const std::vector<double> yield = analysis::member_yield_strengths(model, chains);
   for (std::size_t m = 0; m < lines.size(); ++m) {
-    const auto& first = model.elements[chains[m].elements.front()];
-    // Stress pictures: von Mises over the fy the checks use for this member (EN 1993-1-1 3.2.1).
-    const double fy = analysis::material_for_section(model.materials[first.material], model.sections[first.section]).fy;
+    const double fy = yield[m];
     const double member_value = by_member && m < options.member_values.size()
                                     ? options.member_values[m] : std::numeric_limits<double>::quiet_NaN();
     detail::ScenePolyline drawn, undeformed;

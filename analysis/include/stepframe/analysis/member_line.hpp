@@ -30,6 +30,11 @@ LineResult element_line(const FrameModel& model, const LoadResult& result, std::
 LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member,
                        LineDetail detail = LineDetail::full, std::size_t stations = 0);
 
+/// The yield strength each member's checks use: its first element's material
+/// for its section's thickness (material_for_section; EN 1993-1-1 3.2.1) [Pa],
+/// one per member of `chains`.
+std::vector<double> member_yield_strengths(const FrameModel& model, const std::vector<Member>& chains);
+
 /// Joins the results of a member's elements (in order from its start):
 /// stations in order with x measured along the member from its start (both
 /// stations kept at an inner node, so jumps in the diagrams stay visible),
