@@ -1,7 +1,8 @@
 #!/usr/bin/env bash
 # One-command set-up on Debian 12 (run as root).
 #   ./setup.sh demo   install packages, build (Release), run the bundled demo
-#   ./setup.sh test   install packages, build, run the whole test suite with ctest
+#   ./setup.sh test   install packages, build, run the whole test suite with ctest, then the STEP and
+#                     analysis unit tests again built with ASan+UBSan (what CI runs)
 #   ./setup.sh asan   install packages, build with ASan+UBSan (preset asan), run the suite under them
 #   ./setup.sh fuzz [SECONDS]  install clang too, build the libFuzzer targets (preset fuzz) and run
 #                     each for SECONDS (default 60) on a corpus seeded from tests/data
@@ -52,6 +53,13 @@ case "${1:-demo}" in
     build -DSTEPFRAME_BUILD_TESTS=ON
     echo "== running the test suite"
     ctest --test-dir "$BUILD_DIR" --output-on-failure -j "$JOBS"
+    # The fast unit tests again under AddressSanitizer and UndefinedBehaviorSanitizer (preset asan): the
+    # STEP reading and the analysis, where memory errors would hide. `./setup.sh asan` runs everything.
+    echo "== building the STEP and analysis unit tests with ASan+UBSan (build-asan)"
+    cmake --preset asan
+    cmake --build build-asan -j "$JOBS" --target test_geometry test_analysis
+    echo "== running them under the sanitizers"
+    ctest --preset asan -R '^(geometry|analysis):'
     ;;
   asan)
     install_packages
