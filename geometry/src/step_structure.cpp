@@ -175,7 +175,12 @@ void StepStructureCheck::character(char c) {
     case '&':  // &SCOPE
       break;
     default:  // ISO 10303-21 5.3 writes nothing else outside strings, comments and binaries
-      fail(fmt::format("{}: the character '{}' cannot stand there (outside a string); {}", here(), c, damaged));
+      // Named by its code when not printable ASCII: the message must stay valid UTF-8 (results.json, the C ABI).
+      fail(fmt::format("{}: {} cannot stand there (outside a string); {}", here(),
+                       std::isprint(static_cast<unsigned char>(c)) != 0 && static_cast<unsigned char>(c) < 0x80
+                           ? fmt::format("the character '{}'", c)
+                           : fmt::format("the byte 0x{:02X}", static_cast<unsigned>(static_cast<unsigned char>(c))),
+                       damaged));
   }
 }
 

@@ -34,7 +34,10 @@ Results::Results(RunOutcome outcome) : outcome_(std::move(outcome)), documents_(
 
 const std::string& Results::json_text() const {
   std::call_once(documents_->text_once, [&] {
-    documents_->text = outcome_.analysis ? results_json_text(*outcome_.analysis) : error_document(outcome_).dump();
+    // A message may quote input bytes that are not UTF-8: replaced (U+FFFD) rather than thrown on.
+    documents_->text = outcome_.analysis ? results_json_text(*outcome_.analysis)
+                                         : error_document(outcome_).dump(-1, ' ', false,
+                                                                         nlohmann::json::error_handler_t::replace);
   });
   return documents_->text;
 }

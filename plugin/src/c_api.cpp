@@ -133,7 +133,8 @@ int guarded(sf_run* run, Body&& body) {
     run->status = SF_INTERNAL_ERROR;
     run->message = std::string("internal error: ") + e.what() + " (please report it with the input files)";
     run->results_json = nlohmann::json{{"schema", "stepframe-results/1"}, {"status", "error"},
-                                       {"exit_status", SF_INTERNAL_ERROR}, {"message", run->message}}.dump();
+                                       {"exit_status", SF_INTERNAL_ERROR}, {"message", run->message}}
+                             .dump(-1, ' ', false, nlohmann::json::error_handler_t::replace);
     run->summary = run->message;
   } catch (...) {
     run->status = SF_INTERNAL_ERROR;

@@ -176,6 +176,14 @@ TEST_CASE("C ABI: a run handle gives results as JSON, progress, log and cancella
     REQUIRE(run_with_step(run, no_file.c_str(), nullptr, step.data(), step.size()) == SF_PASS);
     CHECK(nlohmann::json::parse(results_json(run))["results"] == nlohmann::json::parse(from_file)["results"]);
     CHECK(run_with_step(run, no_file.c_str(), nullptr, nullptr, 0) == SF_INVALID_ARGUMENT);
+    // A byte outside ASCII where ISO 10303-21 allows none: refused (2) with a message and an error document
+    // that stay valid UTF-8. Found by fuzz_c_api_text: the raw byte quoted in the message made the
+    // document's writer throw, an internal error (4).
+    std::string latin1 = step;
+    latin1.insert(latin1.find("#33 ="), "\xE9");
+    REQUIRE(run_with_step(run, no_file.c_str(), nullptr, latin1.data(), latin1.size()) == SF_BAD_INPUT);
+    CHECK_THAT(message(run), Contains("the byte 0xE9 cannot stand there"));
+    CHECK(nlohmann::json::parse(results_json(run))["exit_status"] == SF_BAD_INPUT);
   }
   SECTION("bad input keeps a JSON error document") {
     CHECK(run_text(run, "model: beam.stp\n", dir.path().c_str()) == SF_BAD_INPUT);
