@@ -167,8 +167,8 @@ int main(int argc, char** argv) {
   spdlog::set_default_logger(logger);
   // OpenBLAS' threads spin-wait for one another: with the second core busy (a
   // build, another run) its two threads made the factorisation of a
-  // 10,000-member frame 4x and the buckling analysis 14x slower than one
-  // thread did (measured, README "Speed"). One thread unless the user asks.
+  // 10,000-member frame about 5x and the buckling analysis about 19x slower
+  // than one thread did (measured, README). One thread unless the user asks.
   if (std::getenv("OPENBLAS_NUM_THREADS") == nullptr) stepframe::analysis::set_blas_threads(1);
 
   // Named here, so help shows `stepframe`, not the path it was started by.
