@@ -22,6 +22,14 @@ bool token_char(char c) {
          c == '-' || c == '!';
 }
 
+// A character for a message: named by its code when not printable ASCII, so
+// that the message stays valid UTF-8 (results.json, the C ABI).
+std::string printable(char c) {
+  const auto u = static_cast<unsigned char>(c);
+  return std::isprint(u) != 0 && u < 0x80 ? fmt::format("the character '{}'", c)
+                                          : fmt::format("the byte 0x{:02X}", static_cast<unsigned>(u));
+}
+
 bool digit(char c) { return std::isdigit(static_cast<unsigned char>(c)) != 0; }
 
 bool control(char c) {
@@ -77,8 +85,16 @@ void StepStructureCheck::character(char c) {
                          here(), max_step_token, damaged));
       return;
     case Mode::binary:
-      if (c == '"') mode_ = Mode::normal;
-      else if (++run_ > max_step_token)
+      if (c == '"') {
+        mode_ = Mode::normal;
+        return;
+      }
+      // ISO 10303-21 5.3: a binary value is '"', a digit 0-3, hexadecimal digits, '"'. Anything else means
+      // the quote was stray, and OCCT's lexer and this check would see different entities in what follows.
+      if (std::isxdigit(static_cast<unsigned char>(c)) == 0 || std::islower(static_cast<unsigned char>(c)) != 0)
+        fail(fmt::format("{}: a binary value (after '\"', line {}) holds {}, not a hexadecimal digit (0-9, A-F); {}",
+                         here(), run_line_, printable(c), damaged));
+      if (++run_ > max_step_token)
         fail(fmt::format("{}: a binary value longer than {} characters, more than OCCT's reader takes; {}", here(),
                          max_step_token, damaged));
       return;
@@ -167,6 +183,7 @@ void StepStructureCheck::character(char c) {
     case '"':
       mode_ = Mode::binary;
       run_ = 0;
+      run_line_ = line_;
       break;
     case '=':
     case ',':
@@ -175,12 +192,7 @@ void StepStructureCheck::character(char c) {
     case '&':  // &SCOPE
       break;
     default:  // ISO 10303-21 5.3 writes nothing else outside strings, comments and binaries
-      // Named by its code when not printable ASCII: the message must stay valid UTF-8 (results.json, the C ABI).
-      fail(fmt::format("{}: {} cannot stand there (outside a string); {}", here(),
-                       std::isprint(static_cast<unsigned char>(c)) != 0 && static_cast<unsigned char>(c) < 0x80
-                           ? fmt::format("the character '{}'", c)
-                           : fmt::format("the byte 0x{:02X}", static_cast<unsigned>(static_cast<unsigned char>(c))),
-                       damaged));
+      fail(fmt::format("{}: {} cannot stand there (outside a string); {}", here(), printable(c), damaged));
   }
 }
 
@@ -229,6 +241,9 @@ void StepStructureCheck::finish() {
     fail(fmt::format("{}: the text ends after '{}'; {}", here(), word_, damaged));
   if (mode_ == Mode::string && !quote_)
     fail(fmt::format("{}: the text ends inside a quoted string (a closing quote is missing); {}", here(), damaged));
+  if (mode_ == Mode::binary)
+    fail(fmt::format("{}: the text ends inside a binary value (the '\"' on line {} is not closed); {}", here(),
+                     run_line_, damaged));
   if (mode_ == Mode::comment) fail(fmt::format("{}: the text ends inside a comment (/* without */); {}", here(), damaged));
   if (depth_ != 0) fail(fmt::format("{}: the text ends with {} '(' open; {}", here(), depth_, damaged));
 
@@ -258,6 +273,7 @@ void StepStructureCheck::finish() {
 
   // Cycles: a depth-first walk without recursion (white 0, on the path 1, done 2).
   std::vector<std::uint8_t> state(n, 0);
+  std::vector<std::uint32_t> chain(n, 0);  // the longest chain of references from each entity
   std::vector<std::pair<std::uint32_t, std::size_t>> path;  // entity, next reference to follow
   for (std::size_t start = 0; start < n; ++start) {
     if (state[start] != 0) continue;
@@ -265,8 +281,11 @@ void StepStructureCheck::finish() {
     state[start] = 1;
     while (!path.empty()) {
       auto& [k, next] = path.back();
-      if (next == first_ref_[k + 1]) {
+      if (next == first_ref_[k + 1]) {  // every reference of k is done: its chain length is known
         state[k] = 2;
+        for (std::size_t r = first_ref_[k]; r < first_ref_[k + 1]; ++r)
+          chain[k] = std::max(chain[k], chain[target[r]] + 1);
+        if (chain[k] > max_step_reference_depth) fail_deep_chain(k, chain, target);
         path.pop_back();
         continue;
       }
@@ -275,14 +294,14 @@ void StepStructureCheck::finish() {
         if (t == k)
           fail(fmt::format("#{} (line {}) refers to itself; an entity cannot contain itself; {}", ids_[k], lines_[k],
                            damaged));
-        std::string chain;
+        std::string loop;
         bool on = false;
         for (const auto& step : path) {
           on = on || step.first == t;
-          if (on) chain += fmt::format("#{} -> ", ids_[step.first]);
+          if (on) loop += fmt::format("#{} -> ", ids_[step.first]);
         }
         fail(fmt::format("#{} (line {}) refers back to itself through {}#{}; an entity cannot contain itself; {}",
-                         ids_[t], lines_[t], chain, ids_[t], damaged));
+                         ids_[t], lines_[t], loop, ids_[t], damaged));
       }
       if (state[t] == 0) {
         state[t] = 1;
@@ -290,6 +309,22 @@ void StepStructureCheck::finish() {
       }
     }
   }
+}
+
+void StepStructureCheck::fail_deep_chain(std::size_t k, const std::vector<std::uint32_t>& chain,
+                                         const std::vector<std::uint32_t>& target) const {
+  std::string start;  // the first links of the longest chain
+  for (std::size_t at = k, shown = 0; shown < 4; ++shown) {
+    start += fmt::format("#{} -> ", ids_[at]);
+    std::size_t longest = at;
+    for (std::size_t r = first_ref_[at]; r < first_ref_[at + 1]; ++r)
+      if (chain[target[r]] + 1 == chain[at]) longest = target[r];
+    if (longest == at) break;
+    at = longest;
+  }
+  fail(fmt::format("#{} (line {}) begins a chain of more than {} references ({}...); OCCT follows such chains by "
+                   "recursion and would overflow its stack; {}",
+                   ids_[k], lines_[k], max_step_reference_depth, start, damaged));
 }
 
 std::vector<StepLongString> check_step_structure(std::string_view text, const std::string& source) {

@@ -161,3 +161,43 @@ TEST_CASE("a keyword, number or comment longer than OCCT reads is refused naming
   CHECK_THAT(refusal(beam_with(curve_set, "/* " + std::string(20000, 'c') + " */\n" + curve_set)),
              Catch::Contains("line 49: a comment holds more than 16000 characters without a line break"));
 }
+
+TEST_CASE("fuzz finding: a stray double quote is refused, not read as the start of a binary value",
+          "[step][hostile]") {
+  // fuzz_c_api_text turned "#26 = ..." into "\"26 = ..." in brace_assembly_inch.stp (other bytes garbled too):
+  // the structure check read the rest of the file as one unclosed binary value and checked nothing more, while
+  // OCCT's reader made something else of it and overflowed its stack in StepShape_OrientedEdge::EdgeStart.
+  // ISO 10303-21 5.3: a binary value holds hexadecimal digits only, between two double quotes.
+  CHECK_THAT(refusal(read_text(data / "fuzz" / "stray_quote_as_binary_value.stp")),
+             Catch::Contains("<test>: line 19: a binary value (after '\"', line 19) holds the character ' ', not a "
+                             "hexadecimal digit"));
+  CHECK_THROWS_WITH(sg::check_step_structure("#1 = BINARY_HOLDER(\n\"0FF", "<test>"),
+                    Catch::Contains("the text ends inside a binary value (the '\"' on line 2 is not closed)"));
+  // A well-formed binary value passes the check.
+  CHECK(sg::check_step_structure("#1 = BINARY_HOLDER(\"0FF3A\",#2);\n#2 = X(1.);\n", "<test>").empty());
+  CHECK_THROWS_WITH(sg::check_step_structure("#1 = BINARY_HOLDER(\"0ff\");\n", "<test>"),
+                    Catch::Contains("holds the character 'f', not a hexadecimal digit"));
+}
+
+TEST_CASE("a chain of references longer than OCCT can follow is refused naming where it begins", "[step][hostile]") {
+  // OCCT follows an oriented edge's edge element by recursion: 300,000 oriented edges, each the edge element of
+  // the next, overflowed an 8 MiB stack (tried, OCCT 7.6.3). deck_with_plate_mm.stp's #46 gets such a chain of
+  // `links` oriented edges before its edge curve #50.
+  auto chained = [](std::size_t links) {
+    std::string text = read_text(data / "deck_with_plate_mm.stp");
+    const std::string first = "#46 = ORIENTED_EDGE('',*,*,#50,.T.);";
+    const auto at = text.find(first);
+    REQUIRE(at != std::string::npos);
+    std::string chain = "#46 = ORIENTED_EDGE('',*,*,#1000,.T.);\n";
+    for (std::size_t i = 0; i < links; ++i)
+      chain += "#" + std::to_string(1000 + i) + " = ORIENTED_EDGE('',*,*,#" +
+               std::to_string(i + 1 < links ? 1000 + i + 1 : 50) + ",.T.);\n";
+    return text.replace(at, first.size(), chain);
+  };
+  // Within the limit the model reads (its two beams; the plate is not a member).
+  CHECK(sg::read_step_text(chained(sg::max_step_reference_depth - 20), "<test>").edges.size() == 2);
+  // Beyond it: refused before OCCT parses the text, naming the first links of the chain.
+  const std::string message = refusal(chained(300000));
+  CHECK_THAT(message, Catch::Contains("begins a chain of more than 1000 references (#"));
+  CHECK_THAT(message, Catch::Contains("OCCT follows such chains by recursion and would overflow its stack"));
+}

@@ -89,6 +89,8 @@ const std::vector<Case> cases = {
      "OCCT could not read entity #35 (StepGeom_Line: Parameter n0.2 (pnt) : Entity has illegal type)"},
     {"stray character after an entity number", run, "", {line_entity, "#35] = LINE('',#36,#37);"}, 2,
      "the character ']' cannot stand there"},
+    {"stray double quote before an entity number", run, "", {line_entity, "\"35 = LINE('',#36,#37);"}, 2,
+     "a binary value (after '\"', line 52) holds the character ' ', not a hexadecimal digit"},
     // Tokens longer than OCCT's lexer reads (16382 characters): strings are cut, anything else refused.
     {"50000-character name cut with a warning", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {}\n    material: S355\n" + base_supports +

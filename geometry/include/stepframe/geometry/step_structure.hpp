@@ -17,6 +17,15 @@ namespace stepframe::geometry {
 /// handful of levels: lists of lists of points).
 inline constexpr int max_step_nesting = 100;
 
+/// The longest chain of references accepted (#1 refers to #2, which refers
+/// to #3...). OCCT follows some chains by recursion: a chain of 300,000
+/// oriented edges, each the edge of the next, overflows an 8 MiB stack in
+/// StepShape_OrientedEdge::EdgeStart (tried with OCCT 7.6.3, Debian 12), and
+/// a host's thread may have far less. Exported frames stay within a few
+/// dozen levels: an assembly's levels do not chain references (each
+/// occurrence refers to its parent and its child definition).
+inline constexpr std::size_t max_step_reference_depth = 1000;
+
 /// OCCT 7.6's STEP lexer keeps a token (a quoted string, a keyword, a number,
 /// a run of comment text) in a 16 KiB buffer that cannot grow: a token longer
 /// than 16382 characters stops its parse with "input buffer overflow"
@@ -38,7 +47,9 @@ struct StepLongString {
 /// - every reference (#12) names an entity the file defines, and no entity is defined twice;
 /// - no entity refers to itself, directly or through others (the STEP
 ///   schemas that stepframe reads allow no such cycle);
+/// - no chain of references is longer than max_step_reference_depth;
 /// - parentheses nest at most max_step_nesting deep and are balanced;
+/// - a binary value ("0F3A") holds hexadecimal digits only and is closed;
 /// - every number is finite (no 1E400) and no bare word (NAN, INF) stands
 ///   where a value belongs;
 /// - no entity instance holds an empty list `()`: the schemas' lists hold at
@@ -74,6 +85,8 @@ class StepStructureCheck {
   void end_token();
   [[noreturn]] void fail(const std::string& what) const;
   [[noreturn]] void fail_bare_word() const;
+  [[noreturn]] void fail_deep_chain(std::size_t k, const std::vector<std::uint32_t>& chain,
+                                    const std::vector<std::uint32_t>& target) const;
   std::string here() const;
 
   std::string source_;
