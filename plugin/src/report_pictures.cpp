@@ -12,6 +12,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <functional>
 #include <limits>
 
 namespace stepframe::report {
@@ -74,7 +75,9 @@ std::string pictures_section(const Analysis& a) {
   if (!a.project.outputs.pictures || a.results.empty()) return {};
   const auto& model = a.built.model;
   const auto governing = governing_per_member(a);
-  std::string h = "<h2 id=\"pictures\">Pictures</h2>\n";
+  // The pictures are drawn together (one OpenGL context for all); each figure is written once drawn.
+  std::vector<viz::PictureRequest> requests;
+  std::vector<std::function<std::string(const viz::Picture&)>> figures;
 
   {  // Governing utilisation, the most utilised members labelled.
     viz::PictureOptions options;
@@ -86,12 +89,15 @@ std::string pictures_section(const Analysis& a) {
     const auto order = members_by_utilisation(a);
     for (std::size_t m : order)
       if (governing[m] && options.labelled.size() < 8) options.labelled.push_back(m);
-    const auto picture = viz::draw_frame_picture(model, a.results.front(), options);
-    h += figure(picture, "picture-utilisation",
-                fmt::format("Governing utilisation of every member (all checks, all results); the {} most utilised "
-                            "members labelled by number",
-                            options.labelled.size()),
-                utilisation_legend("utilisation", any_unchecked), a);
+    const std::size_t labelled = options.labelled.size();
+    requests.push_back({&a.results.front(), std::move(options)});
+    figures.push_back([&a, labelled, any_unchecked](const viz::Picture& picture) {
+      return figure(picture, "picture-utilisation",
+                    fmt::format("Governing utilisation of every member (all checks, all results); the {} most utilised "
+                                "members labelled by number",
+                                labelled),
+                    utilisation_legend("utilisation", any_unchecked), a);
+    });
   }
 
   std::string why;
@@ -103,20 +109,29 @@ std::string pictures_section(const Analysis& a) {
     for (const auto& c : a.checks)
       if (c.check == "deflection" && c.member < options.member_values.size()) options.member_values[c.member] = c.utilisation;
     for (double v : options.member_values) any_unchecked = any_unchecked || std::isnan(v);
-    const auto picture = viz::draw_frame_picture(model, *service, options);
-    const std::string legend =
-        utilisation_legend("deflection / limit", any_unchecked) +
-        fmt::format("<div class=\"legend\">Displacements drawn {} times their size (pale: undeformed); largest "
-                    "displacement {} mm.</div>\n",
-                    num(picture.deformation_scale, 3), num(picture.largest_displacement * 1e3, 3));
-    h += figure(picture, "picture-deformed", fmt::format("Deformed shape under {} ({})", service->name, why), legend, a);
+    requests.push_back({service, std::move(options)});
+    figures.push_back([&a, service, why, any_unchecked](const viz::Picture& picture) {
+      const std::string legend =
+          utilisation_legend("deflection / limit", any_unchecked) +
+          fmt::format("<div class=\"legend\">Displacements drawn {} times their size (pale: undeformed); largest "
+                      "displacement {} mm.</div>\n",
+                      num(picture.deformation_scale, 3), num(picture.largest_displacement * 1e3, 3));
+      return figure(picture, "picture-deformed", fmt::format("Deformed shape under {} ({})", service->name, why), legend,
+                    a);
+    });
   }
 
   if (const auto* strength = stress_result(a)) {
-    const auto picture = viz::draw_frame_picture(model, *strength);
-    h += figure(picture, "picture-stress", "Von Mises stress over fy under " + strength->name + " (the most stressed)",
-                utilisation_legend("von Mises stress / fy", false), a);
+    requests.push_back({strength, {}});
+    figures.push_back([&a, strength](const viz::Picture& picture) {
+      return figure(picture, "picture-stress", "Von Mises stress over fy under " + strength->name + " (the most stressed)",
+                    utilisation_legend("von Mises stress / fy", false), a);
+    });
   }
+
+  const std::vector<viz::Picture> pictures = viz::draw_frame_pictures(model, requests);
+  std::string h = "<h2 id=\"pictures\">Pictures</h2>\n";
+  for (std::size_t k = 0; k < pictures.size(); ++k) h += figures[k](pictures[k]);
   return h;
 }
 

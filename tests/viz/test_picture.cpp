@@ -146,3 +146,37 @@ TEST_CASE("a deformed picture draws the undeformed frame behind it and reports i
   const Decoded d = decode(picture);
   CHECK(count(d, viz::undeformed_colour()) > 50);
 }
+
+TEST_CASE("pictures drawn together in one context are the pictures drawn one by one") {
+  // The batch reuses one OpenGL window for its pictures (and draws canvas pictures where asked): each
+  // PNG must be byte for byte the one draw_frame_picture gives alone, labels included.
+  const auto model = viz::testing::l_frame();
+  const auto result = viz::testing::solved(model);
+  std::vector<viz::PictureRequest> requests(4);
+  for (auto& r : requests) {
+    r.result = &result;
+    r.options.width = 320;
+    r.options.height = 240;
+  }
+  requests[0].options.member_values = {0.3, 1.2};
+  requests[0].options.labelled = {1};
+  requests[1].options.deformed = true;
+  requests[1].options.member_values = {0.2, 0.2};
+  requests[2].options.opengl = false;  // stress colours on the canvas, between two OpenGL pictures
+  requests[3].options.width = 200;     // another size in the same window
+  const std::vector<viz::Picture> together = viz::draw_frame_pictures(model, requests);
+  REQUIRE(together.size() == requests.size());
+  for (std::size_t k = 0; k < requests.size(); ++k) {
+    const viz::Picture alone = viz::draw_frame_picture(model, result, requests[k].options);
+    CHECK(together[k].drawn_by == alone.drawn_by);
+    CHECK(together[k].png == alone.png);
+    CHECK(together[k].deformation_scale == alone.deformation_scale);
+    REQUIRE(together[k].labels.size() == alone.labels.size());
+    for (std::size_t l = 0; l < alone.labels.size(); ++l) {
+      CHECK(together[k].labels[l].x == alone.labels[l].x);
+      CHECK(together[k].labels[l].y == alone.labels[l].y);
+    }
+    CHECK(decode(together[k]).width == requests[k].options.width);
+  }
+  CHECK(together[2].drawn_by == "image canvas");
+}

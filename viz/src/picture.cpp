@@ -12,6 +12,7 @@
 #include <cmath>
 #include <limits>
 #include <mutex>
+#include <utility>
 
 namespace stepframe::viz {
 namespace {
@@ -37,10 +38,9 @@ Eigen::Vector3d halfway(const detail::ScenePolyline& line) {
   return line.front().position;
 }
 
-}  // namespace
-
-Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
-                           const PictureOptions& options) {
+// What one picture shows, ready to draw, and the figures of it that do not need the drawing.
+std::pair<Picture, detail::PictureScene> scene_of(const analysis::FrameModel& model, const analysis::LoadResult& result,
+                                                  const PictureOptions& options) {
   Picture picture;
   Eigen::Vector3d low = model.nodes.front(), high = model.nodes.front();
   for (const auto& p : model.nodes) low = low.cwiseMin(p), high = high.cwiseMax(p);
@@ -93,20 +93,50 @@ Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::Lo
   }
   for (std::size_t m : options.labelled) scene.anchors.push_back(halfway(scene.coloured.at(m)));
 
+  return {std::move(picture), std::move(scene)};
+}
+
+}  // namespace
+
+std::vector<Picture> draw_frame_pictures(const analysis::FrameModel& model,
+                                         const std::vector<PictureRequest>& requests) {
+  std::vector<Picture> pictures;
+  std::vector<detail::PictureScene> scenes;
+  for (const auto& request : requests) {
+    auto [picture, scene] = scene_of(model, *request.result, request.options);
+    pictures.push_back(std::move(picture));
+    scenes.push_back(std::move(scene));
+  }
+  // The pictures that may use OpenGL are drawn together, in one context; the rest, or all of them
+  // where no context can be had, on the image canvas.
+  std::vector<detail::PictureScene> with_opengl;
+  for (std::size_t k = 0; k < requests.size(); ++k)
+    if (requests[k].options.opengl) with_opengl.push_back(scenes[k]);
   std::string why_not = "not asked for";
   const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
-  auto drawn = options.opengl ? detail::render_with_opengl(scene, why_not) : std::nullopt;
-  if (drawn) {
-    picture.drawn_by = "OpenGL (offscreen)";
-  } else {
-    spdlog::debug("picture drawn on the image canvas: {}", why_not);
-    drawn = detail::draw_on_canvas(scene);
-    picture.drawn_by = "image canvas";
+  auto drawn = with_opengl.empty() ? std::nullopt : detail::render_with_opengl(with_opengl, why_not);
+  for (std::size_t k = 0, next = 0; k < requests.size(); ++k) {
+    const PictureOptions& options = requests[k].options;
+    Picture& picture = pictures[k];
+    detail::DrawnScene scene;
+    if (options.opengl && drawn) {
+      scene = std::move((*drawn)[next++]);
+      picture.drawn_by = "OpenGL (offscreen)";
+    } else {
+      spdlog::debug("picture drawn on the image canvas: {}", options.opengl ? why_not : "not asked for");
+      scene = detail::draw_on_canvas(scenes[k]);
+      picture.drawn_by = "image canvas";
+    }
+    picture.png = std::move(scene.png);
+    for (std::size_t l = 0; l < options.labelled.size(); ++l)
+      picture.labels.push_back({options.labelled[l], scene.anchors[l][0] / options.width, scene.anchors[l][1] / options.height});
   }
-  picture.png = std::move(drawn->png);
-  for (std::size_t k = 0; k < options.labelled.size(); ++k)
-    picture.labels.push_back({options.labelled[k], drawn->anchors[k][0] / options.width, drawn->anchors[k][1] / options.height});
-  return picture;
+  return pictures;
+}
+
+Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
+                           const PictureOptions& options) {
+  return std::move(draw_frame_pictures(model, {{&result, options}}).front());
 }
 
 void prepare_picture_rendering() {
@@ -115,7 +145,7 @@ void prepare_picture_rendering() {
   scene.grey.push_back({{Eigen::Vector3d::Zero(), undeformed_colour()}, {Eigen::Vector3d::UnitX(), undeformed_colour()}});
   std::string why_not;
   const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
-  if (!detail::render_with_opengl(scene, why_not)) spdlog::debug("no offscreen OpenGL to prepare: {}", why_not);
+  if (!detail::render_with_opengl({scene}, why_not)) spdlog::debug("no offscreen OpenGL to prepare: {}", why_not);
 }
 
 }  // namespace stepframe::viz

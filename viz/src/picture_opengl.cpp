@@ -127,30 +127,23 @@ vtkSmartPointer<vtkPolyData> polylines(const std::vector<ScenePolyline>& lines) 
   return data;
 }
 
-DrawnScene render(const PictureScene& scene) {
-  const OffscreenContext context;
-  vtkNew<ContextWindow> window;
-  window->SetSize(scene.width, scene.height);
-  window->SetOwnContext(false);
-  window->SetIsCurrent(true);
-  window->SetReadyForRendering(true);
-  window->SetOffScreenRendering(true);
-  window->SetMultiSamples(0);
-  window->SetFrameBlitModeToNoBlit();
+/// One scene into `window` (the context current, the window reused from the scene before, so that
+/// the shader programs VTK compiled for it are used again: compiling them is most of a first render).
+DrawnScene render(ContextWindow& window, const PictureScene& scene) {
+  window.SetSize(scene.width, scene.height);
 
   vtkNew<vtkRenderer> renderer;
   renderer->SetBackground(1, 1, 1);
-  window->AddRenderer(renderer);
-
   // Members are drawn cased: a dark line under each coloured one (a layer of its own below), so
   // the palest colours of the scale still show on white.
   vtkNew<vtkRenderer> casing;
   casing->SetBackground(1, 1, 1);
-  window->SetNumberOfLayers(2);
+  window.SetNumberOfLayers(2);
   casing->SetLayer(0);
   renderer->SetLayer(1);
   renderer->SetBackgroundAlpha(0);
-  window->AddRenderer(casing);
+  window.AddRenderer(renderer);
+  window.AddRenderer(casing);
   auto add_lines = [&](vtkRenderer* target, const std::vector<ScenePolyline>& lines, float width, const Rgb* single) {
     if (lines.empty()) return;
     vtkNew<vtkPolyDataMapper> mapper;
@@ -178,9 +171,9 @@ DrawnScene render(const PictureScene& scene) {
   camera->Zoom(0.95);
   casing->SetActiveCamera(camera);
 
-  window->Render();
+  window.Render();
   vtkNew<vtkWindowToImageFilter> grab;
-  grab->SetInput(window);
+  grab->SetInput(&window);
   grab->SetInputBufferTypeToRGB();
   grab->ReadFrontBufferOff();
   grab->Update();
@@ -192,23 +185,38 @@ DrawnScene render(const PictureScene& scene) {
     const double* display = renderer->GetDisplayPoint();  // pixels from the bottom-left corner
     drawn.anchors.push_back({display[0], scene.height - display[1]});
   }
+  // The renderers go (their OpenGL resources released while the context is current); the window, and the
+  // shader programs it keeps, serve the next scene.
+  window.RemoveRenderer(renderer);
+  window.RemoveRenderer(casing);
   return drawn;
 }
 
 }  // namespace
 
-std::optional<DrawnScene> render_with_opengl(const PictureScene& scene, std::string& why_not) {
+std::optional<std::vector<DrawnScene>> render_with_opengl(const std::vector<PictureScene>& scenes,
+                                                          std::string& why_not) {
   // A thread of its own: its OpenGL "current context" is its own, whatever the caller's thread has current.
-  std::optional<DrawnScene> png;
+  std::optional<std::vector<DrawnScene>> drawn;
   std::thread worker([&] {
     try {
-      png = render(scene);
+      const OffscreenContext context;
+      vtkNew<ContextWindow> window;
+      window->SetOwnContext(false);
+      window->SetIsCurrent(true);
+      window->SetReadyForRendering(true);
+      window->SetOffScreenRendering(true);
+      window->SetMultiSamples(0);
+      window->SetFrameBlitModeToNoBlit();
+      std::vector<DrawnScene> pictures;
+      for (const PictureScene& scene : scenes) pictures.push_back(render(*window, scene));
+      drawn = std::move(pictures);
     } catch (const std::exception& e) {
       why_not = e.what();
     }
   });
   worker.join();
-  return png;
+  return drawn;
 }
 
 }  // namespace stepframe::viz::detail

@@ -41,9 +41,10 @@ inline constexpr Rgb casing_colour{60, 60, 60};
 inline const Eigen::Vector3d view_right = Eigen::Vector3d(1, 1, 0).normalized();
 inline const Eigen::Vector3d view_up = Eigen::Vector3d(-0.35, 0.35, 1).normalized();
 
-/// The scene rendered by OpenGL in an offscreen (EGL, surfaceless) context,
-/// or nothing when no such context can be had here (`why_not` says why).
-std::optional<DrawnScene> render_with_opengl(const PictureScene& scene, std::string& why_not);
+/// The scenes rendered by OpenGL in one offscreen (EGL, surfaceless) context,
+/// in order, or nothing when no such context can be had here (`why_not` says why).
+std::optional<std::vector<DrawnScene>> render_with_opengl(const std::vector<PictureScene>& scenes,
+                                                          std::string& why_not);
 
 /// The scene drawn on VTK's image canvas (no OpenGL).
 DrawnScene draw_on_canvas(const PictureScene& scene);

@@ -63,4 +63,16 @@ void prepare_picture_rendering();
 Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
                            const PictureOptions& options = {});
 
+/// One picture of a batch: the result drawn (it must outlive the call) and how.
+struct PictureRequest {
+  const analysis::LoadResult* result = nullptr;
+  PictureOptions options;
+};
+
+/// Draws several pictures of one model, as draw_frame_picture draws each, in
+/// the order asked. One offscreen OpenGL context serves them all: most of a
+/// first drawing in a context is compiling its shaders (about 0.1 s with
+/// Mesa's software renderer), which the pictures after the first then skip.
+std::vector<Picture> draw_frame_pictures(const analysis::FrameModel& model, const std::vector<PictureRequest>& requests);
+
 }  // namespace stepframe::viz
