@@ -13,7 +13,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <future>
 #include <map>
 
 namespace stepframe {
@@ -61,14 +60,15 @@ Analysis analyse_project(const std::filesystem::path& project_file, const RunCon
   control.report("project", 0);
   auto project = read_project(project_file);
   spdlog::info("project {}: model {}", project_file.string(), project.model.string());
-  // The report's pictures need the offscreen OpenGL driver, whose first load takes about a quarter of a
-  // second: it loads on the spare core while the STEP file is read on one (joined when this returns).
-  const std::future<void> picture_driver =
-      project.outputs.pictures ? std::async(std::launch::async, viz::prepare_picture_rendering) : std::future<void>();
+  // The report's pictures need an offscreen OpenGL context, whose first preparation takes about a third
+  // of a second: it is prepared on the spare core while the STEP file is read on one.
+  auto pictures = project.outputs.pictures ? std::make_shared<viz::PictureRenderer>() : nullptr;
 
   control.report("geometry", 0);
   const auto step = geometry::read_step(project.model);
-  return analyse_model(std::move(project), step, control);
+  Analysis a = analyse_model(std::move(project), step, control);
+  a.pictures = std::move(pictures);
+  return a;
 }
 
 Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control) {

@@ -129,7 +129,8 @@ std::string pictures_section(const Analysis& a) {
     });
   }
 
-  const std::vector<viz::Picture> pictures = viz::draw_frame_pictures(model, requests);
+  const std::vector<viz::Picture> pictures =
+      a.pictures ? a.pictures->draw(model, requests) : viz::draw_frame_pictures(model, requests);
   std::string h = "<h2 id=\"pictures\">Pictures</h2>\n";
   for (std::size_t k = 0; k < pictures.size(); ++k) h += figures[k](pictures[k]);
   return h;

@@ -18,6 +18,7 @@
 #include <fstream>
 #include <limits>
 #include <map>
+#include <thread>
 
 using namespace stepframe;
 
@@ -179,4 +180,30 @@ TEST_CASE("pictures drawn together in one context are the pictures drawn one by 
     CHECK(decode(together[k]).width == requests[k].options.width);
   }
   CHECK(together[2].drawn_by == "image canvas");
+}
+
+TEST_CASE("a prepared renderer draws what draw_frame_pictures draws, and several may live on several threads") {
+  const auto model = viz::testing::l_frame();
+  const auto result = viz::testing::solved(model);
+  viz::PictureRequest request{&result, {}};
+  request.options.width = 300;
+  request.options.height = 200;
+  request.options.member_values = {0.4, 0.9};
+  const std::vector<viz::Picture> expected = viz::draw_frame_pictures(model, {request});
+  { viz::PictureRenderer unused; }  // made and dropped while preparing: nothing to draw, nothing left behind
+  std::vector<std::vector<viz::Picture>> drawn(4);
+  {
+    std::vector<viz::PictureRenderer> renderers(4);
+    std::vector<std::thread> threads;
+    for (std::size_t t = 0; t < renderers.size(); ++t)
+      threads.emplace_back([&, t] { drawn[t] = renderers[t].draw(model, {request, request}); });
+    for (auto& thread : threads) thread.join();
+  }
+  for (const auto& pictures : drawn) {
+    REQUIRE(pictures.size() == 2);
+    for (const auto& picture : pictures) {
+      CHECK(picture.drawn_by == expected.front().drawn_by);
+      CHECK(picture.png == expected.front().png);
+    }
+  }
 }

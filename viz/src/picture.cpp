@@ -11,6 +11,8 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <future>
+#include <memory>
 #include <mutex>
 #include <utility>
 
@@ -96,42 +98,80 @@ std::pair<Picture, detail::PictureScene> scene_of(const analysis::FrameModel& mo
   return {std::move(picture), std::move(scene)};
 }
 
-}  // namespace
 
-std::vector<Picture> draw_frame_pictures(const analysis::FrameModel& model,
-                                         const std::vector<PictureRequest>& requests) {
+// The scenes of a batch, and the figures of each picture that do not need the drawing.
+struct Batch {
   std::vector<Picture> pictures;
   std::vector<detail::PictureScene> scenes;
+};
+
+Batch scenes_of(const analysis::FrameModel& model, const std::vector<PictureRequest>& requests) {
+  Batch batch;
   for (const auto& request : requests) {
     auto [picture, scene] = scene_of(model, *request.result, request.options);
-    pictures.push_back(std::move(picture));
-    scenes.push_back(std::move(scene));
+    batch.pictures.push_back(std::move(picture));
+    batch.scenes.push_back(std::move(scene));
   }
-  // The pictures that may use OpenGL are drawn together, in one context; the rest, or all of them
-  // where no context can be had, on the image canvas.
+  return batch;
+}
+
+// Draws the batch: the pictures that may use OpenGL together in `gl` (null: none here, `why_not` says
+// why), the rest, or all of them where OpenGL fails, on the image canvas. Under the rendering lock.
+std::vector<Picture> draw_batch(Batch batch, const std::vector<PictureRequest>& requests, detail::OffscreenPictures* gl,
+                          std::string why_not) {
   std::vector<detail::PictureScene> with_opengl;
   for (std::size_t k = 0; k < requests.size(); ++k)
-    if (requests[k].options.opengl) with_opengl.push_back(scenes[k]);
-  std::string why_not = "not asked for";
-  const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
-  auto drawn = with_opengl.empty() ? std::nullopt : detail::render_with_opengl(with_opengl, why_not);
+    if (requests[k].options.opengl) with_opengl.push_back(batch.scenes[k]);
+  std::vector<detail::DrawnScene> drawn;
+  if (gl && !with_opengl.empty()) try {
+      drawn = gl->draw(with_opengl);
+    } catch (const std::runtime_error& e) {
+      why_not = e.what();
+    }
   for (std::size_t k = 0, next = 0; k < requests.size(); ++k) {
     const PictureOptions& options = requests[k].options;
-    Picture& picture = pictures[k];
+    Picture& picture = batch.pictures[k];
     detail::DrawnScene scene;
-    if (options.opengl && drawn) {
-      scene = std::move((*drawn)[next++]);
+    if (options.opengl && !drawn.empty()) {
+      scene = std::move(drawn[next++]);
       picture.drawn_by = "OpenGL (offscreen)";
     } else {
       spdlog::debug("picture drawn on the image canvas: {}", options.opengl ? why_not : "not asked for");
-      scene = detail::draw_on_canvas(scenes[k]);
+      scene = detail::draw_on_canvas(batch.scenes[k]);
       picture.drawn_by = "image canvas";
     }
     picture.png = std::move(scene.png);
     for (std::size_t l = 0; l < options.labelled.size(); ++l)
       picture.labels.push_back({options.labelled[l], scene.anchors[l][0] / options.width, scene.anchors[l][1] / options.height});
   }
-  return pictures;
+  return std::move(batch.pictures);
+}
+
+// A scene with every kind of line the pictures draw (grey, coloured, cased), so that drawing it
+// compiles every shader program they use. Small: the framebuffer of a full picture takes another
+// 30 ms or so to set up, and the preparation runs beside the STEP reader, which it should not slow.
+detail::PictureScene warm_up_scene() {
+  detail::PictureScene scene;
+  scene.width = scene.height = 16;
+  scene.grey.push_back({{Eigen::Vector3d::Zero(), undeformed_colour()}, {Eigen::Vector3d::UnitX(), undeformed_colour()}});
+  scene.coloured.push_back({{Eigen::Vector3d::Zero(), utilisation_colour(0)}, {Eigen::Vector3d::UnitY(), utilisation_colour(1)}});
+  return scene;
+}
+
+}  // namespace
+
+std::vector<Picture> draw_frame_pictures(const analysis::FrameModel& model,
+                                         const std::vector<PictureRequest>& requests) {
+  Batch batch = scenes_of(model, requests);
+  const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
+  std::unique_ptr<detail::OffscreenPictures> gl;  // goes before the lock is released
+  std::string why_not = "not asked for";
+  if (std::any_of(requests.begin(), requests.end(), [](const auto& r) { return r.options.opengl; })) try {
+      gl = std::make_unique<detail::OffscreenPictures>();
+    } catch (const std::runtime_error& e) {
+      why_not = e.what();
+    }
+  return draw_batch(std::move(batch), requests, gl.get(), why_not);
 }
 
 Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
@@ -139,13 +179,52 @@ Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::Lo
   return std::move(draw_frame_pictures(model, {{&result, options}}).front());
 }
 
-void prepare_picture_rendering() {
-  detail::PictureScene scene;
-  scene.width = scene.height = 16;
-  scene.grey.push_back({{Eigen::Vector3d::Zero(), undeformed_colour()}, {Eigen::Vector3d::UnitX(), undeformed_colour()}});
+struct PictureRenderer::Impl {
+  std::mutex turn;  // one drawing at a time on this renderer
+  std::future<std::unique_ptr<detail::OffscreenPictures>> preparing;
+  std::unique_ptr<detail::OffscreenPictures> gl;  // once prepared; null where no context can be had
   std::string why_not;
+  bool prepared = false;
+
+  detail::OffscreenPictures* ready() {
+    if (!prepared) {
+      gl = preparing.get();
+      prepared = true;
+    }
+    return gl.get();
+  }
+};
+
+PictureRenderer::PictureRenderer() : impl_(std::make_unique<Impl>()) {
+  impl_->preparing = std::async(std::launch::async, [impl = impl_.get()] {
+    const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
+    std::unique_ptr<detail::OffscreenPictures> gl;
+    try {
+      gl = std::make_unique<detail::OffscreenPictures>();
+      gl->draw({warm_up_scene()});
+    } catch (const std::runtime_error& e) {
+      impl->why_not = e.what();
+      gl.reset();
+      spdlog::debug("no offscreen OpenGL for pictures: {}", impl->why_not);
+    }
+    return gl;
+  });
+}
+
+PictureRenderer::~PictureRenderer() {
+  const std::lock_guard<std::mutex> turn(impl_->turn);
+  std::unique_ptr<detail::OffscreenPictures> gl = impl_->prepared ? std::move(impl_->gl) : impl_->preparing.get();
   const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
-  if (!detail::render_with_opengl({scene}, why_not)) spdlog::debug("no offscreen OpenGL to prepare: {}", why_not);
+  gl.reset();
+}
+
+std::vector<Picture> PictureRenderer::draw(const analysis::FrameModel& model,
+                                           const std::vector<PictureRequest>& requests) {
+  Batch batch = scenes_of(model, requests);
+  const std::lock_guard<std::mutex> turn(impl_->turn);
+  detail::OffscreenPictures* gl = impl_->ready();
+  const std::lock_guard<std::mutex> one_at_a_time(rendering_lock());
+  return draw_batch(std::move(batch), requests, gl, gl ? "not asked for" : impl_->why_not);
 }
 
 }  // namespace stepframe::viz

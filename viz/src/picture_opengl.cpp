@@ -33,6 +33,8 @@
 #include <vtkRenderer.h>
 #include <vtkWindowToImageFilter.h>
 
+#include <exception>
+#include <memory>
 #include <thread>
 
 VTK_MODULE_INIT(vtkRenderingOpenGL2);
@@ -40,7 +42,8 @@ VTK_MODULE_INIT(vtkRenderingOpenGL2);
 namespace stepframe::viz::detail {
 namespace {
 
-/// A surfaceless EGL context, current on the calling thread while this lives.
+/// A surfaceless EGL context. Current on no thread until `make_current`; a
+/// thread that made it current releases it before another thread takes it.
 class OffscreenContext {
  public:
   /// Throws std::runtime_error saying what is missing.
@@ -58,18 +61,23 @@ class OffscreenContext {
                                  EGL_CONTEXT_OPENGL_PROFILE_MASK, EGL_CONTEXT_OPENGL_CORE_PROFILE_BIT, EGL_NONE};
     context_ = eglCreateContext(display_, EGL_NO_CONFIG_KHR, EGL_NO_CONTEXT, attributes);
     if (context_ == EGL_NO_CONTEXT) throw std::runtime_error("EGL cannot create an OpenGL 3.2 core context");
-    if (!eglMakeCurrent(display_, EGL_NO_SURFACE, EGL_NO_SURFACE, context_)) {
-      eglDestroyContext(display_, context_);
-      throw std::runtime_error("EGL cannot make the context current without a surface");
-    }
   }
   ~OffscreenContext() {
     // The display stays initialised: terminating it would end any other user's contexts on it.
-    eglMakeCurrent(display_, EGL_NO_SURFACE, EGL_NO_SURFACE, EGL_NO_CONTEXT);
     eglDestroyContext(display_, context_);
   }
   OffscreenContext(const OffscreenContext&) = delete;
   OffscreenContext& operator=(const OffscreenContext&) = delete;
+
+  /// Current on the calling thread while the returned guard lives.
+  [[nodiscard]] auto make_current() const {
+    if (!eglBindAPI(EGL_OPENGL_API) || !eglMakeCurrent(display_, EGL_NO_SURFACE, EGL_NO_SURFACE, context_))
+      throw std::runtime_error("EGL cannot make the context current without a surface");
+    auto release = [display = display_](const OffscreenContext*) {
+      eglMakeCurrent(display, EGL_NO_SURFACE, EGL_NO_SURFACE, EGL_NO_CONTEXT);
+    };
+    return std::unique_ptr<const OffscreenContext, decltype(release)>(this, release);
+  }
 
  private:
   EGLDisplay display_ = EGL_NO_DISPLAY;
@@ -192,31 +200,65 @@ DrawnScene render(ContextWindow& window, const PictureScene& scene) {
   return drawn;
 }
 
-}  // namespace
-
-std::optional<std::vector<DrawnScene>> render_with_opengl(const std::vector<PictureScene>& scenes,
-                                                          std::string& why_not) {
-  // A thread of its own: its OpenGL "current context" is its own, whatever the caller's thread has current.
-  std::optional<std::vector<DrawnScene>> drawn;
+/// Runs `work` on a thread of its own and waits for it: that thread's OpenGL "current context" is its
+/// own, whatever the caller's thread has current. Exceptions come back to the caller.
+template <class Work>
+void on_own_thread(Work&& work) {
+  std::exception_ptr failure;
   std::thread worker([&] {
     try {
-      const OffscreenContext context;
-      vtkNew<ContextWindow> window;
-      window->SetOwnContext(false);
-      window->SetIsCurrent(true);
-      window->SetReadyForRendering(true);
-      window->SetOffScreenRendering(true);
-      window->SetMultiSamples(0);
-      window->SetFrameBlitModeToNoBlit();
-      std::vector<DrawnScene> pictures;
-      for (const PictureScene& scene : scenes) pictures.push_back(render(*window, scene));
-      drawn = std::move(pictures);
-    } catch (const std::exception& e) {
-      why_not = e.what();
+      work();
+    } catch (...) {
+      failure = std::current_exception();
     }
   });
   worker.join();
-  return drawn;
+  if (failure) std::rethrow_exception(failure);
+}
+
+}  // namespace
+
+struct OffscreenPictures::Parts {
+  OffscreenContext context;
+  vtkSmartPointer<ContextWindow> window;
+};
+
+OffscreenPictures::OffscreenPictures() {
+  on_own_thread([&] {
+    auto parts = std::make_unique<Parts>();
+    const auto current = parts->context.make_current();
+    parts->window = vtkSmartPointer<ContextWindow>::New();
+    ContextWindow& window = *parts->window;
+    window.SetOwnContext(false);
+    window.SetIsCurrent(true);
+    window.SetReadyForRendering(true);
+    window.SetOffScreenRendering(true);
+    window.SetMultiSamples(0);
+    window.SetFrameBlitModeToNoBlit();
+    parts_ = std::move(parts);
+  });
+}
+
+OffscreenPictures::~OffscreenPictures() {
+  if (!parts_) return;
+  // The window's OpenGL resources are released with its context current, before the context goes.
+  on_own_thread([&] {
+    try {
+      const auto current = parts_->context.make_current();
+      parts_->window = nullptr;
+    } catch (const std::exception&) {  // the context cannot be had: its resources go with it below
+    }
+    parts_.reset();
+  });
+}
+
+std::vector<DrawnScene> OffscreenPictures::draw(const std::vector<PictureScene>& scenes) {
+  std::vector<DrawnScene> pictures;
+  on_own_thread([&] {
+    const auto current = parts_->context.make_current();
+    for (const PictureScene& scene : scenes) pictures.push_back(render(*parts_->window, scene));
+  });
+  return pictures;
 }
 
 }  // namespace stepframe::viz::detail

@@ -8,6 +8,7 @@
 #include <Eigen/Core>
 
 #include <array>
+#include <memory>
 #include <cstdint>
 #include <optional>
 #include <string>
@@ -41,10 +42,28 @@ inline constexpr Rgb casing_colour{60, 60, 60};
 inline const Eigen::Vector3d view_right = Eigen::Vector3d(1, 1, 0).normalized();
 inline const Eigen::Vector3d view_up = Eigen::Vector3d(-0.35, 0.35, 1).normalized();
 
-/// The scenes rendered by OpenGL in one offscreen (EGL, surfaceless) context,
-/// in order, or nothing when no such context can be had here (`why_not` says why).
-std::optional<std::vector<DrawnScene>> render_with_opengl(const std::vector<PictureScene>& scenes,
-                                                          std::string& why_not);
+/// An offscreen OpenGL context (EGL, surfaceless) and the VTK window that
+/// draws into it. Each call runs on a thread of its own, so the caller's
+/// current context is left alone, and may come from any thread, one at a
+/// time (the caller holds the process-wide rendering lock: VTK's rendering
+/// is not thread-safe). The window is kept from one drawing to the next, and
+/// with it the shader programs VTK compiled: compiling them is most of a
+/// first drawing (about 0.1 s with Mesa's software renderer).
+class OffscreenPictures {
+ public:
+  /// Throws std::runtime_error saying why no context can be had here.
+  OffscreenPictures();
+  ~OffscreenPictures();
+  OffscreenPictures(const OffscreenPictures&) = delete;
+  OffscreenPictures& operator=(const OffscreenPictures&) = delete;
+
+  /// The scenes rendered in order. Throws std::runtime_error when OpenGL fails.
+  std::vector<DrawnScene> draw(const std::vector<PictureScene>& scenes);
+
+ private:
+  struct Parts;
+  std::unique_ptr<Parts> parts_;
+};
 
 /// The scene drawn on VTK's image canvas (no OpenGL).
 DrawnScene draw_on_canvas(const PictureScene& scene);

@@ -16,10 +16,15 @@
 
 #include <filesystem>
 #include <functional>
+#include <memory>
 #include <optional>
 #include <string>
 #include <string_view>
 #include <vector>
+
+namespace stepframe::viz {
+class PictureRenderer;
+}
 
 namespace stepframe {
 
@@ -57,6 +62,9 @@ struct Analysis {
   std::optional<analysis::ModalResult> modes;
   double added_mass = 0;  ///< [kg] from analysis.mass_from and masses: together
   ShopData shop;  ///< piece marks and precamber (shop_data.hpp)
+  /// What draws the report's pictures: analyse_project makes it before reading the STEP file, so that
+  /// its offscreen context is ready by the time the report is written. Null: the report makes its own.
+  std::shared_ptr<viz::PictureRenderer> pictures;
 
   ExitStatus status() const;  ///< pass or check_failed
 };

@@ -17,6 +17,7 @@
 #include "stepframe/analysis/results.hpp"
 
 #include <cstdint>
+#include <memory>
 #include <string>
 #include <vector>
 
@@ -52,13 +53,6 @@ struct Picture {
   std::vector<PictureLabel> labels; ///< one per PictureOptions::labelled member, in that order
 };
 
-/// Loads the offscreen OpenGL driver by drawing a tiny picture and throwing it
-/// away, so that the first real picture does not wait for the load (Mesa's
-/// software renderer takes about a quarter of a second the first time in a
-/// process; the driver's libraries then stay loaded). A run calls it on its
-/// spare core while the STEP file is read on the other. Never throws.
-void prepare_picture_rendering();
-
 /// Draws the members of `result` coloured as `options` say.
 Picture draw_frame_picture(const analysis::FrameModel& model, const analysis::LoadResult& result,
                            const PictureOptions& options = {});
@@ -74,5 +68,28 @@ struct PictureRequest {
 /// first drawing in a context is compiling its shaders (about 0.1 s with
 /// Mesa's software renderer), which the pictures after the first then skip.
 std::vector<Picture> draw_frame_pictures(const analysis::FrameModel& model, const std::vector<PictureRequest>& requests);
+
+/// Draws pictures as draw_frame_pictures does, in an offscreen context it
+/// starts preparing the moment it is made, on a thread of its own: Mesa's
+/// software renderer takes about a quarter of a second to load the first time
+/// in a process, and VTK about a tenth to compile its shaders for a new
+/// window. A run makes its renderer before it reads the STEP file, so the
+/// report's pictures wait for neither. Where no context can be had, pictures
+/// are drawn on the image canvas.
+class PictureRenderer {
+ public:
+  PictureRenderer();   ///< returns at once; the preparation runs meanwhile
+  ~PictureRenderer();  ///< waits for the preparation, if it still runs
+  PictureRenderer(const PictureRenderer&) = delete;
+  PictureRenderer& operator=(const PictureRenderer&) = delete;
+
+  /// As draw_frame_pictures (waiting for the preparation first). Calls from
+  /// several threads take turns.
+  std::vector<Picture> draw(const analysis::FrameModel& model, const std::vector<PictureRequest>& requests);
+
+ private:
+  struct Impl;
+  std::unique_ptr<Impl> impl_;
+};
 
 }  // namespace stepframe::viz
