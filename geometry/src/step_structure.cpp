@@ -32,6 +32,34 @@ std::string printable(char c) {
 
 bool digit(char c) { return std::isdigit(static_cast<unsigned char>(c)) != 0; }
 
+// ISO 10303-21 (2016) 6.4.2-6.4.3: INTEGER = [sign] digit {digit}; REAL = [sign] digit {digit} "."
+// {digit} ["E" [sign] digit {digit}]. Anything else OCCT's lexer splits or misreads ("5000..0." became
+// a point that its transfer dereferenced as null: a fuzz finding).
+bool number_syntax(std::string_view t) {
+  std::size_t i = t[0] == '+' || t[0] == '-' ? 1 : 0;
+  const auto digits = [&] {
+    const std::size_t from = i;
+    while (i < t.size() && digit(t[i])) ++i;
+    return i > from;
+  };
+  if (!digits()) return false;
+  if (i == t.size()) return true;
+  if (t[i++] != '.') return false;
+  digits();
+  if (i == t.size()) return true;
+  if (t[i++] != 'E') return false;
+  if (i < t.size() && (t[i] == '+' || t[i] == '-')) ++i;
+  return digits() && i == t.size();
+}
+
+// ISO 10303-21 6.4.6: ENUMERATION = "." UPPER {UPPER | DIGIT} "." (UPPER includes _), as OCCT's lexer reads it.
+bool enumeration_syntax(std::string_view t) {
+  return t.size() >= 3 && t.front() == '.' && t.back() == '.' &&
+         std::all_of(t.begin() + 1, t.end() - 1, [](char c) {
+           return (c >= 'A' && c <= 'Z') || digit(c) || c == '_';
+         });
+}
+
 bool control(char c) {
   const auto u = static_cast<unsigned char>(c);
   return (u < 0x20 && c != '\n' && c != '\r' && c != '\t') || u == 0x7f;
@@ -217,9 +245,13 @@ void StepStructureCheck::end_token() {
     }
     return;
   }
-  const bool signed_number = (first == '+' || first == '-') && t.size() > 1 && (digit(t[1]) || t[1] == '.');
-  if (digit(first) || signed_number) {
-    if (t.find_first_of(".eE") != std::string::npos) {
+  if (digit(first) || first == '+' || first == '-') {
+    if (!number_syntax(t))
+      fail(fmt::format("{}: '{}' is not a number as ISO 10303-21 writes one (digits, a point, more digits and an "
+                       "exponent after a capital E, such as -1.5E+03), and OCCT's reader would take it for something "
+                       "else; {}",
+                       here(), t, damaged));
+    if (t.find('.') != std::string::npos) {
       const double value = std::strtod(t.c_str(), nullptr);
       if (!std::isfinite(value))
         fail(fmt::format("{}: the number {} is beyond the range of numbers (about 1.8E308); a coordinate or "
@@ -228,7 +260,18 @@ void StepStructureCheck::end_token() {
     }
     return;
   }
+  if (first == '.') {
+    if (!enumeration_syntax(t))
+      fail(fmt::format("{}: '{}' is neither a number nor an enumeration (capital letters, digits or _ between two "
+                       "points, such as .T. or .MILLI.); {}",
+                       here(), t, damaged));
+    return;
+  }
   if (std::isalpha(static_cast<unsigned char>(first)) != 0 || first == '!' || first == '_') {
+    // Inside an entity only: the file's first and last lines are ISO-10303-21; and END-ISO-10303-21;
+    if (current_ != 0 &&
+        std::any_of(t.begin() + 1, t.end(), [](char c) { return c == '.' || c == '+' || c == '-' || c == '#'; }))
+      fail(fmt::format("{}: '{}' is not a keyword (letters, digits and _ only); {}", here(), t, damaged));
     if (depth_ > 0) word_ = t;  // a keyword inside parameters must be followed by '(' (a typed value)
     keyword_ = std::move(t);
     after_keyword_ = true;

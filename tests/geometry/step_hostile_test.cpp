@@ -201,3 +201,27 @@ TEST_CASE("a chain of references longer than OCCT can follow is refused naming w
   CHECK_THAT(message, Catch::Contains("begins a chain of more than 1000 references (#"));
   CHECK_THAT(message, Catch::Contains("OCCT follows such chains by recursion and would overflow its stack"));
 }
+
+TEST_CASE("fuzz finding: numbers and enumerations are read as ISO 10303-21 writes them, or refused", "[step][hostile]") {
+  // fuzz_step_import wrote "5000..0." for a coordinate of bay_vertex_shells_mm.stp: the structure check took it
+  // for a finite number, OCCT's lexer read another value and its transfer crashed on the vertex's null point
+  // (StepToTopoDS_TranslateVertex). ISO 10303-21 (2016) 6.4: INTEGER, REAL with a capital E, ENUMERATION
+  // with capital letters, digits and _ between two points.
+  CHECK_THAT(refusal(read_text(data / "fuzz" / "malformed_number_in_point.stp")),
+             Catch::Contains("<test>: #61 (line 43): '5000..0.' is not a number as ISO 10303-21 writes one"));
+  auto check = [](const std::string& value) {
+    try {
+      (void)sg::check_step_structure("#1 = HOLDER(" + value + ");\n", "<test>");
+    } catch (const sg::StepReadError& e) {
+      return std::string(e.what());
+    }
+    return std::string();
+  };
+  for (const char* good : {"0", "-12", "+7", "1.", "-1.5", "2.5E3", "1.E-07", "-0.25E+12", ".T.", ".MILLI.", ".A_1."})
+    CHECK(check(good).empty());
+  for (const char* bad : {"1..2", "1.5e3", "1E3", "1.E", "1.5E+", "-", "+.", "12AB", "3.0.1"})
+    CHECK_THAT(check(bad), Catch::Contains("is not a number as ISO 10303-21 writes one"));
+  for (const char* bad : {".t.", "..", ".0.5", ".A-B."})
+    CHECK_THAT(check(bad), Catch::Contains("is neither a number nor an enumeration"));
+  CHECK_THAT(check("SI.UNIT(1.)"), Catch::Contains("'SI.UNIT' is not a keyword"));
+}

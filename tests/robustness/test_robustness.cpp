@@ -89,6 +89,8 @@ const std::vector<Case> cases = {
      "OCCT could not read entity #35 (StepGeom_Line: Parameter n0.2 (pnt) : Entity has illegal type)"},
     {"stray character after an entity number", run, "", {line_entity, "#35] = LINE('',#36,#37);"}, 2,
      "the character ']' cannot stand there"},
+    {"malformed number in a point", run, "", {far_end, "#40 = CARTESIAN_POINT('',(6000..0.,0.,0.));"}, 2,
+     "'6000..0.' is not a number as ISO 10303-21 writes one"},
     {"stray double quote before an entity number", run, "", {line_entity, "\"35 = LINE('',#36,#37);"}, 2,
      "a binary value (after '\"', line 52) holds the character ' ', not a hexadecimal digit"},
     // Tokens longer than OCCT's lexer reads (16382 characters): strings are cut, anything else refused.
