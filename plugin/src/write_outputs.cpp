@@ -83,12 +83,12 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
   const std::filesystem::path& dir = staging.path();
   const auto& model = analysis.built.model;
   const OutputsSpec& outputs = analysis.project.outputs;
-  std::vector<std::filesystem::path> written;  // relative to the folder
-  auto text_file = [&](const std::string& name, const std::string& text) {
+  // A text file of the folder, written whole; its name relative to the folder is added to `list`.
+  auto text_file = [&](std::vector<std::filesystem::path>& list, const std::string& name, const std::string& text) {
     std::ofstream out(dir / name, std::ios::binary);
     out << text;
     if (!out.flush()) throw output_failure(out_dir / name, errno);
-    written.push_back(name);
+    list.push_back(name);
   };
   // Governing utilisation per member, for colouring by verdict.
   std::vector<double> utilisation(model.members.size(), 0.0);
@@ -100,9 +100,26 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
            (selection == VtkSelection::governing &&
             std::find(governing.begin(), governing.end(), result) != governing.end());
   };
-  // The report (its pictures are rendered on threads of their own) is made meanwhile; it reads the
-  // analysis only and calls no one back, so it may run beside the writers.
+  // Three writers run side by side, each with files of its own: the report (its pictures on a thread of
+  // their own), the tables and results.json, and the VTK files on this thread. They read the analysis
+  // only and call no one back; progress is reported from this thread alone.
   auto report = std::async(std::launch::async, [&analysis] { return report_html(analysis); });
+  auto tables = std::async(std::launch::async, [&] {
+    std::vector<std::filesystem::path> files;
+    text_file(files, "checks.csv", checks_csv(analysis));
+    text_file(files, "takeoff.csv", takeoff_csv(analysis));
+    text_file(files, "takeoff_by_section.csv", takeoff_by_section_csv(analysis));
+    text_file(files, "reactions.csv", reactions_csv(analysis));
+    text_file(files, "end_forces.csv", end_forces_csv(analysis));
+    text_file(files, "cutlist.csv", cutlist_csv(analysis));
+    text_file(files, "connections.csv", connections_csv(analysis));
+    std::ofstream out(dir / "results.json", std::ios::binary);
+    write_results_json(analysis, [&](std::string_view piece) { out.write(piece.data(), static_cast<std::streamsize>(piece.size())); });
+    if (!out.flush()) throw output_failure(out_dir / "results.json", errno);
+    files.push_back("results.json");
+    return files;
+  });
+  std::vector<std::filesystem::path> written;  // relative to the folder, in a fixed order
   try {
     std::set<std::string> used;
     std::vector<viz::IndexEntry> index;
@@ -145,26 +162,16 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
         written.push_back(file);
         index.push_back({"natural modes", fmt::format("mode {} ({:.3g} Hz)", m + 1, mode.frequency), file});
       }
-    if (!index.empty()) text_file("frame.vtm", viz::multiblock_index(index));
+    if (!index.empty()) text_file(written, "frame.vtm", viz::multiblock_index(index));
     control.report("tables", 0);
-    text_file("checks.csv", checks_csv(analysis));
-    text_file("takeoff.csv", takeoff_csv(analysis));
-    text_file("takeoff_by_section.csv", takeoff_by_section_csv(analysis));
-    text_file("reactions.csv", reactions_csv(analysis));
-    text_file("end_forces.csv", end_forces_csv(analysis));
-    text_file("cutlist.csv", cutlist_csv(analysis));
-    text_file("connections.csv", connections_csv(analysis));
     control.report("results.json", 0);
-    {
-      std::ofstream out(dir / "results.json", std::ios::binary);
-      write_results_json(analysis, [&](std::string_view piece) { out.write(piece.data(), static_cast<std::streamsize>(piece.size())); });
-      if (!out.flush()) throw output_failure(out_dir / "results.json", errno);
-      written.push_back("results.json");
-    }
+    const auto table_files = tables.get();
+    written.insert(written.end(), table_files.begin(), table_files.end());
     control.report("report", 0);
-    text_file("report.html", report.get());
+    text_file(written, "report.html", report.get());
     control.throw_if_cancelled();  // the last moment a cancel (or a signal) leaves the old results in place
   } catch (const std::runtime_error& e) {
+    if (tables.valid()) tables.wait();
     if (report.valid()) report.wait();
     // A VTK writer that failed: the disk's or the folder's fault is bad input, anything else ours.
     if (dynamic_cast<const InputError*>(&e) == nullptr && dynamic_cast<const Cancelled*>(&e) == nullptr &&
