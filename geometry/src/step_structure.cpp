@@ -115,6 +115,7 @@ void StepStructureCheck::character(char c) {
     case Mode::binary:
       if (c == '"') {
         mode_ = Mode::normal;
+        value_done_ = true;
         return;
       }
       // ISO 10303-21 5.3: a binary value is '"', a digit 0-3, hexadecimal digits, '"'. Anything else means
@@ -139,6 +140,7 @@ void StepStructureCheck::character(char c) {
         return;
       }
       mode_ = Mode::normal;   // the quote before ended the string: c is the next character
+      value_done_ = true;
       if (run_ > max_step_token) long_strings_.push_back({current_, run_line_, run_});
       break;
     case Mode::normal:
@@ -156,6 +158,7 @@ void StepStructureCheck::character(char c) {
   if (token_char(c)) {
     if (token_.empty() && !word_.empty())
       fail_bare_word();
+    if (token_.empty()) value_starts(depth_);
     token_ += c;
     if (token_.size() > max_step_token)
       fail(fmt::format("{}: a keyword, number or reference of more than {} characters ('{}...'), more than OCCT's "
@@ -183,8 +186,13 @@ void StepStructureCheck::character(char c) {
         fail(fmt::format("{}: parentheses nest more than {} levels deep; {}", here(), max_step_nesting, damaged));
       const auto d = static_cast<std::size_t>(depth_);
       if (owner_.size() <= d) owner_.resize(d + 1);
+      if (!typed) value_starts(depth_ - 1);  // a list as a value (a typed value's own list began with its keyword)
       owner_[d] = typed ? keyword_ : owner_[d - 1];  // a list belongs to the entity or value it stands in
+      // "#20 = ( A() B() )": a complex instance's records, one after another without commas (ISO 10303-21 12.2.5.2).
+      records_.resize(owner_.size());
+      records_[d] = !typed && d == 1;
       empty_list_ = !typed;
+      value_done_ = false;
       break;
     }
     case ')': {
@@ -193,7 +201,9 @@ void StepStructureCheck::character(char c) {
         fail(fmt::format("{}: an empty list '()' in {}; the STEP schemas want at least one item in this list and "
                          "OCCT's reader cannot take an empty one; {}",
                          here(), owner.empty() ? "the entity" : owner, damaged));
+      if (expect_value_) fail(fmt::format("{}: a ',' just before ')' (a parameter is missing); {}", here(), damaged));
       if (--depth_ < 0) fail(fmt::format("{}: a ')' closes no '('; {}", here(), damaged));
+      value_done_ = depth_ > 0;
       break;
     }
     case ';':
@@ -201,27 +211,46 @@ void StepStructureCheck::character(char c) {
         fail(fmt::format("{}: the entity's parameter list is not closed before ';' ({} '(' open); {}", here(), depth_,
                          damaged));
       current_ = 0;
+      value_done_ = expect_value_ = false;
       break;
     case '\'':
+      value_starts(depth_);
       mode_ = Mode::string;
       quote_ = false;
       run_ = 0;
       run_line_ = line_;
       break;
     case '"':
+      value_starts(depth_);
       mode_ = Mode::binary;
       run_ = 0;
       run_line_ = line_;
       break;
-    case '=':
     case ',':
-    case '$':
-    case '*':
+      if (depth_ > 0 && !value_done_)
+        fail(fmt::format("{}: a ',' where a parameter belongs (two commas, or a comma just after '('); {}", here(),
+                         damaged));
+      value_done_ = false;
+      expect_value_ = depth_ > 0;
+      break;
+    case '$':  // an unset value
+    case '*':  // a value derived from others
+      value_starts(depth_);
+      value_done_ = depth_ > 0;
+      break;
+    case '=':
     case '&':  // &SCOPE
       break;
     default:  // ISO 10303-21 5.3 writes nothing else outside strings, comments and binaries
       fail(fmt::format("{}: {} cannot stand there (outside a string); {}", here(), printable(c), damaged));
   }
+}
+
+void StepStructureCheck::value_starts(int depth) {
+  expect_value_ = false;
+  if (depth == 0 || (depth == 1 && records_.size() > 1 && records_[1])) return;
+  if (value_done_)
+    fail(fmt::format("{}: two parameters follow each other without a ',' between them; {}", here(), damaged));
 }
 
 void StepStructureCheck::end_token() {
@@ -242,6 +271,7 @@ void StepStructureCheck::end_token() {
     } else {
       if (current_ == 0) fail(fmt::format("{}: a reference {} stands outside any entity; {}", here(), t, damaged));
       refs_.push_back(id);
+      value_done_ = true;
     }
     return;
   }
@@ -251,6 +281,7 @@ void StepStructureCheck::end_token() {
                        "exponent after a capital E, such as -1.5E+03), and OCCT's reader would take it for something "
                        "else; {}",
                        here(), t, damaged));
+    value_done_ = depth_ > 0;
     if (t.find('.') != std::string::npos) {
       const double value = std::strtod(t.c_str(), nullptr);
       if (!std::isfinite(value))
@@ -265,6 +296,7 @@ void StepStructureCheck::end_token() {
       fail(fmt::format("{}: '{}' is neither a number nor an enumeration (capital letters, digits or _ between two "
                        "points, such as .T. or .MILLI.); {}",
                        here(), t, damaged));
+    value_done_ = depth_ > 0;
     return;
   }
   if (std::isalpha(static_cast<unsigned char>(first)) != 0 || first == '!' || first == '_') {

@@ -225,3 +225,30 @@ TEST_CASE("fuzz finding: numbers and enumerations are read as ISO 10303-21 write
     CHECK_THAT(check(bad), Catch::Contains("is neither a number nor an enumeration"));
   CHECK_THAT(check("SI.UNIT(1.)"), Catch::Contains("'SI.UNIT' is not a keyword"));
 }
+
+TEST_CASE("fuzz finding: parameters are separated by single commas, or the file is refused", "[step][hostile]") {
+  // fuzz_step_import wrote "EDGE_CURVE('west column'$#66,..." (the comma after the name dropped) into
+  // bay_vertex_shells_mm.stp: OCCT's parser made another edge of it, and an oriented edge's start vertex then
+  // recursed without end (stack overflow in StepShape_OrientedEdge::EdgeStart). ISO 10303-21 (2016) 12.2.
+  CHECK_THAT(refusal(read_text(data / "fuzz" / "missing_comma_between_parameters.stp")),
+             Catch::Contains("<test>: #70 (line 51): two parameters follow each other without a ',' between them"));
+  auto check = [](const std::string& entity) {
+    try {
+      (void)sg::check_step_structure(entity + "\n#2 = X(1.);\n", "<test>");
+    } catch (const sg::StepReadError& e) {
+      return std::string(e.what());
+    }
+    return std::string();
+  };
+  // Well-formed: nested lists, typed values, unset and derived values, a complex instance's records.
+  for (const char* good : {"#1 = A('n',#2,(1.,2.),((3,4),(5,6)),$,*,.T.,LENGTH_MEASURE(2.5),\"0F\");",
+                           "#1 = ( LENGTH_UNIT() NAMED_UNIT(*) SI_UNIT(.MILLI.,.METRE.) );",
+                           "#1 = A ( 'n' , #2 ) ;"})
+    CHECK(check(good).empty());
+  for (const char* bad : {"#1 = A('n'$);", "#1 = A(#2 #2);", "#1 = A((1.)(2.));", "#1 = A(1. 2.);",
+                          "#1 = A('a''b' 'c');", "#1 = A(*.T.);", "#1 = A(X(1.) #2);"})
+    CHECK_THAT(check(bad), Catch::Contains("two parameters follow each other without a ','"));
+  for (const char* bad : {"#1 = A(#2,,#2);", "#1 = A(,#2);"})
+    CHECK_THAT(check(bad), Catch::Contains("a ',' where a parameter belongs"));
+  CHECK_THAT(check("#1 = A(#2,);"), Catch::Contains("a ',' just before ')'"));
+}

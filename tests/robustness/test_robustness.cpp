@@ -89,6 +89,8 @@ const std::vector<Case> cases = {
      "OCCT could not read entity #35 (StepGeom_Line: Parameter n0.2 (pnt) : Entity has illegal type)"},
     {"stray character after an entity number", run, "", {line_entity, "#35] = LINE('',#36,#37);"}, 2,
      "the character ']' cannot stand there"},
+    {"missing comma between two parameters", run, "", {line_entity, "#35 = LINE(''#36,#37);"}, 2,
+     "#35 (line 52): two parameters follow each other without a ',' between them"},
     {"malformed number in a point", run, "", {far_end, "#40 = CARTESIAN_POINT('',(6000..0.,0.,0.));"}, 2,
      "'6000..0.' is not a number as ISO 10303-21 writes one"},
     {"stray double quote before an entity number", run, "", {line_entity, "\"35 = LINE('',#36,#37);"}, 2,

@@ -50,6 +50,8 @@ struct StepLongString {
 /// - no chain of references is longer than max_step_reference_depth;
 /// - parentheses nest at most max_step_nesting deep and are balanced;
 /// - a binary value ("0F3A") holds hexadecimal digits only and is closed;
+/// - parameters are separated by single commas (none missing, none doubled);
+/// - numbers, enumerations and keywords have the syntax of ISO 10303-21 6.4;
 /// - every number is finite (no 1E400) and no bare word (NAN, INF) stands
 ///   where a value belongs;
 /// - no entity instance holds an empty list `()`: the schemas' lists hold at
@@ -85,6 +87,7 @@ class StepStructureCheck {
   void end_token();
   [[noreturn]] void fail(const std::string& what) const;
   [[noreturn]] void fail_bare_word() const;
+  void value_starts(int depth);  // a parameter begins in a list at `depth`: the one before must be closed by ','
   [[noreturn]] void fail_deep_chain(std::size_t k, const std::vector<std::uint32_t>& chain,
                                     const std::vector<std::uint32_t>& target) const;
   std::string here() const;
@@ -105,6 +108,9 @@ class StepStructureCheck {
   int depth_ = 0;
   std::vector<std::string> owner_;  // per depth: the entity type or typed value whose parameters are open
   bool empty_list_ = false;     // a list '(' opened and nothing seen in it yet
+  std::vector<char> records_;   // per depth: the list is a complex instance's records (no commas)
+  bool value_done_ = false;     // a parameter is complete: ',' or ')' must come next
+  bool expect_value_ = false;   // a ',' was read: a parameter must come next
   std::string keyword_;         // the last keyword read
   bool after_keyword_ = false;  // nothing but blanks since it
   std::size_t line_ = 1;
