@@ -58,16 +58,43 @@ std::vector<Crossing> find_crossings(const std::vector<PathSegment>& segments, d
   const Eigen::Vector3d origin = Eigen::Vector3d::Constant(-0.5 * size);
   auto cell = [&](const Eigen::Vector3d& p) { return cell_of(p - origin, size); };
 
+  // The crossing of two segments, if they pass within `tolerance` away from their paths' ends. With `home`,
+  // only where the crossing lies in that cell (a pair met in several cells counts in one).
+  auto meet = [&](const PathSegment& one, const PathSegment& two, const Cell* home) {
+    if (one.path == two.path) return;
+    const Eigen::Vector3d d1 = one.b - one.a, d2 = two.b - two.a;
+    // Parallel segments overlap or pass alongside; the overlap check reports them.
+    if (d1.cross(d2).squaredNorm() <= 1e-18 * d1.squaredNorm() * d2.squaredNorm()) return;
+    const auto [s, t] = nearest_parameters(one, two);
+    const Eigen::Vector3d p = one.a + s * d1, q = two.a + t * d2;
+    if ((p - q).norm() > tolerance) return;
+    if (near_path_end(one, s, tolerance) || near_path_end(two, t, tolerance)) return;
+    const Eigen::Vector3d at = 0.5 * (p + q);
+    if (home && cell(at) != *home) return;
+    Crossing c{one.path, two.path, one.index + s, two.index + t, at};
+    if (c.first_path > c.second_path) {
+      std::swap(c.first_path, c.second_path);
+      std::swap(c.first_position, c.second_position);
+    }
+    crossings.push_back(c);
+  };
+
   // Each segment goes into every cell that a point within `tolerance` of it
   // can lie in: pieces of at most one cell's length, each with its box grown
   // by the tolerance. Two segments within `tolerance` of each other then share
-  // the cell of the midpoint of their nearest points.
+  // the cell of the midpoint of their nearest points. A segment too long to
+  // bucket (pieces_for) is compared with every other segment instead.
   std::vector<std::pair<Cell, std::uint32_t>> entries;
+  std::vector<std::size_t> unbucketed;
   entries.reserve(3 * segments.size());
   for (std::size_t i = 0; i < segments.size(); ++i) {
     const PathSegment& s = segments[i];
     if (s.a == s.b) continue;
-    const auto pieces = std::max<std::size_t>(1, static_cast<std::size_t>(std::ceil((s.b - s.a).norm() / size)));
+    const std::size_t pieces = pieces_for((s.b - s.a).norm(), size);
+    if (pieces == 0) {
+      unbucketed.push_back(i);
+      continue;
+    }
     for (std::size_t k = 0; k < pieces; ++k) {
       const Eigen::Vector3d p = s.a + (s.b - s.a) * (static_cast<double>(k) / static_cast<double>(pieces));
       const Eigen::Vector3d q = s.a + (s.b - s.a) * (static_cast<double>(k + 1) / static_cast<double>(pieces));
@@ -86,30 +113,17 @@ std::vector<Crossing> find_crossings(const std::vector<PathSegment>& segments, d
   for (std::size_t begin = 0; begin < entries.size();) {
     std::size_t end = begin + 1;
     while (end < entries.size() && entries[end].first == entries[begin].first) ++end;
-    for (std::size_t i = begin; i < end; ++i) {
-      const PathSegment& one = segments[entries[i].second];
-      for (std::size_t j = i + 1; j < end; ++j) {
-        const PathSegment& two = segments[entries[j].second];
-        if (one.path == two.path) continue;
-        const Eigen::Vector3d d1 = one.b - one.a, d2 = two.b - two.a;
-        // Parallel segments overlap or pass alongside; the overlap check reports them.
-        if (d1.cross(d2).squaredNorm() <= 1e-18 * d1.squaredNorm() * d2.squaredNorm()) continue;
-        const auto [s, t] = nearest_parameters(one, two);
-        const Eigen::Vector3d p = one.a + s * d1, q = two.a + t * d2;
-        if ((p - q).norm() > tolerance) continue;
-        if (near_path_end(one, s, tolerance) || near_path_end(two, t, tolerance)) continue;
-        const Eigen::Vector3d at = 0.5 * (p + q);
-        if (cell(at) != entries[begin].first) continue;
-        Crossing c{one.path, two.path, one.index + s, two.index + t, at};
-        if (c.first_path > c.second_path) {
-          std::swap(c.first_path, c.second_path);
-          std::swap(c.first_position, c.second_position);
-        }
-        crossings.push_back(c);
-      }
-    }
+    for (std::size_t i = begin; i < end; ++i)
+      for (std::size_t j = i + 1; j < end; ++j)
+        meet(segments[entries[i].second], segments[entries[j].second], &entries[begin].first);
     begin = end;
   }
+  // The unbucketed segments against every other (a pair of two unbucketed ones once).
+  std::vector<char> bucketed(segments.size(), 1);
+  for (const std::size_t i : unbucketed) bucketed[i] = 0;
+  for (const std::size_t i : unbucketed)
+    for (std::size_t j = 0; j < segments.size(); ++j)
+      if (j != i && segments[j].a != segments[j].b && (bucketed[j] != 0 || j > i)) meet(segments[i], segments[j], nullptr);
   std::sort(crossings.begin(), crossings.end(), [](const Crossing& x, const Crossing& y) {
     return std::tie(x.first_path, x.second_path, x.first_position) <
            std::tie(y.first_path, y.second_path, y.first_position);

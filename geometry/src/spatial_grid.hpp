@@ -27,6 +27,20 @@ struct CellHash {
   }
 };
 
+/// A segment that would span more cells than this is not bucketed: the
+/// searches compare it with everything instead. A frame has a handful at
+/// most; without the cap, one member a billion times longer than the typical
+/// one (a corrupt coordinate or trim parameter) would need a billion cells.
+inline constexpr double max_cells_per_segment = 1024;
+
+/// How many pieces of at most `size` a segment of `length` is cut into for
+/// bucketing, or 0 when it spans more than max_cells_per_segment cells (or
+/// its length is not finite).
+inline std::size_t pieces_for(double length, double size) {
+  const double pieces = std::ceil(length / size);
+  return pieces <= max_cells_per_segment ? std::max<std::size_t>(1, static_cast<std::size_t>(pieces)) : 0;
+}
+
 inline Cell cell_of(const Eigen::Vector3d& p, double size) {
   return {static_cast<std::int64_t>(std::floor(p.x() / size)), static_cast<std::int64_t>(std::floor(p.y() / size)),
           static_cast<std::int64_t>(std::floor(p.z() / size))};

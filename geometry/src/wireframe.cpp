@@ -155,11 +155,12 @@ class SegmentIndex {
         // three quarters of a cell, in its own cell or a neighbour.
         const Eigen::Vector3d& a = track.point(s);
         const Eigen::Vector3d& b = track.point(s + 1);
-        const auto steps = static_cast<std::size_t>(std::ceil((b - a).norm() / (0.5 * grid_.size())));
-        for (std::size_t k = 0; k <= steps; ++k) {
-          const double f = steps == 0 ? 0.0 : static_cast<double>(k) / static_cast<double>(steps);
-          grid_.add(a + f * (b - a), id);
+        const std::size_t steps = detail::pieces_for((b - a).norm(), 0.5 * grid_.size());
+        if (steps == 0) {
+          unbucketed_.push_back(id);
+          continue;
         }
+        for (std::size_t k = 0; k <= steps; ++k) grid_.add(a + (static_cast<double>(k) / static_cast<double>(steps)) * (b - a), id);
       }
     }
   }
@@ -168,6 +169,7 @@ class SegmentIndex {
   void near(const Eigen::Vector3d& p, SegmentHits& hits) const {
     hits.clear();
     grid_.near(p, [&](std::size_t id) { hits.push_back(segments_[id]); });
+    for (const std::size_t id : unbucketed_) hits.push_back(segments_[id]);
     std::sort(hits.begin(), hits.end());
     hits.erase(std::unique(hits.begin(), hits.end()), hits.end());
   }
@@ -190,6 +192,7 @@ class SegmentIndex {
 
   Grid grid_;
   SegmentHits segments_;
+  std::vector<std::size_t> unbucketed_;  // segments too long to bucket (pieces_for): near every point
 };
 
 std::uint64_t pair_key(std::size_t a, std::size_t b) {

@@ -145,3 +145,30 @@ TEST_CASE("a grid of long members finds every crossing, once", "[wireframe][cros
   // 60 member ends, 225 crossings, 80 ends of the short members.
   CHECK(joined.nodes.size() == 60 + 225 + 80);
 }
+
+TEST_CASE("fuzz finding: a member a billion times longer than the others is handled without bucketing it",
+          "[wireframe][crossings]") {
+  // fuzz_c_api_text trimmed one line of the demo platform at 1.5E+14 mm: cutting that member into cells of
+  // the typical member's length needed some 1e11 cells and the run ran out of memory. Segments that long are
+  // now compared with every other segment instead (spatial_grid.hpp, max_cells_per_segment); the crossings
+  // and junctions found are the same as for any other member.
+  const sg::StepModel model = model_of({
+      edge({0, 0, 0}, {1, 0, 0}, "#1"),
+      edge({0.5, -0.5, 0}, {0.5, 0.5, 0}, "#2"),        // crosses #1
+      edge({0, 2, 0}, {1e9, 2, 0}, "#3"),               // the long one
+      edge({3, 1, 0}, {3, 3, 0}, "#4"),                 // crosses #3
+      edge({5, 0, 0}, {5, 2, 0}, "#5"),                 // ends on #3: splits it
+      edge({1e8, -1e8, 0}, {1e8, 1e8, 0}, "#6"),        // another long one, crossing #3
+  });
+  sg::WireframeOptions options;
+  options.merge_tolerance = 1e-3;
+  const sg::Wireframe frame = sg::build_wireframe(model, options);
+  const auto crossings = with_code(frame, "members-cross");
+  std::vector<std::vector<std::string>> pairs;
+  for (const auto* c : crossings) pairs.push_back(c->entities);
+  std::sort(pairs.begin(), pairs.end());
+  CHECK(pairs == std::vector<std::vector<std::string>>{{"#1", "#2"}, {"#3", "#4"}, {"#3", "#6"}});
+  // #3 gets a node where #5 ends on it; nothing else is split.
+  CHECK(member(frame, "#3").nodes.size() == 3);
+  CHECK(with_code(frame, "member-split").size() == 1);
+}
