@@ -10,8 +10,8 @@
 
 #include <algorithm>
 #include <cmath>
-#include <limits>
 #include <future>
+#include <limits>
 #include <memory>
 #include <mutex>
 #include <utility>
@@ -98,7 +98,6 @@ std::pair<Picture, detail::PictureScene> scene_of(const analysis::FrameModel& mo
   return {std::move(picture), std::move(scene)};
 }
 
-
 // The scenes of a batch, and the figures of each picture that do not need the drawing.
 struct Batch {
   std::vector<Picture> pictures;
@@ -117,8 +116,8 @@ Batch scenes_of(const analysis::FrameModel& model, const std::vector<PictureRequ
 
 // Draws the batch: the pictures that may use OpenGL together in `gl` (null: none here, `why_not` says
 // why), the rest, or all of them where OpenGL fails, on the image canvas. Under the rendering lock.
-std::vector<Picture> draw_batch(Batch batch, const std::vector<PictureRequest>& requests, detail::OffscreenPictures* gl,
-                          std::string why_not) {
+std::vector<Picture> draw_batch(Batch batch, const std::vector<PictureRequest>& requests,
+                                detail::OffscreenPictures* gl, std::string why_not) {
   std::vector<detail::PictureScene> with_opengl;
   for (std::size_t k = 0; k < requests.size(); ++k)
     if (requests[k].options.opengl) with_opengl.push_back(batch.scenes[k]);
