@@ -123,7 +123,8 @@ std::vector<Crossing> find_crossings(const std::vector<PathSegment>& segments, d
   for (const std::size_t i : unbucketed) bucketed[i] = 0;
   for (const std::size_t i : unbucketed)
     for (std::size_t j = 0; j < segments.size(); ++j)
-      if (j != i && segments[j].a != segments[j].b && (bucketed[j] != 0 || j > i)) meet(segments[i], segments[j], nullptr);
+      if (j != i && segments[j].a != segments[j].b && (bucketed[j] != 0 || j > i))
+        meet(segments[i], segments[j], nullptr);
   std::sort(crossings.begin(), crossings.end(), [](const Crossing& x, const Crossing& y) {
     return std::tie(x.first_path, x.second_path, x.first_position) <
            std::tie(y.first_path, y.second_path, y.first_position);

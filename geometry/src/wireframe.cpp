@@ -160,7 +160,8 @@ class SegmentIndex {
           unbucketed_.push_back(id);
           continue;
         }
-        for (std::size_t k = 0; k <= steps; ++k) grid_.add(a + (static_cast<double>(k) / static_cast<double>(steps)) * (b - a), id);
+        for (std::size_t k = 0; k <= steps; ++k)
+          grid_.add(a + (static_cast<double>(k) / static_cast<double>(steps)) * (b - a), id);
       }
     }
   }
