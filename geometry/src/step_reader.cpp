@@ -1,6 +1,7 @@
 #include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/geometry/step_structure.hpp"
 
+#include "assembly_loops.hpp"
 #include "declared_length_unit.hpp"
 #include "edge_entities.hpp"
 #include "harvest.hpp"
@@ -161,6 +162,17 @@ StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source) 
                              "unknown entity type, or an entity of the wrong type where this one refers to it. {}",
                              refused->entity, refused->type, refused->failures,
                              count > 1 ? fmt::format(" ({} such entities in all)", count) : "", export_advice));
+  }
+
+  if (const std::vector<int> loop = detail::assembly_loop(step_model); !loop.empty()) {
+    std::string steps;
+    for (std::size_t k = 0; k + 2 < loop.size(); k += 2)
+      steps += fmt::format("{}#{} holds #{}, whose part is #{}", k == 0 ? "" : "; ", loop[k], loop[k + 1], loop[k + 2]);
+    fail(source, fmt::format("its assembly #{} contains itself ({}: a NEXT_ASSEMBLY_USAGE_OCCURRENCE's part is its "
+                             "related product definition and the one whose shape its "
+                             "CONTEXT_DEPENDENT_SHAPE_REPRESENTATION names); an assembly cannot contain itself, and OCCT's "
+                             "translation of such a loop recurses without end. Correct the assembly structure in the CAD model. {}",
+                             loop.front(), steps, export_advice));
   }
 
   detail::XdeDocument document;

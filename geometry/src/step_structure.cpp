@@ -93,6 +93,12 @@ void StepStructureCheck::fail_bare_word() const {
                    here(), word_, damaged));
 }
 
+void StepStructureCheck::fail_form(const std::string& what) const {
+  fail(fmt::format("{}: {}; an entity instance is written #12 = KEYWORD(...); or #12 = (A(...) B(...)); "
+                   "(ISO 10303-21 12.2); {}",
+                   here(), what, damaged));
+}
+
 void StepStructureCheck::feed(std::string_view piece) {
   for (char c : piece) character(c);
 }
@@ -182,6 +188,10 @@ void StepStructureCheck::character(char c) {
   const bool was_empty = std::exchange(empty_list_, false);
   switch (c) {
     case '(': {
+      if (depth_ == 0 && current_ != 0) {
+        if (form_ != Form::equals && form_ != Form::typed) fail_form("a '(' after the entity's parameters");
+        form_ = Form::open;
+      }
       if (++depth_ > max_step_nesting)
         fail(fmt::format("{}: parentheses nest more than {} levels deep; {}", here(), max_step_nesting, damaged));
       const auto d = static_cast<std::size_t>(depth_);
@@ -203,6 +213,7 @@ void StepStructureCheck::character(char c) {
                          here(), owner.empty() ? "the entity" : owner, damaged));
       if (expect_value_) fail(fmt::format("{}: a ',' just before ')' (a parameter is missing); {}", here(), damaged));
       if (--depth_ < 0) fail(fmt::format("{}: a ')' closes no '('; {}", here(), damaged));
+      if (depth_ == 0) form_ = Form::closed;
       value_done_ = depth_ > 0;
       break;
     }
@@ -210,10 +221,12 @@ void StepStructureCheck::character(char c) {
       if (depth_ != 0)
         fail(fmt::format("{}: the entity's parameter list is not closed before ';' ({} '(' open); {}", here(), depth_,
                          damaged));
+      if (current_ != 0 && form_ != Form::closed) fail_form("a ';' before the entity's parameters");
       current_ = 0;
       value_done_ = expect_value_ = false;
       break;
     case '\'':
+      if (depth_ == 0) fail_form("a string outside any parameter list");
       value_starts(depth_);
       mode_ = Mode::string;
       quote_ = false;
@@ -221,25 +234,29 @@ void StepStructureCheck::character(char c) {
       run_line_ = line_;
       break;
     case '"':
+      if (depth_ == 0) fail_form("a binary value outside any parameter list");
       value_starts(depth_);
       mode_ = Mode::binary;
       run_ = 0;
       run_line_ = line_;
       break;
     case ',':
-      if (depth_ > 0 && !value_done_)
+      if (depth_ == 0) fail_form("a ',' outside any parameter list");
+      if (!value_done_)
         fail(fmt::format("{}: a ',' where a parameter belongs (two commas, or a comma just after '('); {}", here(),
                          damaged));
       value_done_ = false;
-      expect_value_ = depth_ > 0;
+      expect_value_ = true;
       break;
     case '$':  // an unset value
     case '*':  // a value derived from others
+      if (depth_ == 0) fail_form(fmt::format("a '{}' outside any parameter list", c));
       value_starts(depth_);
       value_done_ = depth_ > 0;
       break;
     case '=':
-    case '&':  // &SCOPE
+      if (current_ == 0 || depth_ != 0 || form_ != Form::named) fail_form("an '=' after anything but #12");
+      form_ = Form::equals;
       break;
     default:  // ISO 10303-21 5.3 writes nothing else outside strings, comments and binaries
       fail(fmt::format("{}: {} cannot stand there (outside a string); {}", here(), printable(c), damaged));
@@ -264,7 +281,9 @@ void StepStructureCheck::end_token() {
       fail(fmt::format("{}: '{}' is not an entity reference (# and a number); {}", here(), t, damaged));
     const std::uint64_t id = std::strtoull(t.c_str() + 1, nullptr, 10);
     if (depth_ == 0) {  // an entity instance begins: #12 = ...
+      if (current_ != 0) fail_form(fmt::format("{} begins before a ';' ends #{}", t, current_));
       current_ = id;
+      form_ = Form::named;
       ids_.push_back(id);
       lines_.push_back(static_cast<std::uint32_t>(std::min<std::size_t>(line_, std::numeric_limits<std::uint32_t>::max())));
       first_ref_.push_back(refs_.size());
@@ -281,6 +300,7 @@ void StepStructureCheck::end_token() {
                        "exponent after a capital E, such as -1.5E+03), and OCCT's reader would take it for something "
                        "else; {}",
                        here(), t, damaged));
+    if (depth_ == 0 && current_ != 0) fail_form(fmt::format("the number {} outside any parameter list", t));
     value_done_ = depth_ > 0;
     if (t.find('.') != std::string::npos) {
       const double value = std::strtod(t.c_str(), nullptr);
@@ -296,6 +316,7 @@ void StepStructureCheck::end_token() {
       fail(fmt::format("{}: '{}' is neither a number nor an enumeration (capital letters, digits or _ between two "
                        "points, such as .T. or .MILLI.); {}",
                        here(), t, damaged));
+    if (depth_ == 0 && current_ != 0) fail_form(fmt::format("the enumeration {} outside any parameter list", t));
     value_done_ = depth_ > 0;
     return;
   }
@@ -305,6 +326,10 @@ void StepStructureCheck::end_token() {
         std::any_of(t.begin() + 1, t.end(), [](char c) { return c == '.' || c == '+' || c == '-' || c == '#'; }))
       fail(fmt::format("{}: '{}' is not a keyword (letters, digits and _ only); {}", here(), t, damaged));
     if (depth_ > 0) word_ = t;  // a keyword inside parameters must be followed by '(' (a typed value)
+    if (depth_ == 0 && current_ != 0) {
+      if (form_ != Form::equals) fail_form(fmt::format("the keyword '{}' stands where it does not belong", t));
+      form_ = Form::typed;
+    }
     keyword_ = std::move(t);
     after_keyword_ = true;
   }
@@ -321,6 +346,7 @@ void StepStructureCheck::finish() {
                      run_line_, damaged));
   if (mode_ == Mode::comment) fail(fmt::format("{}: the text ends inside a comment (/* without */); {}", here(), damaged));
   if (depth_ != 0) fail(fmt::format("{}: the text ends with {} '(' open; {}", here(), depth_, damaged));
+  if (current_ != 0) fail_form(fmt::format("the text ends before a ';' ends #{}", current_));
 
   const std::size_t n = ids_.size();
   first_ref_.push_back(refs_.size());

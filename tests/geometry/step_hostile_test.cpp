@@ -168,9 +168,12 @@ TEST_CASE("fuzz finding: a stray double quote is refused, not read as the start 
   // the structure check read the rest of the file as one unclosed binary value and checked nothing more, while
   // OCCT's reader made something else of it and overflowed its stack in StepShape_OrientedEdge::EdgeStart.
   // ISO 10303-21 5.3: a binary value holds hexadecimal digits only, between two double quotes.
+  // Since the check of an entity instance's form, the quote is refused where it stands: no value before '('.
   CHECK_THAT(refusal(read_text(data / "fuzz" / "stray_quote_as_binary_value.stp")),
-             Catch::Contains("<test>: line 19: a binary value (after '\"', line 19) holds the character ' ', not a "
-                             "hexadecimal digit"));
+             Catch::Contains("<test>: line 19: a binary value outside any parameter list"));
+  CHECK_THROWS_WITH(sg::check_step_structure("#1 = BINARY_HOLDER(\"0F A\");\n", "<test>"),
+                    Catch::Contains("#1 (line 1): a binary value (after '\"', line 1) holds the character ' ', not a "
+                                    "hexadecimal digit"));
   CHECK_THROWS_WITH(sg::check_step_structure("#1 = BINARY_HOLDER(\n\"0FF", "<test>"),
                     Catch::Contains("the text ends inside a binary value (the '\"' on line 2 is not closed)"));
   // A well-formed binary value passes the check.
@@ -230,8 +233,12 @@ TEST_CASE("fuzz finding: parameters are separated by single commas, or the file 
   // fuzz_step_import wrote "EDGE_CURVE('west column'$#66,..." (the comma after the name dropped) into
   // bay_vertex_shells_mm.stp: OCCT's parser made another edge of it, and an oriented edge's start vertex then
   // recursed without end (stack overflow in StepShape_OrientedEdge::EdgeStart). ISO 10303-21 (2016) 12.2.
+  // The file holds other damage before #70 (a stray "#109" after #41's ';'), refused first since the check
+  // of an entity instance's form; the missing comma itself is refused on its own below.
   CHECK_THAT(refusal(read_text(data / "fuzz" / "missing_comma_between_parameters.stp")),
-             Catch::Contains("<test>: #70 (line 51): two parameters follow each other without a ',' between them"));
+             Catch::Contains("<test>: #109 (line 33): #50 begins before a ';' ends #109"));
+  CHECK_THAT(refusal(beam_with(curve_set, "#33 = GEOMETRIC_CURVE_SET('IPE 300'(#34));")),
+             Catch::Contains("<test>: #33 (line 49): two parameters follow each other without a ',' between them"));
   auto check = [](const std::string& entity) {
     try {
       (void)sg::check_step_structure(entity + "\n#2 = X(1.);\n", "<test>");
@@ -251,4 +258,61 @@ TEST_CASE("fuzz finding: parameters are separated by single commas, or the file 
   for (const char* bad : {"#1 = A(#2,,#2);", "#1 = A(,#2);"})
     CHECK_THAT(check(bad), Catch::Contains("a ',' where a parameter belongs"));
   CHECK_THAT(check("#1 = A(#2,);"), Catch::Contains("a ',' just before ')'"));
+}
+
+TEST_CASE("fuzz finding: an entity instance not of the form #12 = KEYWORD(...); is refused", "[step][hostile]") {
+  // fuzz_step_import wrote "CONTEXT_DEPENDENT_SH,APE_REPRESENTATION(#93,#91)" and "N=XT_ASSEMBLY_USAGE_OCCURRENCE"
+  // into mixed_units_assembly.stp (besides other damage): OCCT's parser read other entities than the ones written
+  // and its transfer recursed without end (stack overflow). ISO 10303-21 (2016) 12.2: an entity instance is its
+  // name, '=', and one record (keyword and parameters) or a complex instance's records in parentheses, then ';'.
+  CHECK_THAT(refusal(read_text(data / "fuzz" / "comma_inside_entity_keyword.stp")),
+             Catch::Contains("<test>: #92 (line 72): a ',' outside any parameter list; an entity instance is "
+                             "written #12 = KEYWORD(...);"));
+  auto check = [](const std::string& entity) {
+    try {
+      (void)sg::check_step_structure(entity + "\n#2 = X(1.);\n", "<test>");
+    } catch (const sg::StepReadError& e) {
+      return std::string(e.what());
+    }
+    return std::string();
+  };
+  for (const char* good : {"#1 = A(#2);", "#1=A(#2);", "#1 = ( A(#2) B() );", "#1\n=\nA\n(\n#2\n)\n;"})
+    CHECK(check(good).empty());
+  CHECK_THAT(check("#1 = A,B(#2);"), Catch::Contains("#1 (line 1): a ',' outside any parameter list"));
+  CHECK_THAT(check("#1 = N=XT(#2);"), Catch::Contains("#1 (line 1): an '=' after anything but #12"));
+  CHECK_THAT(check("#1 = A(#2=);"), Catch::Contains("an '=' after anything but #12"));
+  CHECK_THAT(check("#1 = A B(#2);"), Catch::Contains("the keyword 'B' stands where it does not belong"));
+  CHECK_THAT(check("#1 = A(#2) B(#2);"), Catch::Contains("the keyword 'B' stands where it does not belong"));
+  CHECK_THAT(check("#1 = A(#2)(#2);"), Catch::Contains("a '(' after the entity's parameters"));
+  CHECK_THAT(check("#1 A(#2);"), Catch::Contains("the keyword 'A' stands where it does not belong"));
+  CHECK_THAT(check("#1 = A;"), Catch::Contains("a ';' before the entity's parameters"));
+  CHECK_THAT(check("#1 = 'A'(#2);"), Catch::Contains("a string outside any parameter list"));
+  CHECK_THAT(check("#1 = 5;"), Catch::Contains("the number 5 outside any parameter list"));
+  CHECK_THAT(check("#1 = A(#2)"), Catch::Contains("#2 begins before a ';' ends #1"));
+  CHECK_THROWS_WITH(sg::check_step_structure("#1 = A(1.);\n#2 = B(1.)", "<test>"),
+                    Catch::Contains("the text ends before a ';' ends #2"));
+}
+
+TEST_CASE("fuzz finding: an assembly that contains itself is refused before OCCT's transfer", "[step][hostile]") {
+  // Derived from the finding above with its damaged keywords mended: the rafter's PRODUCT_DEFINITION_SHAPE #73
+  // named the assembly's product definition #32 instead of the rafter's #72. OCCT 7.6 finds an occurrence's part
+  // through its representation relationship (here the rafter's shape #75, now the shape of #32) and translated
+  // #32 inside #32 until its stack overflowed (SIGSEGV in STEPControl_ActorRead, tried with OCCT 7.6.3).
+  const std::string text = read_text(data / "mixed_units_assembly.stp");
+  auto with = [&](const std::string& what, const std::string& replacement) {
+    std::string changed = text;
+    const auto at = changed.find(what);
+    REQUIRE(at != std::string::npos);
+    return changed.replace(at, what.size(), replacement);
+  };
+  CHECK(refusal(text).empty());  // the assembly as written reads
+  const std::string message =
+      refusal(with("#73 = PRODUCT_DEFINITION_SHAPE('','',#72);", "#73 = PRODUCT_DEFINITION_SHAPE('','',#32);"));
+  CHECK_THAT(message, Catch::Contains("<test>: its assembly #32 contains itself (#32 holds #95, whose part is #32"));
+  CHECK_THAT(message, Catch::Contains("Correct the assembly structure in the CAD model"));
+  // A loop over two levels through the occurrences alone: the column #52 holding the whole lean-to #32.
+  CHECK_THAT(refusal(with("ENDSEC;\nEND-ISO", "#100 = NEXT_ASSEMBLY_USAGE_OCCURRENCE('3','loop','',#52,#32,$);\n"
+                                              "ENDSEC;\nEND-ISO")),
+             Catch::Contains("its assembly #32 contains itself (#32 holds #90, whose part is #52; #52 holds #100, "
+                             "whose part is #32"));
 }

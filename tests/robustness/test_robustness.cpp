@@ -94,7 +94,15 @@ const std::vector<Case> cases = {
     {"malformed number in a point", run, "", {far_end, "#40 = CARTESIAN_POINT('',(6000..0.,0.,0.));"}, 2,
      "'6000..0.' is not a number as ISO 10303-21 writes one"},
     {"stray double quote before an entity number", run, "", {line_entity, "\"35 = LINE('',#36,#37);"}, 2,
-     "a binary value (after '\"', line 52) holds the character ' ', not a hexadecimal digit"},
+     "line 52: a binary value outside any parameter list"},
+    {"stray character in a binary value", run, "", {line_entity, "#35 = LINE('',#36,#37,\"0F A\");"}, 2,
+     "#35 (line 52): a binary value (after '\"', line 52) holds the character ' ', not a hexadecimal digit"},
+    {"comma inside an entity's keyword", run, "", {line_entity, "#35 = LI,NE('',#36,#37);"}, 2,
+     "#35 (line 52): a ',' outside any parameter list; an entity instance is written #12 = KEYWORD(...);"},
+    {"equals sign inside an entity's keyword", run, "", {line_entity, "#35 = L=INE('',#36,#37);"}, 2,
+     "#35 (line 52): an '=' after anything but #12"},
+    {"semicolon missing after an entity", run, "", {line_entity, "#35 = LINE('',#36,#37)"}, 2,
+     "begins before a ';' ends #35"},
     // Tokens longer than OCCT's lexer reads (16382 characters): strings are cut, anything else refused.
     {"50000-character name cut with a warning", run,
      base_head.substr(0, base_head.find("rules:")) + "rules:\n  - where: {}\n    material: S355\n" + base_supports +

@@ -50,6 +50,10 @@ struct StepLongString {
 /// - no chain of references is longer than max_step_reference_depth;
 /// - parentheses nest at most max_step_nesting deep and are balanced;
 /// - a binary value ("0F3A") holds hexadecimal digits only and is closed;
+/// - every entity instance has the form `#12 = KEYWORD(...);` or, for a
+///   complex instance, `#12 = (A(...) B(...));` (ISO 10303-21 12.2): a
+///   stray '=' or ',' in a keyword makes OCCT read another entity than the
+///   one written;
 /// - parameters are separated by single commas (none missing, none doubled);
 /// - numbers, enumerations and keywords have the syntax of ISO 10303-21 6.4;
 /// - every number is finite (no 1E400) and no bare word (NAN, INF) stands
@@ -87,6 +91,7 @@ class StepStructureCheck {
   void end_token();
   [[noreturn]] void fail(const std::string& what) const;
   [[noreturn]] void fail_bare_word() const;
+  [[noreturn]] void fail_form(const std::string& what) const;  // an entity instance not of the form #12 = A(...);
   void value_starts(int depth);  // a parameter begins in a list at `depth`: the one before must be closed by ','
   [[noreturn]] void fail_deep_chain(std::size_t k, const std::vector<std::uint32_t>& chain,
                                     const std::vector<std::uint32_t>& target) const;
@@ -104,7 +109,6 @@ class StepStructureCheck {
   std::vector<StepLongString> long_strings_;
   std::string token_;
   std::string word_;            // a keyword waiting to see whether '(' follows
-  std::size_t word_line_ = 0;
   int depth_ = 0;
   std::vector<std::string> owner_;  // per depth: the entity type or typed value whose parameters are open
   bool empty_list_ = false;     // a list '(' opened and nothing seen in it yet
@@ -116,8 +120,8 @@ class StepStructureCheck {
   std::size_t line_ = 1;
   // The entity being read.
   std::uint64_t current_ = 0;   // its id, 0 between entities
-  std::size_t current_line_ = 0;
-  bool expect_equals_ = false;
+  // How far its form `#12 = KEYWORD(...);` has come: `#12`, `=`, the keyword, '(' and its ')'.
+  enum class Form { named, equals, typed, open, closed } form_ = Form::closed;
   // The entities in file order, their lines and references (CSR: refs_[first_ref_[k]...]).
   std::vector<std::uint64_t> ids_;
   std::vector<std::uint32_t> lines_;
