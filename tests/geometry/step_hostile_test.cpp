@@ -37,6 +37,19 @@ std::string refusal(const std::string& text) {
   return "";
 }
 
+/// The message check_step_structure refuses `text` with ("" when it passes).
+std::string structure_refusal(const std::string& text) {
+  try {
+    (void)sg::check_step_structure(text, "<test>");
+  } catch (const sg::StepReadError& e) {
+    return e.what();
+  }
+  return "";
+}
+
+/// The same for one entity instance, followed by the #2 it may refer to.
+std::string entity_refusal(const std::string& entity) { return structure_refusal(entity + "\n#2 = X(1.);\n"); }
+
 /// beam_6m_ipe300_mm.stp (one 6 m IPE 300 line, #33 its curve set on line 49)
 /// with `what` replaced by `with`.
 std::string beam_with(const std::string& what, const std::string& with) {
@@ -212,14 +225,7 @@ TEST_CASE("fuzz finding: numbers and enumerations are read as ISO 10303-21 write
   // with capital letters, digits and _ between two points.
   CHECK_THAT(refusal(read_text(data / "fuzz" / "malformed_number_in_point.stp")),
              Catch::Contains("<test>: #61 (line 43): '5000..0.' is not a number as ISO 10303-21 writes one"));
-  auto check = [](const std::string& value) {
-    try {
-      (void)sg::check_step_structure("#1 = HOLDER(" + value + ");\n", "<test>");
-    } catch (const sg::StepReadError& e) {
-      return std::string(e.what());
-    }
-    return std::string();
-  };
+  auto check = [](const std::string& value) { return structure_refusal("#1 = HOLDER(" + value + ");\n"); };
   for (const char* good : {"0", "-12", "+7", "1.", "-1.5", "2.5E3", "1.E-07", "-0.25E+12", ".T.", ".MILLI.", ".A_1."})
     CHECK(check(good).empty());
   for (const char* bad : {"1..2", "1.5e3", "1E3", "1.E", "1.5E+", "-", "+.", "12AB", "3.0.1"})
@@ -239,14 +245,7 @@ TEST_CASE("fuzz finding: parameters are separated by single commas, or the file 
              Catch::Contains("<test>: #109 (line 33): #50 begins before a ';' ends #109"));
   CHECK_THAT(refusal(beam_with(curve_set, "#33 = GEOMETRIC_CURVE_SET('IPE 300'(#34));")),
              Catch::Contains("<test>: #33 (line 49): two parameters follow each other without a ',' between them"));
-  auto check = [](const std::string& entity) {
-    try {
-      (void)sg::check_step_structure(entity + "\n#2 = X(1.);\n", "<test>");
-    } catch (const sg::StepReadError& e) {
-      return std::string(e.what());
-    }
-    return std::string();
-  };
+  const auto check = entity_refusal;
   // Well-formed: nested lists, typed values, unset and derived values, a complex instance's records.
   for (const char* good : {"#1 = A('n',#2,(1.,2.),((3,4),(5,6)),$,*,.T.,LENGTH_MEASURE(2.5),\"0F\");",
                            "#1 = ( LENGTH_UNIT() NAMED_UNIT(*) SI_UNIT(.MILLI.,.METRE.) );",
@@ -268,14 +267,7 @@ TEST_CASE("fuzz finding: an entity instance not of the form #12 = KEYWORD(...); 
   CHECK_THAT(refusal(read_text(data / "fuzz" / "comma_inside_entity_keyword.stp")),
              Catch::Contains("<test>: #92 (line 72): a ',' outside any parameter list; an entity instance is "
                              "written #12 = KEYWORD(...);"));
-  auto check = [](const std::string& entity) {
-    try {
-      (void)sg::check_step_structure(entity + "\n#2 = X(1.);\n", "<test>");
-    } catch (const sg::StepReadError& e) {
-      return std::string(e.what());
-    }
-    return std::string();
-  };
+  const auto check = entity_refusal;
   for (const char* good : {"#1 = A(#2);", "#1=A(#2);", "#1 = ( A(#2) B() );", "#1\n=\nA\n(\n#2\n)\n;"})
     CHECK(check(good).empty());
   CHECK_THAT(check("#1 = A,B(#2);"), Catch::Contains("#1 (line 1): a ',' outside any parameter list"));
