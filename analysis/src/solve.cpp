@@ -7,6 +7,7 @@
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/analysis/model_validation.hpp"
 #include "stepframe/analysis/parallel.hpp"
+#include "stepframe/analysis/pending_buckling.hpp"
 #include "stepframe/analysis/stiffness_factor.hpp"
 
 #include <fmt/format.h>
@@ -222,7 +223,7 @@ FrameModel with_derived(const FrameModel& model, DerivedLoads derived) {
 
 }  // namespace
 
-std::vector<LoadResult> solve(const FrameModel& given, const SolveOptions& options) {
+Solution solve_beside_buckling(const FrameModel& given, const SolveOptions& options) {
   auto report = [&](std::string_view stage, double fraction) {
     if (options.progress) options.progress(stage, std::clamp(fraction, 0.0, 1.0));
   };
@@ -238,7 +239,7 @@ std::vector<LoadResult> solve(const FrameModel& given, const SolveOptions& optio
   // Assembly: the stiffness and every case's loads.
   report("assembly", 0.0);
   const DofNumbering dofs = number_dofs(given);
-  const System system = assemble_system(given, dofs, nullptr);
+  System system = assemble_system(given, dofs, nullptr);
   std::vector<Loading> loadings;
   for (const LoadCase& lc : given.cases) loadings.push_back(case_loading(given, lc, system));
   spdlog::debug("assembled {} DOFs ({} free), {} stiffness non-zeros", system.k_full.rows(), dofs.free_count(),
@@ -246,8 +247,8 @@ std::vector<LoadResult> solve(const FrameModel& given, const SolveOptions& optio
 
   // One factorisation for everything that follows.
   report("factorisation", 0.0);
-  const StiffnessFactor factor(system.k_free, dofs, given.nodes);
-  std::vector<LoadResult> results = solve_cases(given.cases, loadings.data(), system, dofs, factor);
+  const auto factor = std::make_shared<const StiffnessFactor>(system.k_free, dofs, given.nodes);
+  std::vector<LoadResult> results = solve_cases(given.cases, loadings.data(), system, dofs, *factor);
 
   // Loads derived from the first-order results: their cases solved on the same factor.
   std::optional<FrameModel> extended;
@@ -270,7 +271,7 @@ std::vector<LoadResult> solve(const FrameModel& given, const SolveOptions& optio
         loadings.push_back(case_loading(*extended, extended->cases[i], system));
       auto more = solve_cases({extended->cases.begin() + static_cast<std::ptrdiff_t>(given.cases.size()),
                                extended->cases.end()},
-                              loadings.data() + given.cases.size(), system, dofs, factor);
+                              loadings.data() + given.cases.size(), system, dofs, *factor);
       std::move(more.begin(), more.end(), std::back_inserter(results));
     }
   }
@@ -284,20 +285,40 @@ std::vector<LoadResult> solve(const FrameModel& given, const SolveOptions& optio
     loadings.push_back(std::move(l));
   }
 
-  // Recovery of every case and combination (second order first where asked).
-  const auto chains = member_chains(model);
   // Results are the cases, then the combinations in model order.
   auto wants_buckling = [&](std::size_t i) {
     if (model.combinations.empty()) return true;
     return i >= model.cases.size() && model.combinations[i - model.cases.size()].buckling;
   };
-  std::vector<LoadResult> first_order;  // combinations' first-order states, for the buckling patterns
+  for (std::size_t i = 0; i < results.size(); ++i) {
+    results[i].stations = options.stations;
+    results[i].element_loads = loadings[i].terms;
+  }
+
+  // Buckling of every combination that asks for it (every case when there are none), from their
+  // first-order axial forces, all sharing the factorised stiffness and one refined model: on a
+  // thread of its own, beside the recovery below (which needs neither the factor nor k_free).
+  Solution solution;
+  if (options.buckling_modes > 0) {
+    std::vector<AxialForce> patterns;
+    std::vector<std::string> names;
+    for (std::size_t i = 0; i < results.size(); ++i)
+      if (wants_buckling(i)) {
+        patterns.push_back(axial_pattern(model, results[i]));
+        names.push_back(results[i].name);
+      }
+    BucklingOptions bo;
+    bo.modes = options.buckling_modes;
+    if (!patterns.empty())
+      solution.buckling = PendingBuckling(model, std::move(patterns), std::move(names), bo, std::move(system.k_free),
+                                          dofs, factor);
+  }
+
+  // Recovery of every case and combination (second order first where asked).
+  const auto chains = member_chains(model);
   for (std::size_t i = 0; i < results.size(); ++i) {
     report("recovery", static_cast<double>(i) / static_cast<double>(results.size()));
     LoadResult& r = results[i];
-    r.stations = options.stations;
-    r.element_loads = loadings[i].terms;
-    if (options.buckling_modes > 0 && wants_buckling(i)) first_order.push_back(r);
     if (r.is_combination && model.settings.second_order) {
       const Sparse k_second = second_order(model, dofs, r, loadings[i], options);
       r.reactions = reactions_of(model, k_second, dofs, r.displacements, loadings[i].f);
@@ -311,27 +332,6 @@ std::vector<LoadResult> solve(const FrameModel& given, const SolveOptions& optio
     if (!derived_case) r.members = summarise_members(model, chains, r);
   }
 
-  // Buckling of every combination that asks for it (every case when there are none), all
-  // sharing the factorised stiffness and one refined model.
-  if (!first_order.empty()) {
-    report("buckling", 0.0);
-    std::vector<AxialForce> patterns;
-    for (const LoadResult& r : first_order) patterns.push_back(axial_pattern(model, r));
-    BucklingOptions bo;
-    bo.modes = options.buckling_modes;
-    const FactorisedStiffness stiffness{system.k_free, dofs, factor};
-    auto modes = buckling_modes(model, patterns, bo, &stiffness, [&](double f) { report("buckling", f); });
-    std::size_t p = 0;
-    for (std::size_t i = 0; i < results.size(); ++i) {
-      LoadResult& r = results[i];
-      if (!wants_buckling(i)) continue;
-      r.buckling_modes = std::move(modes[p++]);
-      if (!r.buckling_modes.empty()) {
-        r.alpha_cr = r.buckling_modes.front().alpha;
-        spdlog::info("'{}': alpha_cr = {:.3f}", r.name, *r.alpha_cr);
-      }
-    }
-  }
   auto counted = [](std::size_t n, const char* word) { return fmt::format("{} {}{}", n, word, n == 1 ? "" : "s"); };
   spdlog::info("frame analysed: {} nodes, {} elements, {} free DOFs, {}, {}{}", model.nodes.size(),
                model.elements.size(), dofs.free_count(), counted(given.cases.size(), "load case"),
@@ -340,7 +340,20 @@ std::vector<LoadResult> solve(const FrameModel& given, const SolveOptions& optio
                                       counted(model.cases.size() - given.cases.size(), "case"),
                                       counted(model.combinations.size() - given.combinations.size(), "combination"))
                         : std::string());
-  return results;
+  solution.results = std::move(results);
+  return solution;
+}
+
+std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& options) {
+  Solution solution = solve_beside_buckling(model, options);
+  if (solution.buckling.pending()) {
+    auto report = [&](double f) {
+      if (options.progress) options.progress("buckling", f);
+    };
+    report(0.0);
+    solution.buckling.attach(solution.results, report);
+  }
+  return std::move(solution.results);
 }
 
 }  // namespace stepframe::analysis

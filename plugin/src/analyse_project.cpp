@@ -96,8 +96,15 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   options.progress = [&](std::string_view stage, double f) { report(stage, f); };
   options.buckling_modes = a.project.buckling_modes;
   auto solved = detail::solve_with_sway_imperfections(a.project, a.built.model, options);
-  a.results = std::move(solved.results);
+  a.results = std::move(solved.solution.results);
   a.sway_imperfections = std::move(solved.records);
+  // The buckling analysis goes on beside the checks that do not need it; these attach its modes first.
+  auto attach_buckling = [&] {
+    if (!solved.solution.buckling.pending()) return;
+    report("buckling", 0);
+    solved.solution.buckling.attach(a.results, [&](double f) { report("buckling", f); });
+    detail::require_finite_buckling(a.results, a.project.model.string());
+  };
   // The load cases the sway variants add (imperfection forces, horizontal parts to amplify) are only parts
   // of those variants (listed in a.sway_imperfections): not results of their own.
   std::erase_if(a.results, [&](const analysis::LoadResult& r) {
@@ -128,10 +135,12 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
     add(analysis::en1993::check_members(model, pick(a.results, spec.en1993->combinations), a.built.buckling,
                                         {spec.gamma_M0, spec.gamma_M1}, spec.en1993->ltb));
   if (spec.aisc360) {
+    attach_buckling();  // B2 of Appendix 8 from the modes
     const auto results = pick(a.results, spec.aisc360->combinations);
     add(analysis::aisc360::check_members(model, results, a.built.buckling, spec.aisc360->method));
     add(analysis::aisc360::check_effective_length_method(model, results, spec.aisc360->method));
   }
+  attach_buckling();
   if (spec.stability)
     add(analysis::check_frame_stability(pick(a.results, spec.stability->combinations), spec.stability->alpha_cr_min));
   add(std::move(frequency_checks));

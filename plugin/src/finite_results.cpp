@@ -40,8 +40,14 @@ void require_finite_results(const std::vector<analysis::LoadResult>& results, co
         if (!std::isfinite(e.min) || !std::isfinite(e.max))
           fail(model, fmt::format("the internal forces of member {} in {}", m, in));
     }
-    if (r.alpha_cr && !std::isfinite(*r.alpha_cr)) fail(model, fmt::format("the critical load factor of {}", in));
   }
+}
+
+void require_finite_buckling(const std::vector<analysis::LoadResult>& results, const std::string& model) {
+  for (const auto& r : results)
+    if (r.alpha_cr && !std::isfinite(*r.alpha_cr))
+      fail(model, fmt::format("the critical load factor of {} '{}'", r.is_combination ? "combination" : "load case",
+                              r.name));
 }
 
 void require_finite_checks(const std::vector<analysis::CheckResult>& checks, const std::string& model) {

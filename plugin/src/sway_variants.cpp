@@ -161,7 +161,8 @@ SwaySolution solve_with_sway_imperfections(Project& project, analysis::FrameMode
                                            const analysis::SolveOptions& options) {
   const bool any_ultimate = std::any_of(model.combinations.begin(), model.combinations.end(),
                                         [](const analysis::Combination& c) { return !c.serviceability; });
-  if (!project.sway_imperfection.enabled || !any_ultimate) return {analysis::solve(model, options), {}};
+  if (!project.sway_imperfection.enabled || !any_ultimate)
+    return {analysis::solve_beside_buckling(model, options), {}};
 
   Variants variants;
   if (!project.sway_amplification) {
@@ -172,7 +173,7 @@ SwaySolution solve_with_sway_imperfections(Project& project, analysis::FrameMode
       variants = sway_variants(project, m, first, none);
       return variants.loads;
     };
-    SwaySolution solution{analysis::solve(model, with), {}};
+    SwaySolution solution{analysis::solve_beside_buckling(model, with), {}};
     append(model, variants.loads);
     expand_checks(project, variants.of);
     solution.records = std::move(variants.records);
@@ -192,7 +193,7 @@ SwaySolution solve_with_sway_imperfections(Project& project, analysis::FrameMode
   variants = sway_variants(project, model, first_results, sway_amplifications(model, first_results));
   append(model, variants.loads);
   expand_checks(project, variants.of);
-  return {analysis::solve(model, options), std::move(variants.records)};
+  return {analysis::solve_beside_buckling(model, options), std::move(variants.records)};
 }
 
 }  // namespace stepframe::detail

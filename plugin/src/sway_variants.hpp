@@ -3,6 +3,7 @@
 // combinations (analysis.sway_imperfection; README "Checks").
 
 #include "stepframe/analysis/frame_model.hpp"
+#include "stepframe/analysis/pending_buckling.hpp"
 #include "stepframe/analysis/solve.hpp"
 #include "stepframe/project.hpp"
 #include "stepframe/run.hpp"
@@ -13,11 +14,13 @@ namespace stepframe::detail {
 
 /// The results of a solve with the sway imperfections and what was done.
 struct SwaySolution {
-  std::vector<analysis::LoadResult> results;     ///< as analysis::solve gives them for the extended model
+  /// As analysis::solve_beside_buckling gives them for the extended model: the buckling analysis may
+  /// still run (solution.buckling).
+  analysis::Solution solution;
   std::vector<SwayImperfectionRecord> records;  ///< per ultimate combination and direction
 };
 
-/// Solves `model` (analysis::solve with `options`) with EN 1993-1-1 5.3.2 sway
+/// Solves `model` (analysis::solve_beside_buckling with `options`) with EN 1993-1-1 5.3.2 sway
 /// imperfections: for every ultimate combination and each horizontal
 /// direction (X, Y), phi and the equivalent horizontal forces from the
 /// combination's first-order column forces and, unless 5.3.2(4) exempts it, a

@@ -204,7 +204,7 @@ TEST_CASE("progress reports every stage in order, and cancelling stops the run b
     if (stages.empty() || stages.back() != stage) stages.push_back(stage);
   }
   CHECK(stages == std::vector<std::string>{"project", "geometry", "wireframe", "model", "assembly", "factorisation", "recovery",
-                                           "buckling", "checks", "vtk", "tables", "results.json", "report"});
+                                           "checks", "buckling", "checks", "vtk", "tables", "results.json", "report"});
   CHECK(seen.back() == std::pair<std::string, double>{"report", 1.0});
 
   SECTION("a cancel callback stops the run inside the solver") {

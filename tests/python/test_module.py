@@ -76,7 +76,7 @@ class RunTest(unittest.TestCase):
                 if not stages or stages[-1] != stage:
                     stages.append(stage)
             self.assertEqual(stages, ["project", "geometry", "wireframe", "model", "assembly", "factorisation", "recovery",
-                                      "buckling", "checks", "vtk", "tables", "results.json", "report"])
+                                      "checks", "buckling", "checks", "vtk", "tables", "results.json", "report"])
             self.assertIn("PASS", run["summary"])
 
     def test_progress_returning_false_cancels(self):

@@ -17,10 +17,13 @@ namespace stepframe {
 /// Called as work goes on: a stage name and the fraction of that stage done,
 /// in [0, 1]. The stages, in order: "project", "geometry" (reading the
 /// STEP file), "wireframe" (members and nodes from it), "model",
-/// "assembly", "factorisation", "recovery", "buckling" (when asked for),
-/// "checks", then, when files are written, "vtk", "tables", "results.json"
-/// and "report", which reports 1 when every file is in place. Each stage
-/// reports 0 when it starts.
+/// "assembly", "factorisation", "recovery", "checks", then, when files are
+/// written, "vtk", "tables", "results.json" and "report", which reports 1
+/// when every file is in place. Each stage reports 0 when it starts. The
+/// buckling analysis (when asked for) runs on a thread of its own beside the
+/// recovery and the member checks; while the run waits for it, inside
+/// "checks", it reports "buckling", then "checks" again for the checks that
+/// need alpha_cr.
 using ProgressCallback = std::function<void(std::string_view stage, double fraction)>;
 
 /// Asked between stages and inside the solver's loops; returning true stops

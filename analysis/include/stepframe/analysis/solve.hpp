@@ -70,6 +70,8 @@ class UnstableFrame : public std::runtime_error {
 /// Throws UnstableFrame (also when a combination
 /// exceeds its elastic critical load in second order), or
 /// std::invalid_argument for an invalid model (see validate_model).
+/// solve_beside_buckling (pending_buckling.hpp) leaves the buckling analysis
+/// running beside the caller.
 std::vector<LoadResult> solve(const FrameModel& model, const SolveOptions& options = {});
 
 }  // namespace stepframe::analysis
