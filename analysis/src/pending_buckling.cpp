@@ -27,11 +27,26 @@ PendingBuckling::PendingBuckling(FrameModel model, std::vector<AxialForce> patte
                                  BucklingOptions options, Eigen::SparseMatrix<double> k_free, DofNumbering dofs,
                                  std::shared_ptr<const StiffnessFactor> factor)
     : shared_(std::make_shared<Shared>()) {
-  modes_ = std::async(std::launch::async, [shared = shared_, model = std::move(model), patterns = std::move(patterns),
-                                           names = std::move(names), options, k_free = std::move(k_free),
-                                           dofs = std::move(dofs), factor = std::move(factor)] {
-    const FactorisedStiffness stiffness{k_free, dofs, *factor};
-    auto modes = buckling_modes(model, patterns, options, &stiffness, [&](double f) {
+  // Values (8 bytes) and row indices (4) of the factor and of k_free.
+  held_bytes_ = 12.0 * (factor->factor_nonzeros() + static_cast<double>(k_free.nonZeros()));
+  spdlog::debug("buckling: {} pattern(s) on a thread of their own, holding {:.0f} MB", patterns.size(),
+                held_bytes_ / 1e6);
+  struct Inputs {
+    FrameModel model;
+    std::vector<AxialForce> patterns;
+    Eigen::SparseMatrix<double> k_free;
+    DofNumbering dofs;
+    std::shared_ptr<const StiffnessFactor> factor;
+  };
+  auto inputs = std::make_unique<Inputs>(
+      Inputs{std::move(model), std::move(patterns), std::move(k_free), std::move(dofs), std::move(factor)});
+  modes_ = std::async(std::launch::async, [shared = shared_, names = std::move(names), options,
+                                           inputs = std::move(inputs)]() mutable {
+    // Taken out of the task's own state, so that the factor is freed when the analysis ends, not when
+    // someone collects its modes.
+    const std::unique_ptr<Inputs> in = std::move(inputs);
+    const FactorisedStiffness stiffness{in->k_free, in->dofs, *in->factor};
+    auto modes = buckling_modes(in->model, in->patterns, options, &stiffness, [&](double f) {
       if (shared->stop.load(std::memory_order_relaxed)) throw Stopped();
       shared->fraction.store(f, std::memory_order_relaxed);
     });
@@ -46,6 +61,7 @@ PendingBuckling& PendingBuckling::operator=(PendingBuckling&& other) noexcept {
     stop_and_wait();
     shared_ = std::move(other.shared_);
     modes_ = std::move(other.modes_);
+    held_bytes_ = other.held_bytes_;
   }
   return *this;
 }

@@ -23,7 +23,9 @@ namespace stepframe {
 /// buckling analysis (when asked for) runs on a thread of its own beside the
 /// recovery and the member checks; while the run waits for it, inside
 /// "checks", it reports "buckling", then "checks" again for the checks that
-/// need alpha_cr.
+/// need alpha_cr. A frame whose factorised stiffness takes more than about
+/// 1 GB (some 30,000 members) waits for it before "checks" instead, so that
+/// the factor is freed before the checks' own memory grows.
 using ProgressCallback = std::function<void(std::string_view stage, double fraction)>;
 
 /// Asked between stages and inside the solver's loops; returning true stops

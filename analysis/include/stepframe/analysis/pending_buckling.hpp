@@ -28,7 +28,7 @@ struct ResultModes {
 
 /// buckling_modes on a thread of its own. The task owns everything it reads
 /// (a copy of the model, the reduced stiffness and the shared factor), so the
-/// caller may change or drop its own copies at once.
+/// caller may change or drop its own copies at once, and frees it when it ends.
 class PendingBuckling {
  public:
   PendingBuckling() = default;  ///< nothing to wait for
@@ -51,6 +51,11 @@ class PendingBuckling {
   /// True while an analysis has not been attached.
   bool pending() const { return modes_.valid(); }
 
+  /// Bytes the analysis holds until it ends: the factor's and k_free's
+  /// values and indices (what a caller weighs before it lets memory of its
+  /// own grow beside the analysis).
+  double held_bytes() const { return held_bytes_; }
+
   /// Waits for the analysis, calling `progress` with the fraction done about
   /// ten times a second, then gives every result of `results` named as a
   /// pattern its modes and alpha_cr (the lowest factor; none when the pattern
@@ -64,6 +69,7 @@ class PendingBuckling {
   struct Shared;  // the stop request and the fraction done, shared with the task
   std::shared_ptr<Shared> shared_;
   std::future<std::vector<ResultModes>> modes_;
+  double held_bytes_ = 0;
 };
 
 /// solve's results, and their buckling analysis still running.
