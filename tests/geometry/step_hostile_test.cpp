@@ -27,24 +27,25 @@ std::string read_text(const std::filesystem::path& file) {
   return text.str();
 }
 
-/// The message read_step_text refuses `text` with ("" when it reads it).
-std::string refusal(const std::string& text) {
+/// The StepReadError message `read` ends with ("" when it takes its input).
+template <class Read>
+std::string message_of(Read read) {
   try {
-    (void)sg::read_step_text(text, "<test>");
+    read();
   } catch (const sg::StepReadError& e) {
     return e.what();
   }
   return "";
 }
 
+/// The message read_step_text refuses `text` with ("" when it reads it).
+std::string refusal(const std::string& text) {
+  return message_of([&] { (void)sg::read_step_text(text, "<test>"); });
+}
+
 /// The message check_step_structure refuses `text` with ("" when it passes).
 std::string structure_refusal(const std::string& text) {
-  try {
-    (void)sg::check_step_structure(text, "<test>");
-  } catch (const sg::StepReadError& e) {
-    return e.what();
-  }
-  return "";
+  return message_of([&] { (void)sg::check_step_structure(text, "<test>"); });
 }
 
 /// The same for one entity instance, followed by the #2 it may refer to.
