@@ -106,7 +106,7 @@ std::vector<int> assembly_loop(const Handle(StepData_StepModel) & model) {
         path.pop_back();
         continue;
       }
-      const auto [occurrence, part] = found->second[next++];
+      const Key part = found->second[next++].second;
       if (state[part] == 1) {  // the loop: from `part` on the path, to here, back to `part`
         std::vector<int> loop;
         bool on = false;
