@@ -263,8 +263,9 @@ TEST_CASE("fuzz finding: parameters are separated by single commas, or the file 
 TEST_CASE("fuzz finding: an entity instance not of the form #12 = KEYWORD(...); is refused", "[step][hostile]") {
   // fuzz_step_import wrote "CONTEXT_DEPENDENT_SH,APE_REPRESENTATION(#93,#91)" and "N=XT_ASSEMBLY_USAGE_OCCURRENCE"
   // into mixed_units_assembly.stp (besides other damage): OCCT's parser read other entities than the ones written
-  // and its transfer recursed without end (stack overflow). ISO 10303-21 (2016) 12.2: an entity instance is its
-  // name, '=', and one record (keyword and parameters) or a complex instance's records in parentheses, then ';'.
+  // and its transfer recursed without end (stack overflow). ISO 10303-21 (2016) 12.2 (clause number from memory):
+  // an entity instance is its name, '=', and one record (keyword and parameters) or a complex instance's records
+  // in parentheses, then ';'.
   CHECK_THAT(refusal(read_text(data / "fuzz" / "comma_inside_entity_keyword.stp")),
              Catch::Contains("<test>: #92 (line 72): a ',' outside any parameter list; an entity instance is "
                              "written #12 = KEYWORD(...);"));
