@@ -170,8 +170,9 @@ StepModel read_parsed(STEPCAFControl_Reader& reader, const std::string& source) 
       steps += fmt::format("{}#{} holds #{}, whose part is #{}", k == 0 ? "" : "; ", loop[k], loop[k + 1], loop[k + 2]);
     fail(source, fmt::format("its assembly #{} contains itself ({}: a NEXT_ASSEMBLY_USAGE_OCCURRENCE's part is its "
                              "related product definition and the one whose shape its "
-                             "CONTEXT_DEPENDENT_SHAPE_REPRESENTATION names); an assembly cannot contain itself, and OCCT's "
-                             "translation of such a loop recurses without end. Correct the assembly structure in the CAD model. {}",
+                             "CONTEXT_DEPENDENT_SHAPE_REPRESENTATION names); an assembly cannot contain itself, and "
+                             "OCCT's translation of such a loop recurses without end. Correct the assembly structure "
+                             "in the CAD model. {}",
                              loop.front(), steps, export_advice));
   }
 

@@ -51,9 +51,9 @@ struct StepLongString {
 /// - parentheses nest at most max_step_nesting deep and are balanced;
 /// - a binary value ("0F3A") holds hexadecimal digits only and is closed;
 /// - every entity instance has the form `#12 = KEYWORD(...);` or, for a
-///   complex instance, `#12 = (A(...) B(...));` (ISO 10303-21 12.2): a
-///   stray '=' or ',' in a keyword makes OCCT read another entity than the
-///   one written;
+///   complex instance, `#12 = (A(...) B(...));` (ISO 10303-21 12.2, clause
+///   number from memory): a stray '=' or ',' in a keyword makes OCCT read
+///   another entity than the one written;
 /// - parameters are separated by single commas (none missing, none doubled);
 /// - numbers, enumerations and keywords have the syntax of ISO 10303-21 6.4;
 /// - every number is finite (no 1E400) and no bare word (NAN, INF) stands
