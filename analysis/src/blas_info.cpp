@@ -44,4 +44,12 @@ void set_blas_threads(int threads) {
 #endif
 }
 
+int blas_threads() {
+#ifdef STEPFRAME_HAVE_OPENBLAS
+  return openblas_get_num_threads();
+#else
+  return 1;
+#endif
+}
+
 }  // namespace stepframe::analysis

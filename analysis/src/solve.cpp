@@ -247,7 +247,8 @@ Solution solve_beside_buckling(const FrameModel& given, const SolveOptions& opti
 
   // One factorisation for everything that follows.
   report("factorisation", 0.0);
-  const auto factor = std::make_shared<const StiffnessFactor>(system.k_free, dofs, given.nodes);
+  const auto factor =
+      std::make_shared<const StiffnessFactor>(system.k_free, dofs, given.nodes, options.factorisation_threads);
   std::vector<LoadResult> results = solve_cases(given.cases, loadings.data(), system, dofs, *factor);
 
   // Loads derived from the first-order results: their cases solved on the same factor.

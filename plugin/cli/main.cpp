@@ -88,6 +88,7 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   stepframe::RunControl control;
   control.progress = display.callback();
   control.cancel_flag = &stop_requested;
+  control.idle_cores_for_factorisation = std::getenv("OPENBLAS_NUM_THREADS") == nullptr;
   catch_stop_signals();
   const auto outcome = stepframe::run_project(project, out, control, vtk);
   display.clear();
@@ -168,7 +169,8 @@ int main(int argc, char** argv) {
   // OpenBLAS' threads spin-wait for one another: with the second core busy (a
   // build, another run) its two threads made the factorisation of a
   // 10,000-member frame about 5x and the buckling analysis about 19x slower
-  // than one thread did (measured, README). One thread unless the user asks.
+  // than one thread did (measured, README). One thread unless the user asks;
+  // a large factorisation widens to the cores idle when it starts (run below).
   if (std::getenv("OPENBLAS_NUM_THREADS") == nullptr) stepframe::analysis::set_blas_threads(1);
 
   // Named here, so help shows `stepframe`, not the path it was started by.

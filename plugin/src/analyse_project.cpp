@@ -8,6 +8,7 @@
 
 #include "modal_run.hpp"
 #include "sway_variants.hpp"
+#include "usable_cores.hpp"
 
 #include <spdlog/spdlog.h>
 
@@ -98,6 +99,8 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   analysis::SolveOptions options;
   options.progress = [&](std::string_view stage, double f) { report(stage, f); };
   options.buckling_modes = a.project.buckling_modes;
+  // Nothing else of the run computes during the factorisation; the machine's other work may.
+  if (control.idle_cores_for_factorisation) options.factorisation_threads = detail::usable_cores_now();
   auto solved = detail::solve_with_sway_imperfections(a.project, a.built.model, options);
   a.results = std::move(solved.solution.results);
   a.sway_imperfections = std::move(solved.records);

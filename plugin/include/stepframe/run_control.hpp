@@ -49,6 +49,12 @@ struct RunControl {
   /// Receives the run's log messages instead of the process default logger.
   spdlog::sink_ptr log_sink;
   spdlog::level::level_enum log_level = spdlog::level::info;
+  /// Lets a large factorisation (StiffnessFactor) run OpenBLAS on the cores
+  /// that are idle when it starts, its setting restored after it. OpenBLAS
+  /// keeps one setting per process, so a host that computes on threads of its
+  /// own meanwhile (several runs at once) leaves this off; the command line
+  /// turns it on unless OPENBLAS_NUM_THREADS says otherwise.
+  bool idle_cores_for_factorisation = false;
 
   /// Throws Cancelled when either the callback or the flag asks for it.
   void throw_if_cancelled() const {

@@ -19,4 +19,7 @@ bool optimised_blas();
 /// calls it. No effect without OpenBLAS.
 void set_blas_threads(int threads);
 
+/// The threads OpenBLAS' kernels run on now (1 without OpenBLAS).
+int blas_threads();
+
 }  // namespace stepframe::analysis

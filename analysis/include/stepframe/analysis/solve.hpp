@@ -43,6 +43,10 @@ struct SolveOptions {
   /// if the model had held it from the start, except that the derived cases,
   /// parts of the derived combinations, get no member summaries. May be empty.
   std::function<DerivedLoads(const FrameModel&, const std::vector<LoadResult>&)> derive_loads;
+  /// BLAS threads the one large factorisation may run on (StiffnessFactor): a
+  /// host that has idle cores at that moment offers them; 1 keeps OpenBLAS'
+  /// own setting. Nothing else of the analysis computes during it.
+  int factorisation_threads = 1;
 };
 
 /// A free direction of the structure: the frame is a mechanism there.

@@ -19,6 +19,12 @@ namespace stepframe::analysis {
 /// a pivot D_ii <= pivot_tolerance * max_i K_ii (or D_ii <= 0) flags a mechanism.
 inline constexpr double pivot_tolerance = 1e-9;
 
+/// Floating-point operations (CHOLMOD's count) above which a factorisation
+/// may widen OpenBLAS to the threads its caller offers: below it the
+/// supernodes are too small for a second thread to pay (measured: the
+/// 10,000-member bench frame, 7.9e9 flops, gained nothing).
+inline constexpr double wide_factorisation_flops = 2e10;
+
 /// Factorises the free-free stiffness once (CHOLMOD supernodal L L^T, ordered
 /// by METIS nested dissection of the graph of the nodes, each node's DOFs kept
 /// together) and then solves any number of right-hand sides,
@@ -29,8 +35,13 @@ class StiffnessFactor {
  public:
   /// Throws UnstableFrame naming each node and direction whose pivot vanishes
   /// (mapped back through the ordering); `nodes` gives the coordinates quoted in the message.
+  /// A factorisation of more than `widen_above_flops` runs OpenBLAS on
+  /// `offered_threads` threads when that is more than it runs on now, and sets it
+  /// back afterwards (OpenBLAS' setting is the process's: a caller offers
+  /// threads only when nothing else of its own computes meanwhile).
   StiffnessFactor(const Eigen::SparseMatrix<double>& k_free, const DofNumbering& dofs,
-                  const std::vector<Eigen::Vector3d>& nodes);
+                  const std::vector<Eigen::Vector3d>& nodes, int offered_threads = 1,
+                  double widen_above_flops = wide_factorisation_flops);
 
   StiffnessFactor(const StiffnessFactor&) = delete;
   StiffnessFactor& operator=(const StiffnessFactor&) = delete;
