@@ -70,14 +70,77 @@ double largest_eigenvalue(const Matrix& A) {
 
 }  // namespace
 
-double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std::vector<DiagramPoint>& diagram,
-                                   double load_height, int terms) {
-  if (diagram.size() < 2) throw std::invalid_argument("critical_moment_for_diagram: at least two points are needed");
-  const double L = diagram.back().x - diagram.front().x, x0 = diagram.front().x;
-  const double pi = std::numbers::pi;
+bool lie_at(const std::vector<DiagramPoint>& diagram, const std::vector<double>& x) {
+  return diagram.size() == x.size() &&
+         std::equal(x.begin(), x.end(), diagram.begin(), [](double at, const DiagramPoint& p) { return at == p.x; });
+}
+
+DiagramIntegrals diagram_integrals(std::vector<double> x, int terms) {
+  if (x.size() < 2) throw std::invalid_argument("critical_moment_for_diagram: at least two points are needed");
   if (terms < 1 || 2 * terms > most)
     throw std::invalid_argument("critical_moment_for_diagram: terms must be from 1 to " + std::to_string(most / 2));
+  const double L = x.back() - x.front(), x0 = x.front();
+  const double pi = std::numbers::pi;
   const auto n = static_cast<Eigen::Index>(terms);
+  const auto block = static_cast<std::size_t>(n * n);
+  DiagramIntegrals out;
+  out.terms = terms;
+  out.moment.assign(x.size() * block, 0.0);
+  out.load.assign((x.size() - 1) * block, 0.0);
+  if (L > 0) {
+    // Moment term: int M(x) (i pi / L)^2 sin_i sin_j dx, M linear between points, integrated by the 3-point
+    // Gauss rule on sub-intervals: about three points per half-wave of the highest product sin_n sin_n.
+    // Each Gauss point's product goes to the interval's two points, in shares (1 - t) and t.
+    const auto intervals = static_cast<int>(x.size() - 1);
+    const int sub = std::max(1, (2 * terms + intervals - 1) / intervals);
+    const double gauss_x[3] = {-std::sqrt(0.6), 0.0, std::sqrt(0.6)}, gauss_w[3] = {5.0 / 9, 8.0 / 9, 5.0 / 9};
+    Vector sines(n), bent(n);  // sin_i(x) and (i pi / L)^2 sin_i(x) at one point
+    for (std::size_t p = 0; p + 1 < x.size(); ++p) {
+      const double xa = x[p] - x0, xb = x[p + 1] - x0;
+      if (xb - xa <= 0) continue;
+      Eigen::Map<Matrix> at_a(out.moment.data() + p * block, n, n), at_b(out.moment.data() + (p + 1) * block, n, n);
+      for (int s = 0; s < sub; ++s) {
+        const double sa = xa + (xb - xa) * s / sub, sb = xa + (xb - xa) * (s + 1) / sub;
+        for (int g = 0; g < 3; ++g) {
+          const double xg = 0.5 * (sa + sb) + 0.5 * (sb - sa) * gauss_x[g], weight = 0.5 * (sb - sa) * gauss_w[g];
+          const double t = (xg - xa) / (xb - xa);
+          fill_sines(pi * xg / L, sines);
+          for (Eigen::Index i = 0; i < n; ++i) {
+            const double wi = static_cast<double>(i + 1) * pi / L;
+            bent(i) = wi * wi * sines(i);
+          }
+          at_a.noalias() += (weight * (1 - t)) * bent * sines.transpose();
+          at_b.noalias() += (weight * t) * bent * sines.transpose();
+        }
+      }
+    }
+    // Load-height term: sin_i sin_j at the middle of each interval (a point load is the jump between two
+    // points at the same x).
+    for (std::size_t p = 0; p + 1 < x.size(); ++p) {
+      fill_sines(pi * (0.5 * (x[p] + x[p + 1]) - x0) / L, sines);
+      Eigen::Map<Matrix>(out.load.data() + p * block, n, n) = sines * sines.transpose();
+    }
+  }
+  out.x = std::move(x);
+  return out;
+}
+
+double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std::vector<DiagramPoint>& diagram,
+                                   double load_height, int terms) {
+  std::vector<double> x;
+  x.reserve(diagram.size());
+  for (const auto& p : diagram) x.push_back(p.x);
+  return critical_moment_for_diagram(k, diagram_integrals(std::move(x), terms), diagram, load_height);
+}
+
+double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const DiagramIntegrals& integrals,
+                                   const std::vector<DiagramPoint>& diagram, double load_height) {
+  if (!lie_at(diagram, integrals.x))
+    throw std::invalid_argument("critical_moment_for_diagram: the diagram's points are not those of its integrals");
+  const double L = integrals.x.back() - integrals.x.front();
+  const double pi = std::numbers::pi;
+  const auto n = static_cast<Eigen::Index>(integrals.terms);
+  const auto block = static_cast<std::size_t>(n * n);
   double peak = 0;
   for (const auto& p : diagram) peak = std::max(peak, std::abs(p.M));
   if (peak <= 0 || L <= 0) return std::numeric_limits<double>::infinity();
@@ -97,41 +160,18 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
     K(n + i) = (k.G * k.It * w2 + k.E * k.Iw * w2 * w2) * L / 2;
   }
   Matrix G = Matrix::Zero(2 * n, 2 * n);
-  // Moment term: int M(x) (i pi / L)^2 sin_i sin_j dx, M linear between points, integrated by the 3-point
-  // Gauss rule on sub-intervals: about three points per half-wave of the highest product sin_n sin_n.
-  const auto intervals = static_cast<int>(diagram.size() - 1);
-  const int sub = std::max(1, (2 * terms + intervals - 1) / intervals);
-  const double gauss_x[3] = {-std::sqrt(0.6), 0.0, std::sqrt(0.6)}, gauss_w[3] = {5.0 / 9, 8.0 / 9, 5.0 / 9};
-  Vector sines(n), bent(n);  // sin_i(x) and (i pi / L)^2 sin_i(x) at one point
-  for (std::size_t p = 0; p + 1 < diagram.size(); ++p) {
-    const double xa = diagram[p].x - x0, xb = diagram[p + 1].x - x0;
-    if (xb - xa <= 0) continue;
-    for (int s = 0; s < sub; ++s) {
-      const double sa = xa + (xb - xa) * s / sub, sb = xa + (xb - xa) * (s + 1) / sub;
-      for (int g = 0; g < 3; ++g) {
-        const double x = 0.5 * (sa + sb) + 0.5 * (sb - sa) * gauss_x[g], weight = 0.5 * (sb - sa) * gauss_w[g];
-        const double t = (x - xa) / (xb - xa);
-        const double M = (1 - t) * diagram[p].M + t * diagram[p + 1].M;
-        fill_sines(pi * x / L, sines);
-        for (Eigen::Index i = 0; i < n; ++i) {
-          const double wi = static_cast<double>(i + 1) * pi / L;
-          bent(i) = wi * wi * sines(i);
-        }
-        // 1/2 x^T G x = sum a_i b_j c_ij, c_ij = int M (i pi / L)^2 sin_i sin_j dx.
-        G.topRightCorner(n, n).noalias() += (weight * M) * bent * sines.transpose();
-      }
-    }
-  }
+  // 1/2 x^T G x = sum a_i b_j c_ij, c_ij = int M (i pi / L)^2 sin_i sin_j dx = sum_p M_p (the point's block).
+  for (std::size_t p = 0; p < diagram.size(); ++p)
+    if (diagram[p].M != 0)
+      G.topRightCorner(n, n) += diagram[p].M * Eigen::Map<const Matrix>(integrals.moment.data() + p * block, n, n);
   G.bottomLeftCorner(n, n) = G.topRightCorner(n, n).transpose();
   // Load-height term: the transverse load on each interval is the drop of the shear across it, taken at
-  // its middle (a point load is the jump between two points at the same x).
+  // its middle.
   if (load_height != 0)
     for (std::size_t p = 0; p + 1 < diagram.size(); ++p) {
       const double Q = std::abs(diagram[p].V - diagram[p + 1].V);
       if (Q == 0) continue;
-      const double x = 0.5 * (diagram[p].x + diagram[p + 1].x) - x0;
-      fill_sines(pi * x / L, sines);
-      G.bottomRightCorner(n, n).noalias() += (Q * load_height) * sines * sines.transpose();
+      G.bottomRightCorner(n, n) += (Q * load_height) * Eigen::Map<const Matrix>(integrals.load.data() + p * block, n, n);
     }
   // G x = mu K x with K diagonal and positive: mu of K^-1/2 G K^-1/2; lambda = 1 / mu_max.
   const Vector r = K.cwiseSqrt().cwiseInverse();

@@ -68,6 +68,21 @@ double equivalent_moment_factor(const Diagram& d, double length_factor) {
 double modulus_y(const Section& s, int cls) { return cls <= 2 && s.Wpl_y > 0 ? s.Wpl_y : s.Wy(); }
 double modulus_z(const Section& s, int cls) { return cls <= 2 && s.Wpl_z > 0 ? s.Wpl_z : s.Wz(); }
 
+// Mcr of the diagram (critical_moment_for_diagram), with the integrals of its positions that the member
+// keeps when they fit (its load results share its stations), else worked out and kept for the next one.
+double critical_moment_of(const LateralTorsionalStiffness& k, const MemberInput& in,
+                          const std::vector<DiagramPoint>& points, double load_height) {
+  if (!in.integrals) return critical_moment_for_diagram(k, points, load_height);
+  DiagramIntegrals& kept = *in.integrals;
+  if (!lie_at(points, kept.x)) {
+    std::vector<double> x;
+    x.reserve(points.size());
+    for (const auto& p : points) x.push_back(p.x);
+    kept = diagram_integrals(std::move(x));
+  }
+  return critical_moment_for_diagram(k, kept, points, load_height);
+}
+
 bool is_open(SectionShape shape) {
   return shape == SectionShape::rolled_i || shape == SectionShape::welded_i || shape == SectionShape::channel ||
          shape == SectionShape::tee || shape == SectionShape::angle;
@@ -235,7 +250,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
       // Restrained at the member ends only: Mcr of the member's own moment diagram (energy method).
       points.reserve(line.stations.size());
       for (const Station& st : line.stations) points.push_back({st.x, st.forces(My_), st.forces(Vz_)});
-      Mcr = critical_moment_for_diagram({E, G, s.Iz, s.Iw, s.J}, points, zg);
+      Mcr = critical_moment_of({E, G, s.Iz, s.Iw, s.J}, in, points, zg);
       basis = fmt::format("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and no "
                           "restraint between{}",
                           lT, my.linear ? "" : "; span loads on the top flange (conservative default)");
@@ -267,7 +282,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
       // 6.3.2.3(2): kc of Table 6.6 from the diagram; C1 (for curved diagrams) with the load at the shear centre.
       double C1 = 1.0;
       if (!my.linear && ends_only)
-        C1 = critical_moment_for_diagram({E, G, s.Iz, s.Iw, s.J}, points, 0.0) /
+        C1 = critical_moment_of({E, G, s.Iz, s.Iw, s.J}, in, points, 0.0) /
              critical_moment(E, G, s.Iz, s.Iw, s.J, lT, 1.0);
       const double kc = ends_only ? correction_factor_kc(my.linear, my.psi, C1) : 1.0;
       const double f_mod = modification_factor_f(kc, lambda_lt);
@@ -356,6 +371,8 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     in.section = &model.sections[first.section];
     in.material = material_for_section(model.materials[first.material], *in.section);
     if (m < buckling.size()) in.buckling = buckling[m];
+    DiagramIntegrals integrals;
+    in.integrals = &integrals;
     for (const LoadResult* r : results) {
       const LineResult line = member_line(model, *r, chains[m], LineDetail::stations);
       in.length = line.length;

@@ -329,6 +329,27 @@ TEST_CASE("critical moment for any moment diagram by the energy method") {
     // The C1-C2 closed form of en1993.hpp, itself an approximation (a few per cent, from memory).
     CHECK(on_top == Approx(critical_moment(k.E, k.G, k.Iz, k.Iw, k.It, L, 1.127, 0.454, zg)).epsilon(0.04));
   }
+  SECTION("integrals worked out once serve every diagram on the same points") {
+    // One member's load results share its stations: the same numbers as the integrals worked out afresh,
+    // and still the closed form for uniform moment (Timoshenko & Gere 1961, 6.3).
+    std::vector<double> x;
+    for (const auto& p : end_moments(0.0)) x.push_back(p.x);
+    const DiagramIntegrals integrals = diagram_integrals(x);
+    for (double psi : {1.0, 0.5, 0.0, -1.0}) {
+      const auto d = end_moments(psi);
+      CHECK(critical_moment_for_diagram(k, integrals, d) == Approx(critical_moment_for_diagram(k, d)).epsilon(1e-12));
+    }
+    CHECK(critical_moment_for_diagram(k, integrals, end_moments(1.0)) == Approx(M0).epsilon(1e-9));
+    const double w = 10e3;
+    const auto span = diagram([&](double s) { return w * s * (L - s) / 2; }, [&](double s) { return w * (L / 2 - s); });
+    CHECK(critical_moment_for_diagram(k, integrals, span, 0.15) ==
+          Approx(critical_moment_for_diagram(k, span, 0.15)).epsilon(1e-12));
+    // Points elsewhere are refused, not silently used with the wrong integrals.
+    CHECK_THROWS_AS(critical_moment_for_diagram(k, diagram_integrals({0.0, L}), end_moments(0.0)), std::invalid_argument);
+    std::vector<double> shifted = x;
+    shifted[1] += 1e-3;
+    CHECK_THROWS_AS(critical_moment_for_diagram(k, diagram_integrals(shifted), end_moments(0.0)), std::invalid_argument);
+  }
   SECTION("central point load: C1 = 1.348") {
     std::vector<DiagramPoint> d;
     const double P = 50e3;

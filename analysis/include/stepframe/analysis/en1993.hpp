@@ -162,6 +162,32 @@ struct DiagramPoint {
 double critical_moment_for_diagram(const LateralTorsionalStiffness& stiffness, const std::vector<DiagramPoint>& diagram,
                                    double load_height = 0, int terms = 10);
 
+/// What critical_moment_for_diagram works out from the points' positions
+/// alone: the sine series' integrals against each point's share of a
+/// piecewise-linear diagram. Worked out once for a member's stations, they
+/// serve every load result on it.
+struct DiagramIntegrals {
+  std::vector<double> x;  ///< the points' positions [m], ascending
+  int terms = 10;
+  /// Per point p, the n x n block int phi_p(x) (i pi / L)^2 sin_i sin_j dx of the moment term (phi_p
+  /// the point's share of a linear interpolation; n = terms), column-major, one block after another.
+  std::vector<double> moment;
+  /// Per interval, sin_i sin_j at its middle (the load-height term), n x n each.
+  std::vector<double> load;
+};
+
+/// The integrals for diagrams with points at `x` (ascending, at least two).
+DiagramIntegrals diagram_integrals(std::vector<double> x, int terms = 10);
+
+/// Whether the diagram's points lie exactly at `x`, one each.
+bool lie_at(const std::vector<DiagramPoint>& diagram, const std::vector<double>& x);
+
+/// critical_moment_for_diagram with the positions' integrals worked out
+/// beforehand; throws std::invalid_argument unless the diagram's points lie
+/// at `integrals.x`.
+double critical_moment_for_diagram(const LateralTorsionalStiffness& stiffness, const DiagramIntegrals& integrals,
+                                   const std::vector<DiagramPoint>& diagram, double load_height = 0);
+
 /// Equivalent uniform moment factor Cm of Annex B Table B.3 for a linear
 /// diagram: 0.6 + 0.4 psi >= 0.4.
 double cm_linear(double psi);
@@ -208,6 +234,10 @@ struct MemberInput {
   Material material;  ///< with fy for the section's thickest plate
   double length = 0;  ///< [m]
   BucklingLengths buckling;
+  /// Where the check may keep the Mcr integrals of the member's stations
+  /// from one load result to the next (check_members gives one per member);
+  /// null: worked out for each result.
+  DiagramIntegrals* integrals = nullptr;
 };
 
 /// The EN 1993-1-1 checks of every member under every listed result, the
