@@ -4,6 +4,7 @@
 #include <Eigen/LU>
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <stdexcept>
 #include <string>
@@ -11,13 +12,43 @@
 namespace stepframe::analysis {
 namespace {
 
-// <x - a>^n / n! for n >= 0 (Macaulay bracket; zero for x <= a).
-double macaulay(double x, double a, int n) {
-  if (x <= a) return 0.0;
+// The Macaulay brackets <x - a>^n / n! (zero for x <= a) for n = first, ..., first + N - 1 (first >= 0),
+// as running products: each bracket is the product (d/1)(d/2)...(d/n), d = x - a, in that order.
+template <int N>
+std::array<double, N> macaulay_run(double x, double a, int first) {
+  std::array<double, N> out{};
+  if (x <= a) return out;
   double value = 1.0;
   const double d = x - a;
-  for (int k = 1; k <= n; ++k) value *= d / k;
-  return value;
+  for (int k = 1; k < first; ++k) value *= d / k;
+  for (int i = 0; i < N; ++i) {
+    const int n = first + i;
+    if (n >= 1) value *= d / n;
+    out[static_cast<std::size_t>(i)] = value;
+  }
+  return out;
+}
+
+// Q_j(x) for j = first, ..., first + N - 1 in one pass over the loads, each term as load_integral adds it
+// (one Q_j alone is load_integral).
+template <int N>
+std::array<Eigen::Vector3d, N> load_integrals(const LocalLoads& loads, int first, double x) {
+  std::array<Eigen::Vector3d, N> sums;
+  sums.fill(Eigen::Vector3d::Zero());
+  for (const LocalLoad& l : loads) {
+    if (l.point) {
+      const auto m = macaulay_run<N>(x, l.a, first - 1);
+      for (std::size_t i = 0; i < N; ++i) sums[i] += l.q_a * m[i];
+      continue;
+    }
+    const double span = l.b - l.a;
+    if (!(span > 0)) continue;
+    const Eigen::Vector3d slope = (l.q_b - l.q_a) / span;
+    const auto ma = macaulay_run<N + 1>(x, l.a, first), mb = macaulay_run<N + 1>(x, l.b, first);
+    for (std::size_t i = 0; i < N; ++i)
+      sums[i] += l.q_a * ma[i] + slope * ma[i + 1] - l.q_b * mb[i] - slope * mb[i + 1];
+  }
+  return sums;
 }
 
 }  // namespace
@@ -37,21 +68,9 @@ LocalLoads scaled(const LocalLoads& loads, double factor) {
 
 Eigen::Vector3d load_integral(const LocalLoads& loads, int j, double x) {
   // The j-th integral of c <s-a>^n/n! is c <x-a>^(n+j)/(n+j)!; a Dirac term
-  // (n = -1) integrates to <x-a>^(j-1)/(j-1)! (Macaulay functions, see header).
-  Eigen::Vector3d sum = Eigen::Vector3d::Zero();
-  for (const LocalLoad& l : loads) {
-    if (l.point) {
-      sum += l.q_a * macaulay(x, l.a, j - 1);
-      continue;
-    }
-    const double span = l.b - l.a;
-    if (!(span > 0)) continue;
-    const Eigen::Vector3d slope = (l.q_b - l.q_a) / span;
-    // q(s) = q_a<s-a>^0 + k<s-a>^1 - q_b<s-b>^0 - k<s-b>^1.
-    sum += l.q_a * macaulay(x, l.a, j) + slope * macaulay(x, l.a, j + 1) - l.q_b * macaulay(x, l.b, j) -
-           slope * macaulay(x, l.b, j + 1);
-  }
-  return sum;
+  // (n = -1) integrates to <x-a>^(j-1)/(j-1)! (Macaulay functions, see header);
+  // q(s) = q_a<s-a>^0 + k<s-a>^1 - q_b<s-b>^0 - k<s-b>^1 for a distributed load.
+  return load_integrals<1>(loads, j, x)[0];
 }
 
 Eigen::Vector3d load_total(const LocalLoads& loads) {
@@ -91,8 +110,9 @@ Vector6d internal_forces_at(const Vector6d& f0, const LocalLoads& loads, double 
   const Eigen::Vector3d ex = Eigen::Vector3d::UnitX();
   const Eigen::Vector3d force0 = f0.head<3>();
   const Eigen::Vector3d moment0 = f0.tail<3>();
-  const Eigen::Vector3d r = -force0 - load_integral(loads, 1, x);
-  const Eigen::Vector3d m = -moment0 + x * ex.cross(force0) + ex.cross(load_integral(loads, 2, x));
+  const auto [q1, q2] = load_integrals<2>(loads, 1, x);
+  const Eigen::Vector3d r = -force0 - q1;
+  const Eigen::Vector3d m = -moment0 + x * ex.cross(force0) + ex.cross(q2);
   Vector6d forces;
   forces << r, m;
   return forces;
@@ -106,9 +126,7 @@ Vector6d element_state_at(const ElementProperties& p, const Vector6d& d0, const 
   // Integrated once for rotations and twice for deflections (the Q_j are the
   // load_integral functions), plus the shear strain V/(G As) for Timoshenko.
   const double fx = f0(0), fy = f0(1), fz = f0(2), mx = f0(3), my = f0(4), mz = f0(5);
-  const Eigen::Vector3d q2 = load_integral(loads, 2, x);
-  const Eigen::Vector3d q3 = load_integral(loads, 3, x);
-  const Eigen::Vector3d q4 = load_integral(loads, 4, x);
+  const auto [q2, q3, q4] = load_integrals<3>(loads, 2, x);
   const double x2 = x * x, x3 = x2 * x;
   const double eiz = p.E * p.Iz, eiy = p.E * p.Iy;
   Vector6d d;

@@ -128,16 +128,21 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
     return element_state_at(s.properties, d0, f0, s.loads, x) + (x / L) * closure;
   };
   auto displacement_local = [&](double x) -> Eigen::Vector3d { return state_local(x).head<3>(); };
-  auto forces_at = [&](double x) -> Vector6d {
+  const Eigen::Vector3d start_displacement = displacement_local(0);
+  // The forces at x, where the axis has the displacement u (used in second order only).
+  auto forces_with = [&](double x, const Eigen::Vector3d& u) -> Vector6d {
     Vector6d f = internal_forces_at(f0, s.loads, x);
     if (s.second_order) {
       // Moments about the displaced cut point: (x e_x + dd) x F0 adds dd x F0,
       // dd = lateral displacement of the axis from the start (P-delta).
-      const Eigen::Vector3d dd = displacement_local(x) - displacement_local(0);
+      const Eigen::Vector3d dd = u - start_displacement;
       f(4) += dd.z() * f0(0);
       f(5) -= dd.y() * f0(0);
     }
     return f;
+  };
+  auto forces_at = [&](double x) -> Vector6d {
+    return forces_with(x, s.second_order ? displacement_local(x) : start_displacement);
   };
 
   LineResult result;
@@ -149,8 +154,8 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
     Station st;
     st.x = x;
     st.position = s.origin + x * s.axes.row(0).transpose();
-    st.forces = forces_at(x);
     const Vector6d state = state_local(x);
+    st.forces = forces_with(x, state.head<3>());
     st.displacement = s.axes.transpose() * state.head<3>();
     st.rotation = s.axes.transpose() * state.tail<3>();
     const SectionStress stress = section_stress(*s.section, st.forces);
@@ -210,7 +215,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   // then refined by golden-section search within one station spacing either side of the two
   // largest stations (the offset is smooth and unimodal there; two, so that a second hump of
   // nearly the same height is not missed).
-  const Eigen::Vector3d a = displacement_local(0);
+  const Eigen::Vector3d& a = start_displacement;
   const Eigen::Vector3d chord = Eigen::Vector3d(L, 0, 0) + displacement_local(L) - a;
   const double chord_length = chord.norm();
   auto offset_of = [&](double x, const Eigen::Vector3d& u) {
