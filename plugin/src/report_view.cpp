@@ -11,13 +11,27 @@
 #include <nlohmann/json.hpp>
 #include <spdlog/spdlog.h>
 
+#include <charconv>
+
 namespace stepframe::report {
 namespace {
 
 std::string quoted(const std::string& text) { return nlohmann::json(text).dump(); }
 
-/// JSON numbers: 5 significant digits (a view, not a result file).
-std::string n5(double value) { return std::isfinite(value) ? fmt::format("{:.5g}", value) : "null"; }
+/// JSON numbers: 5 significant digits (a view, not a result file), as printf's %.5g, appended to `d`.
+void n5(std::string& d, double value) {
+  if (!std::isfinite(value)) {
+    d += "null";
+    return;
+  }
+  char text[32];
+  d.append(text, std::to_chars(text, text + sizeof text, value, std::chars_format::general, 5).ptr);
+}
+std::string n5(double value) {
+  std::string d;
+  n5(d, value);
+  return d;
+}
 
 /// The view's data; its shapes are what viz/web/frame_view.js reads.
 std::string view_data(const Analysis& a) {
@@ -30,8 +44,9 @@ std::string view_data(const Analysis& a) {
     if (m < has_sheet.size()) has_sheet[m] = true;
 
   std::string d = "{\"scales\":" + viz::colour_scales_json() + ",\"nodes\":[";
+  auto out = std::back_inserter(d);
   for (std::size_t i = 0; i < model.nodes.size(); ++i)
-    d += fmt::format("{}{:.4f},{:.4f},{:.4f}", i ? "," : "", model.nodes[i].x(), model.nodes[i].y(), model.nodes[i].z());
+    fmt::format_to(out, "{}{:.4f},{:.4f},{:.4f}", i ? "," : "", model.nodes[i].x(), model.nodes[i].y(), model.nodes[i].z());
   d += "],\"members\":[";
   const std::vector<double> fy = analysis::member_yield_strengths(model, chains);
   for (std::size_t m = 0; m < chains.size(); ++m) {
@@ -40,7 +55,7 @@ std::string view_data(const Analysis& a) {
     for (std::size_t e : chains[m].elements) path += "," + std::to_string(model.elements[e].nodes[1]);
     const double length = member_length(model, chains[m]);
     const auto* g = m < governing.size() ? governing[m] : nullptr;
-    d += fmt::format("{}{{\"id\":{},\"label\":{},\"section\":{},\"material\":{},\"length\":{},\"path\":[{}],\"u\":{}{}}}",
+    fmt::format_to(out, "{}{{\"id\":{},\"label\":{},\"section\":{},\"material\":{},\"length\":{},\"path\":[{}],\"u\":{}{}}}",
                      m ? "," : "", m, quoted(m < a.built.member_sources.size() ? member_label(a, m) : ""),
                      quoted(model.sections[el.section].designation), quoted(model.materials[el.material].name),
                      n5(length), path, g ? n5(g->utilisation) : "null",
@@ -49,15 +64,21 @@ std::string view_data(const Analysis& a) {
   d += "],\"results\":[";
   for (std::size_t r = 0; r < a.results.size(); ++r) {
     const auto& result = a.results[r];
-    d += fmt::format("{}{{\"name\":{},\"kind\":\"{}\",\"stress\":[", r ? "," : "", quoted(result.name),
-                     result.is_combination ? "combination" : "case");
-    for (std::size_t m = 0; m < result.members.size(); ++m)
-      d += (m ? "," : "") + n5(result.members[m].max_von_mises / fy[m]);
+    fmt::format_to(out, "{}{{\"name\":{},\"kind\":\"{}\",\"stress\":[", r ? "," : "", quoted(result.name),
+                   result.is_combination ? "combination" : "case");
+    for (std::size_t m = 0; m < result.members.size(); ++m) {
+      if (m) d += ',';
+      n5(d, result.members[m].max_von_mises / fy[m]);
+    }
     d += "],\"extremes\":[";
     for (std::size_t m = 0; m < result.members.size(); ++m) {
       d += m ? ",[" : "[";
-      for (std::size_t c = 0; c < 6; ++c)
-        d += (c ? "," : "") + n5(result.members[m].extremes[c].max) + "," + n5(result.members[m].extremes[c].min);
+      for (std::size_t c = 0; c < 6; ++c) {
+        if (c) d += ',';
+        n5(d, result.members[m].extremes[c].max);
+        d += ',';
+        n5(d, result.members[m].extremes[c].min);
+      }
       d += "]";
     }
     d += "]}";
@@ -66,11 +87,15 @@ std::string view_data(const Analysis& a) {
   std::vector<std::string> checks(chains.size());
   for (const auto& c : a.checks)
     if (c.member < checks.size())
-      checks[c.member] += fmt::format("{}[{},{},{},{},{},{}]", checks[c.member].empty() ? "" : ",", quoted(c.check),
+      fmt::format_to(std::back_inserter(checks[c.member]), "{}[{},{},{},{},{},{}]", checks[c.member].empty() ? "" : ",", quoted(c.check),
                                       quoted(c.combination), quoted(with_unit(c.value, c.unit, a.project)),
                                       quoted(with_unit(c.limit, c.unit, a.project)), n5(c.utilisation), c.pass ? "true" : "false");
   d += "],\"checks\":[";
-  for (std::size_t m = 0; m < checks.size(); ++m) d += (m ? ",[" : "[") + checks[m] + "]";
+  for (std::size_t m = 0; m < checks.size(); ++m) {
+    d += m ? ",[" : "[";
+    d += checks[m];
+    d += ']';
+  }
   const auto order = members_by_utilisation(a);
   const std::string initial = !order.empty() && governing[order.front()] ? governing[order.front()]->combination : "";
   d += "],\"initial_result\":" + quoted(initial) + "}";

@@ -1,0 +1,51 @@
+// The numbers of results.json: twelve significant digits, the text C's printf gives for "%.12g"
+// (ISO C 7.21.6.1, the g conversion), finite numbers only.
+
+#include "json_writer.hpp"
+
+#include <catch2/catch.hpp>
+
+#include <cmath>
+#include <cstdint>
+#include <cstdio>
+#include <cstring>
+#include <limits>
+#include <random>
+#include <string>
+
+namespace {
+
+std::string written(double v) {
+  std::string text;
+  {
+    stepframe::detail::JsonWriter json([&](std::string_view piece) { text.append(piece); });
+    json.value(v);
+  }
+  return text;
+}
+
+std::string printf_g12(double v) {
+  char text[64];
+  std::snprintf(text, sizeof text, "%.12g", v);
+  return text;
+}
+
+}  // namespace
+
+TEST_CASE("results.json numbers are printf's %.12g text, non-finite ones null", "[plugin][json]") {
+  for (double v : {0.0, -0.0, 1.0, 345e6, 1e-5, 2.5, 0.1, 1.0 / 3, 1e15, 1e16, 1e21, 999999999999.5, 9.999999999995e-5,
+                   -7.25e-12, 1e12, 5e-324, std::numeric_limits<double>::max()})
+    CHECK(written(v) == printf_g12(v));
+  // Every kind of double: random bit patterns (exponents over the whole range).
+  std::mt19937_64 bits(20261203);
+  int differ = 0;
+  for (int i = 0; i < 200000; ++i) {
+    const std::uint64_t b = bits();
+    double v;
+    std::memcpy(&v, &b, sizeof v);
+    if (std::isfinite(v) && written(v) != printf_g12(v)) ++differ;
+  }
+  CHECK(differ == 0);
+  CHECK(written(std::numeric_limits<double>::quiet_NaN()) == "null");
+  CHECK(written(-std::numeric_limits<double>::infinity()) == "null");
+}
