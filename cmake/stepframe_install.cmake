@@ -7,7 +7,7 @@ include(CMakePackageConfigHelpers)
 set(STEPFRAME_INSTALL_CMAKEDIR ${CMAKE_INSTALL_LIBDIR}/cmake/stepframe)
 set(STEPFRAME_INSTALL_DATADIR ${CMAKE_INSTALL_DATADIR}/stepframe)
 
-install(TARGETS stepframe RUNTIME DESTINATION ${CMAKE_INSTALL_BINDIR})
+install(TARGETS stepframe stepframe_engine RUNTIME DESTINATION ${CMAKE_INSTALL_BINDIR})  # the launcher and the program, side by side
 install(TARGETS stepframe_shared EXPORT stepframeTargets
   LIBRARY DESTINATION ${CMAKE_INSTALL_LIBDIR}
   INCLUDES DESTINATION ${CMAKE_INSTALL_INCLUDEDIR})
