@@ -15,7 +15,9 @@
 #include <cstdio>
 #include <cstdlib>
 #include <cstring>
+#include <iterator>
 #include <string>
+#include <vector>
 #include <unistd.h>
 
 namespace {
@@ -27,6 +29,9 @@ constexpr const char* tunables[] = {
     "glibc.malloc.trim_threshold=268435456",  // up to 256 MiB free at the heap's top kept for reuse
     "glibc.malloc.top_pad=67108864",          // the heap grows 64 MiB at a time
 };
+// Also glibc.malloc.arena_max = the cores online (at least 2): the run's many threads (writers, the
+// buckling task, the OpenMP team) then share a few heaps instead of up to 8 per core, which took the
+// 100k bench frame's peak from 3.78 to 3.59 GiB at the same speed.
 
 constexpr int internal_error = 4;  // the command line's status for "not the input's fault"
 
@@ -45,8 +50,11 @@ int main(int, char** argv) {
 
   const char* given = std::getenv("GLIBC_TUNABLES");
   std::string settings = given ? given : "";
-  for (const char* t : tunables) {
-    const std::string name(t, std::strchr(t, '=') + 1);  // "glibc.malloc.x="
+  std::vector<std::string> wanted(std::begin(tunables), std::end(tunables));
+  const long cores = sysconf(_SC_NPROCESSORS_ONLN);
+  wanted.push_back("glibc.malloc.arena_max=" + std::to_string(cores > 2 ? cores : 2));
+  for (const std::string& t : wanted) {
+    const std::string name = t.substr(0, t.find('=') + 1);  // "glibc.malloc.x="
     if (settings.find(name) != std::string::npos) continue;
     if (!settings.empty()) settings += ':';
     settings += t;

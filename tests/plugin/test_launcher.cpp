@@ -8,6 +8,8 @@
 
 #include <filesystem>
 
+#include <unistd.h>
+
 using namespace stepframe::test;
 
 namespace {
@@ -42,16 +44,22 @@ Launched launch(const ScratchDir& scratch, const std::string& tunables, bool wit
   return l;
 }
 
+// As many heaps as cores online, at least two.
+std::string arena_max() {
+  const long cores = sysconf(_SC_NPROCESSORS_ONLN);
+  return "glibc.malloc.arena_max=" + std::to_string(cores > 2 ? cores : 2);
+}
+
 }  // namespace
 
 TEST_CASE("the stepframe launcher hands its arguments and the allocator's settings to the engine", "[plugin][cli]") {
   ScratchDir scratch;
-  SECTION("no settings of the caller's: all four are added, the arguments pass unchanged") {
+  SECTION("no settings of the caller's: all five are added, the arguments pass unchanged") {
     const Launched l = launch(scratch, "", true);
     CHECK(l.result.status == 0);
     CHECK(l.tunables ==
           "glibc.malloc.hugetlb=1:glibc.malloc.mmap_threshold=33554432:glibc.malloc.trim_threshold=268435456:"
-          "glibc.malloc.top_pad=67108864\n");
+          "glibc.malloc.top_pad=67108864:" + arena_max() + "\n");
     // $0 of the script is the engine's path; then each argument as given (one with a space).
     CHECK(l.args == (scratch / "stepframe-engine").string() + "|run|a b.yaml|--out|x|");
   }
@@ -59,7 +67,7 @@ TEST_CASE("the stepframe launcher hands its arguments and the allocator's settin
     const Launched l = launch(scratch, "glibc.malloc.hugetlb=0:glibc.cpu.x86_rep_movsb_threshold=4096", true);
     CHECK(l.tunables ==
           "glibc.malloc.hugetlb=0:glibc.cpu.x86_rep_movsb_threshold=4096:glibc.malloc.mmap_threshold=33554432:"
-          "glibc.malloc.trim_threshold=268435456:glibc.malloc.top_pad=67108864\n");
+          "glibc.malloc.trim_threshold=268435456:glibc.malloc.top_pad=67108864:" + arena_max() + "\n");
   }
   SECTION("the engine's exit status is the command's") {
     CHECK(launch(scratch, "", true, 3).result.status == 3);
