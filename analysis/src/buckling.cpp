@@ -15,6 +15,7 @@
 
 #include <algorithm>
 #include <array>
+#include <chrono>
 #include <cmath>
 #include <exception>
 #include <limits>
@@ -28,6 +29,10 @@ namespace {
 
 using Sparse = Eigen::SparseMatrix<double>;
 constexpr double pi = std::numbers::pi;
+
+double seconds_since(std::chrono::steady_clock::time_point start) {
+  return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
+}
 
 // B = K for Spectra's regular-inverse mode: y = K x and y = K^-1 x, one
 // vector at a time (Spectra) or a block of them (subspace iteration).
@@ -238,6 +243,7 @@ Eigen::MatrixXd start_block(const Eigen::MatrixXd& given, Eigen::Index rows, Eig
 template <class Op>
 std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eigen::MatrixXd v, std::size_t modes,
                                              double tolerance) {
+  const auto started = std::chrono::steady_clock::now();
   const Eigen::Index m = v.cols(), nev = std::min<Eigen::Index>(static_cast<Eigen::Index>(modes), m - 1);
   Eigen::VectorXd previous;
   for (int it = 1; it <= 60; ++it) {
@@ -258,7 +264,8 @@ std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eige
     }
     previous = mu;
     if (!converged) continue;
-    spdlog::debug("buckling: {} DOFs, {} block iterations of {} vectors", v.rows(), it, m);
+    spdlog::debug("buckling: {} DOFs, {} block iterations of {} vectors, {:.3f} s", v.rows(), it, m,
+                  seconds_since(started));
     Eigenpairs out;
     for (Eigen::Index k = 0; k < nev && mu(k) > 0; ++k) out.alpha.push_back(1.0 / mu(k));
     out.vectors = v.leftCols(static_cast<Eigen::Index>(out.alpha.size()));
@@ -271,6 +278,7 @@ std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eige
 template <class Op>
 std::optional<Eigenpairs> lowest_alphas(const Op& op, const Sparse& g_free, std::size_t modes, double tolerance,
                                         const Eigen::VectorXd* start) {
+  const auto started = std::chrono::steady_clock::now();
   using BOp = SpectraAdapter<Op>;
   BOp b_op{op};
   const Eigen::Index n = b_op.rows();
@@ -292,8 +300,8 @@ std::optional<Eigenpairs> lowest_alphas(const Op& op, const Sparse& g_free, std:
     spdlog::warn("the buckling eigenvalue solver did not converge; alpha_cr is not available");
     return std::nullopt;
   }
-  spdlog::debug("buckling: {} DOFs, {} Lanczos restarts, {} operator products", n, solver.num_iterations(),
-                solver.num_operations());
+  spdlog::debug("buckling: {} DOFs, {} Lanczos restarts, {} operator products, {:.3f} s", n,
+                solver.num_iterations(), solver.num_operations(), seconds_since(started));
   const Eigen::VectorXd mu = solver.eigenvalues();
   const Eigen::MatrixXd vectors = solver.eigenvectors();
   Eigenpairs out;
