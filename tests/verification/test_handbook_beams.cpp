@@ -168,9 +168,11 @@ TEST_CASE("propped cantilever, uniform load: Roark Table 8.1 case 2c", "[verific
   CHECK(r.elements[0].start_forces(4) == Approx(w * L * L / 8).epsilon(exact));
   const double s = L * (1 + std::sqrt(33.0)) / 16;
   const double vmax = w * s * (L * L * L - 3 * L * s * s + 2 * s * s * s) / (48 * E * I);
-  CHECK(r.elements[0].max_local_deflection == Approx(vmax).epsilon(1e-5));
+  // The peak lies between stations: the recovery's refinement (Brent's method) must find it, not a
+  // station next to it (the nearest of the 21 stations is 0.11 m away, its deflection 0.3% lower).
+  CHECK(r.elements[0].max_local_deflection == Approx(vmax).epsilon(1e-10));
   CHECK(r.elements[0].max_local_deflection == Approx(w * std::pow(L, 4) / (185 * E * I)).epsilon(3e-3));
-  CHECK(r.elements[0].max_local_deflection_at == Approx(L - s).margin(L / 80));
+  CHECK(r.elements[0].max_local_deflection_at == Approx(L - s).margin(1e-5));
 }
 
 TEST_CASE("fixed-ended beam, uniform load: Roark Table 8.1 case 2d", "[verification][roark]") {
