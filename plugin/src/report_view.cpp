@@ -46,7 +46,8 @@ std::string view_data(const Analysis& a) {
   std::string d = "{\"scales\":" + viz::colour_scales_json() + ",\"nodes\":[";
   auto out = std::back_inserter(d);
   for (std::size_t i = 0; i < model.nodes.size(); ++i)
-    fmt::format_to(out, "{}{:.4f},{:.4f},{:.4f}", i ? "," : "", model.nodes[i].x(), model.nodes[i].y(), model.nodes[i].z());
+    fmt::format_to(out, "{}{:.4f},{:.4f},{:.4f}", i ? "," : "", model.nodes[i].x(), model.nodes[i].y(),
+                   model.nodes[i].z());
   d += "],\"members\":[";
   const std::vector<double> fy = analysis::member_yield_strengths(model, chains);
   for (std::size_t m = 0; m < chains.size(); ++m) {
@@ -55,11 +56,12 @@ std::string view_data(const Analysis& a) {
     for (std::size_t e : chains[m].elements) path += "," + std::to_string(model.elements[e].nodes[1]);
     const double length = member_length(model, chains[m]);
     const auto* g = m < governing.size() ? governing[m] : nullptr;
-    fmt::format_to(out, "{}{{\"id\":{},\"label\":{},\"section\":{},\"material\":{},\"length\":{},\"path\":[{}],\"u\":{}{}}}",
-                     m ? "," : "", m, quoted(m < a.built.member_sources.size() ? member_label(a, m) : ""),
-                     quoted(model.sections[el.section].designation), quoted(model.materials[el.material].name),
-                     n5(length), path, g ? n5(g->utilisation) : "null",
-                     has_sheet[m] ? ",\"sheet\":" + quoted(sheet_anchor(m)) : "");
+    fmt::format_to(out,
+                   "{}{{\"id\":{},\"label\":{},\"section\":{},\"material\":{},\"length\":{},\"path\":[{}],\"u\":{}{}}}",
+                   m ? "," : "", m, quoted(m < a.built.member_sources.size() ? member_label(a, m) : ""),
+                   quoted(model.sections[el.section].designation), quoted(model.materials[el.material].name),
+                   n5(length), path, g ? n5(g->utilisation) : "null",
+                   has_sheet[m] ? ",\"sheet\":" + quoted(sheet_anchor(m)) : "");
   }
   d += "],\"results\":[";
   for (std::size_t r = 0; r < a.results.size(); ++r) {
@@ -87,9 +89,10 @@ std::string view_data(const Analysis& a) {
   std::vector<std::string> checks(chains.size());
   for (const auto& c : a.checks)
     if (c.member < checks.size())
-      fmt::format_to(std::back_inserter(checks[c.member]), "{}[{},{},{},{},{},{}]", checks[c.member].empty() ? "" : ",", quoted(c.check),
-                                      quoted(c.combination), quoted(with_unit(c.value, c.unit, a.project)),
-                                      quoted(with_unit(c.limit, c.unit, a.project)), n5(c.utilisation), c.pass ? "true" : "false");
+      fmt::format_to(std::back_inserter(checks[c.member]), "{}[{},{},{},{},{},{}]",
+                     checks[c.member].empty() ? "" : ",", quoted(c.check), quoted(c.combination),
+                     quoted(with_unit(c.value, c.unit, a.project)), quoted(with_unit(c.limit, c.unit, a.project)),
+                     n5(c.utilisation), c.pass ? "true" : "false");
   d += "],\"checks\":[";
   for (std::size_t m = 0; m < checks.size(); ++m) {
     d += m ? ",[" : "[";
