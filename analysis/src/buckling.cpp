@@ -12,10 +12,10 @@
 #include <Eigen/Eigenvalues>
 #include <Spectra/SymGEigsSolver.h>
 #include <spdlog/spdlog.h>
+#include <spdlog/stopwatch.h>
 
 #include <algorithm>
 #include <array>
-#include <chrono>
 #include <cmath>
 #include <exception>
 #include <limits>
@@ -29,10 +29,6 @@ namespace {
 
 using Sparse = Eigen::SparseMatrix<double>;
 constexpr double pi = std::numbers::pi;
-
-double seconds_since(std::chrono::steady_clock::time_point start) {
-  return std::chrono::duration<double>(std::chrono::steady_clock::now() - start).count();
-}
 
 // B = K for Spectra's regular-inverse mode: y = K x and y = K^-1 x, one
 // vector at a time (Spectra) or a block of them (subspace iteration).
@@ -243,7 +239,7 @@ Eigen::MatrixXd start_block(const Eigen::MatrixXd& given, Eigen::Index rows, Eig
 template <class Op>
 std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eigen::MatrixXd v, std::size_t modes,
                                              double tolerance) {
-  const auto started = std::chrono::steady_clock::now();
+  const spdlog::stopwatch started;
   const Eigen::Index m = v.cols(), nev = std::min<Eigen::Index>(static_cast<Eigen::Index>(modes), m - 1);
   Eigen::VectorXd previous;
   for (int it = 1; it <= 60; ++it) {
@@ -265,7 +261,7 @@ std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eige
     previous = mu;
     if (!converged) continue;
     spdlog::debug("buckling: {} DOFs, {} block iterations of {} vectors, {:.3f} s", v.rows(), it, m,
-                  seconds_since(started));
+                  started.elapsed().count());
     Eigenpairs out;
     for (Eigen::Index k = 0; k < nev && mu(k) > 0; ++k) out.alpha.push_back(1.0 / mu(k));
     out.vectors = v.leftCols(static_cast<Eigen::Index>(out.alpha.size()));
@@ -278,7 +274,7 @@ std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eige
 template <class Op>
 std::optional<Eigenpairs> lowest_alphas(const Op& op, const Sparse& g_free, std::size_t modes, double tolerance,
                                         const Eigen::VectorXd* start) {
-  const auto started = std::chrono::steady_clock::now();
+  const spdlog::stopwatch started;
   using BOp = SpectraAdapter<Op>;
   BOp b_op{op};
   const Eigen::Index n = b_op.rows();
@@ -301,7 +297,7 @@ std::optional<Eigenpairs> lowest_alphas(const Op& op, const Sparse& g_free, std:
     return std::nullopt;
   }
   spdlog::debug("buckling: {} DOFs, {} Lanczos restarts, {} operator products, {:.3f} s", n,
-                solver.num_iterations(), solver.num_operations(), seconds_since(started));
+                solver.num_iterations(), solver.num_operations(), started.elapsed().count());
   const Eigen::VectorXd mu = solver.eigenvalues();
   const Eigen::MatrixXd vectors = solver.eigenvectors();
   Eigenpairs out;
