@@ -163,11 +163,14 @@ bool compresses(const Mesh& mesh, const std::vector<double>& forces) {
   return false;
 }
 
-// -Kg of the mesh for the given part forces, reduced to the free DOFs.
+// -Kg of the mesh for the given part forces, reduced to the free DOFs: its lower
+// triangle only (the matrix is symmetric; every product takes it through
+// selfadjointView<Lower>, as Spectra's SparseSymMatProd does), which halves
+// what the largest frames hold for it and build it from.
 Sparse negative_geometric_stiffness(const Mesh& mesh, const std::vector<double>& forces, const DofNumbering& dofs) {
   const FrameModel& m = mesh.model;
   std::vector<Eigen::Triplet<double>> triplets;
-  triplets.reserve(64 * m.elements.size());
+  triplets.reserve(40 * m.elements.size());  // 78 at most in an element's lower triangle; some 36 when axis-aligned
   for (std::size_t p = 0; p < m.elements.size(); ++p) {
     if (forces[p] == 0.0) continue;
     const FrameElement& el = m.elements[p];
@@ -192,7 +195,7 @@ Sparse negative_geometric_stiffness(const Mesh& mesh, const std::vector<double>&
         const double v = -kg(i, j);
         if (v == 0.0) continue;
         const Eigen::Index c = dofs.free_index[static_cast<std::size_t>(global_dof(el.nodes[static_cast<std::size_t>(j / 6)], j % 6))];
-        if (c >= 0) triplets.emplace_back(r, c, v);
+        if (c >= 0 && c <= r) triplets.emplace_back(r, c, v);
       }
     }
   }
@@ -243,9 +246,9 @@ std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eige
   const Eigen::Index m = v.cols(), nev = std::min<Eigen::Index>(static_cast<Eigen::Index>(modes), m - 1);
   Eigen::VectorXd previous;
   for (int it = 1; it <= 60; ++it) {
-    const Eigen::MatrixXd gv = g * v;
+    const Eigen::MatrixXd gv = g.selfadjointView<Eigen::Lower>() * v;
     const Eigen::MatrixXd w = op.solve(gv);
-    Eigen::MatrixXd a = w.transpose() * (g * w), b = w.transpose() * gv;
+    Eigen::MatrixXd a = w.transpose() * (g.selfadjointView<Eigen::Lower>() * w), b = w.transpose() * gv;
     a = 0.5 * (a + a.transpose()).eval();
     b = 0.5 * (b + b.transpose()).eval();
     const Eigen::GeneralizedSelfAdjointEigenSolver<Eigen::MatrixXd> rr(a, b);
@@ -279,10 +282,10 @@ std::optional<Eigenpairs> lowest_alphas(const Op& op, const Sparse& g_free, std:
   BOp b_op{op};
   const Eigen::Index n = b_op.rows();
   if (n < 2) return std::nullopt;
-  Spectra::SparseSymMatProd<double> a_op(g_free);
+  Spectra::SparseSymMatProd<double, Eigen::Lower> a_op(g_free);  // g_free holds the lower triangle
   const auto nev = static_cast<Eigen::Index>(std::min<std::size_t>(modes, static_cast<std::size_t>(n - 1)));
   const Eigen::Index ncv = std::min<Eigen::Index>(n, std::max<Eigen::Index>(2 * nev + 1, 20));
-  Spectra::SymGEigsSolver<Spectra::SparseSymMatProd<double>, BOp, Spectra::GEigsMode::RegularInverse> solver(
+  Spectra::SymGEigsSolver<Spectra::SparseSymMatProd<double, Eigen::Lower>, BOp, Spectra::GEigsMode::RegularInverse> solver(
       a_op, b_op, nev, ncv);
   try {
     if (start && start->size() == n && start->norm() > 0) solver.init(start->data());
