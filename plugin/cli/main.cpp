@@ -199,11 +199,12 @@ int main(int argc, char** argv) {
   run->add_flag("--timings", run_timings, "Print each stage's wall time on stderr after the run");
   std::optional<stepframe::VtkSelection> run_vtk;
   const std::map<std::string, stepframe::VtkSelection> vtk_choices{
-      {"all", stepframe::VtkSelection::all}, {"governing", stepframe::VtkSelection::governing},
-      {"none", stepframe::VtkSelection::none}};
+      {"all", stepframe::VtkSelection::all}, {"combinations", stepframe::VtkSelection::combinations},
+      {"governing", stepframe::VtkSelection::governing}, {"none", stepframe::VtkSelection::none}};
   run->add_option("--vtk", run_vtk,
-                  "VTK files for every result (all), for the governing combinations (governing) or none, "
-                  "whatever the project's outputs: block says")
+                  "VTK files for every result and sway variant (all), every case and combination with its governing "
+                  "sway variant (combinations), the governing combinations (governing) or none, whatever the "
+                  "project's outputs: block says")
       ->transform(CLI::CheckedTransformer(vtk_choices, CLI::ignore_case));
 
   std::filesystem::path run_baseline;

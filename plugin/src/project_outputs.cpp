@@ -12,9 +12,10 @@ namespace {
 VtkSelection read_selection(const Reader& r, const YAML::Node& node, const std::string& key) {
   const std::string value = r.text(node, key);
   if (value == "all") return VtkSelection::all;
+  if (value == "combinations") return VtkSelection::combinations;
   if (value == "governing") return VtkSelection::governing;
   if (value == "none") return VtkSelection::none;
-  r.fail(node, key, "expected all, governing or none, got '" + value + "'");
+  r.fail(node, key, "expected all, combinations, governing or none, got '" + value + "'");
 }
 
 }  // namespace

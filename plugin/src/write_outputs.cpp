@@ -14,6 +14,7 @@
 #include <cerrno>
 #include <fstream>
 #include <future>
+#include <map>
 #include <optional>
 #include <set>
 
@@ -29,6 +30,39 @@ std::string file_stem(const std::string& name, std::set<std::string>& used) {
   std::string unique = stem;
   for (int i = 2; !used.insert(unique).second; ++i) unique = stem + "_" + std::to_string(i);
   return unique;
+}
+
+// The results a `combinations` selection leaves out: every sway-imperfection variant of a
+// combination but the one that governs it, i.e. carries the largest utilisation of a member check
+// among the combination's variants (each check names the result that governs it; when no check names
+// a variant, the variant with the largest von Mises stress of a member).
+std::vector<bool> ungoverning_variants(const Analysis& analysis) {
+  std::vector<bool> left_out(analysis.results.size(), false);
+  std::map<std::string, std::size_t> index;
+  for (std::size_t i = 0; i < analysis.results.size(); ++i) index.emplace(analysis.results[i].name, i);
+  std::map<std::size_t, double> utilisation;  // of each result named by a member check
+  for (const auto& c : analysis.checks)
+    if (c.member != analysis::whole_frame)
+      if (const auto it = index.find(c.combination); it != index.end())
+        utilisation[it->second] = std::max(utilisation[it->second], c.utilisation);
+  auto largest_stress = [&](std::size_t i) {
+    double s = 0;
+    for (const auto& m : analysis.results[i].members) s = std::max(s, m.max_von_mises);
+    return s;
+  };
+  std::map<std::string, std::vector<std::size_t>> variants;  // of each combination
+  for (const auto& record : analysis.sway_imperfections)
+    for (const auto& name : record.variants)
+      if (const auto it = index.find(name); it != index.end()) variants[record.combination].push_back(it->second);
+  for (const auto& [combination, list] : variants) {
+    const bool checked = std::any_of(list.begin(), list.end(), [&](std::size_t i) { return utilisation.count(i) > 0; });
+    auto measure = [&](std::size_t i) { return checked ? (utilisation.count(i) ? utilisation[i] : -1.0) : largest_stress(i); };
+    std::size_t kept = list.front();
+    for (std::size_t i : list)
+      if (measure(i) > measure(kept)) kept = i;  // the first of equals: the order the variants were made in
+    for (std::size_t i : list) left_out[i] = i != kept;
+  }
+  return left_out;
 }
 
 }  // namespace
@@ -95,10 +129,16 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
   for (const auto& c : analysis.checks)
     if (c.member != analysis::whole_frame) utilisation[c.member] = std::max(utilisation[c.member], c.utilisation);
   const std::vector<std::size_t> governing = governing_results(analysis);
+  const std::vector<bool> left_out = ungoverning_variants(analysis);
   auto wanted = [&](VtkSelection selection, std::size_t result) {
-    return selection == VtkSelection::all ||
-           (selection == VtkSelection::governing &&
-            std::find(governing.begin(), governing.end(), result) != governing.end());
+    const bool governs = std::find(governing.begin(), governing.end(), result) != governing.end();
+    switch (selection) {
+      case VtkSelection::all: return true;
+      case VtkSelection::combinations: return governs || !left_out[result];
+      case VtkSelection::governing: return governs;
+      case VtkSelection::none: return false;
+    }
+    return false;
   };
   // Four writers run side by side, each with files of its own: the report (its pictures on a thread of
   // their own), the tables, results.json, and the VTK files on this thread. They read the analysis only

@@ -202,17 +202,21 @@ struct ChecksSpec {
 
 /// Which results a kind of VTK file is written for.
 enum class VtkSelection {
-  all,        ///< every case and combination
+  all,        ///< every case and combination, and every sway-imperfection variant of a combination
+  /// Every case and combination, and of a combination's sway-imperfection variants (EN 1993-1-1 5.3.2)
+  /// the one that governs it (its largest member utilisation), besides the governing results.
+  combinations,
   governing,  ///< the combinations that govern: the largest member utilisation and the lowest alpha_cr
   none,
 };
 
 /// What a run writes besides results.json, the tables and the report (the
 /// `outputs:` block). The defaults keep a building-sized run's folder small:
-/// line models for every result, surfaces and buckling modes for the
+/// line models for every case and combination (of a combination's sway
+/// variants the governing one), surfaces and buckling modes for the
 /// governing combinations only.
 struct OutputsSpec {
-  VtkSelection line_models = VtkSelection::all;          ///< outputs.line_models
+  VtkSelection line_models = VtkSelection::combinations;  ///< outputs.line_models
   VtkSelection surfaces = VtkSelection::governing;       ///< outputs.surfaces
   VtkSelection buckling_modes = VtkSelection::governing;  ///< outputs.buckling_modes
   viz::VtkCompression compression = viz::VtkCompression::lz4;  ///< outputs.compression
