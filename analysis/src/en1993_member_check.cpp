@@ -9,6 +9,8 @@
 
 #include <algorithm>
 #include <array>
+#include <optional>
+#include <string_view>
 #include <cmath>
 #include <map>
 #include <numbers>
@@ -109,7 +111,18 @@ CheckResult result(const std::string& check, std::string clause, double station,
 }  // namespace
 
 std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& line, const std::string& combination,
-                                      const PartialFactors& f, const LateralTorsionalOptions& ltb) {
+                                      const PartialFactors& f, const LateralTorsionalOptions& ltb,
+                                      const std::vector<CheckResult>* kept) {
+  // Whether a result of `check` with this value and limit is wanted: without `kept` always, else
+  // only when it would replace the one kept (keep_worst keeps the first of equals). The others
+  // are left out before their words are formatted.
+  auto wanted = [kept](std::string_view check, double value, double limit) {
+    if (!kept) return true;
+    const double u = limit > 0 ? value / limit : 0.0;  // as result() below
+    for (const CheckResult& k : *kept)
+      if (k.check == check) return u > k.utilisation;
+    return true;
+  };
   const Section& s = *in.section;
   const double fy = in.material.fy, E = in.material.E, G = in.material.G;
   const double L = in.length;
@@ -159,29 +172,31 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
       if (uv > worst_shear) worst_shear = uv, shear_worst = {st.x, Vy, Vz, VplY, VplZ};
     }
   }
-  if (class_station)
+  if (class_station && wanted("5.5 classification", worst_class, 1.0))
     out.push_back(result("5.5 classification",
                          fmt::format("EN 1993-1-1 5.5, Table 5.2: class {} ({}); class 4 needs effective properties "
                                      "(EN 1993-1-5), not covered",
                                      class_worst.section_class, class_worst.governing_part),
                          class_station->x, worst_class, 1.0));
-  const auto& w = section_worst.at;
-  CheckResult section_check = result("6.2 cross-section",
-                                     fmt::format("EN 1993-1-1 {}, with 6.2.8 shear; class {} ({})",
-                                                 section_worst.plastic ? "6.2.9.1 (6.36)-(6.41), plastic N + My + Mz"
-                                                                       : "6.2.1(7) eq. (6.2), N + My + Mz",
-                                                 section_worst.cls.section_class, section_worst.cls.governing_part),
-                                     section_worst.x, worst_section, 1.0);
-  section_check.details = {{"class", section_worst.cls.section_class},
-                           {"N_Ed", w[0]},
-                           {"My_Ed", w[1]},
-                           {"Mz_Ed", w[2]},
-                           {"N_Rd", w[3]},
-                           {"My_Rd", w[4]},
-                           {"Mz_Rd", w[5]},
-                           {"u_linear", w[6]}};
-  out.push_back(std::move(section_check));
-  if (worst_shear >= 0) {
+  if (wanted("6.2 cross-section", worst_section, 1.0)) {
+    const auto& w = section_worst.at;
+    CheckResult section_check = result("6.2 cross-section",
+                                       fmt::format("EN 1993-1-1 {}, with 6.2.8 shear; class {} ({})",
+                                                   section_worst.plastic ? "6.2.9.1 (6.36)-(6.41), plastic N + My + Mz"
+                                                                         : "6.2.1(7) eq. (6.2), N + My + Mz",
+                                                   section_worst.cls.section_class, section_worst.cls.governing_part),
+                                       section_worst.x, worst_section, 1.0);
+    section_check.details = {{"class", section_worst.cls.section_class},
+                             {"N_Ed", w[0]},
+                             {"My_Ed", w[1]},
+                             {"Mz_Ed", w[2]},
+                             {"N_Rd", w[3]},
+                             {"My_Rd", w[4]},
+                             {"Mz_Rd", w[5]},
+                             {"u_linear", w[6]}};
+    out.push_back(std::move(section_check));
+  }
+  if (worst_shear >= 0 && wanted("6.2.6 shear", worst_shear, 1.0)) {
     CheckResult shear = result("6.2.6 shear", "EN 1993-1-1 6.2.6 eq. (6.17), plastic shear resistance",
                                shear_worst[0], worst_shear, 1.0);
     shear.details = {{"Vy_Ed", shear_worst[1]},
@@ -205,8 +220,8 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   const double lambda_z = std::sqrt(NRk / (pi * pi * E * s.Iz / (Lz * Lz)));
   const double chi_y = reduction_factor(lambda_y, curves.y), chi_z = reduction_factor(lambda_z, curves.z);
 
-  if (NEd > 0) {
-    const double NbRd = std::min(chi_y, chi_z) * NRk / f.gamma_M1;  // (6.47)
+  if (const double NbRd = std::min(chi_y, chi_z) * NRk / f.gamma_M1;  // (6.47)
+      NEd > 0 && wanted("6.3.1 flexural buckling", NEd, NbRd)) {
     CheckResult r = result("6.3.1 flexural buckling",
                            fmt::format("EN 1993-1-1 6.3.1, curves {}/{} (y/z), chi_y = {:.3f}, chi_z = {:.3f}, "
                                        "Lcr = {:.3g}/{:.3g} m",
@@ -227,12 +242,13 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double Ncr = torsional_flexural_critical_force(s, E, G, Ly, Lz, lT);
     const double lambda_t = std::sqrt(NRk / Ncr);  // (6.52)
     chi_t = reduction_factor(lambda_t, curves.z);
-    out.push_back(result("6.3.1.4 torsional buckling",
-                         fmt::format("EN 1993-1-1 6.3.1.4, {} buckling, Ncr = {:.4g} kN (EN 1993-1-3 6.2.3), "
-                                     "curve {}, chi = {:.3f}, lT = {:.3g} m",
-                                     shear_centre_off_centroid(s) ? "torsional-flexural" : "torsional", Ncr / 1e3, curve_name(curves.z),
-                                     chi_t, lT),
-                         line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1, "N"));
+    if (wanted("6.3.1.4 torsional buckling", NEd, chi_t * NRk / f.gamma_M1))
+      out.push_back(result("6.3.1.4 torsional buckling",
+                           fmt::format("EN 1993-1-1 6.3.1.4, {} buckling, Ncr = {:.4g} kN (EN 1993-1-3 6.2.3), "
+                                       "curve {}, chi = {:.3f}, lT = {:.3g} m",
+                                       shear_centre_off_centroid(s) ? "torsional-flexural" : "torsional", Ncr / 1e3, curve_name(curves.z),
+                                       chi_t, lT),
+                           line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1, "N"));
   }
 
   const int cls_member = classify(s, fy, -NEd, my.peak).section_class;
@@ -245,21 +261,15 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const bool ends_only = std::abs(in.buckling.lt - 1.0) < 1e-12;
     std::vector<DiagramPoint> points;
     double Mcr = 0;
-    std::string basis;
     if (ends_only) {
       // Restrained at the member ends only: Mcr of the member's own moment diagram (energy method).
       points.reserve(line.stations.size());
       for (const Station& st : line.stations) points.push_back({st.x, st.forces(My_), st.forces(Vz_)});
       Mcr = critical_moment_of({E, G, s.Iz, s.Iw, s.J}, in, points, zg);
-      basis = fmt::format("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and no "
-                          "restraint between{}",
-                          lT, my.linear ? "" : "; span loads on the top flange (conservative default)");
     } else {
       // Restraints inside the member: the diagram between them is not known here, so uniform moment (C1 = 1,
       // the lowest) over the unrestrained length is the conservative default.
       Mcr = critical_moment(E, G, s.Iz, s.Iw, s.J, lT, 1.0, my.linear ? 0.0 : 0.454, zg);
-      basis = fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", lT,
-                          my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
     }
     const double lambda_lt = std::sqrt(Wy * fy / Mcr);  // (6.56)
     // 6.3.2.3 where the options ask for it and the section is an I section; 6.3.2.2 otherwise.
@@ -274,10 +284,8 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double phi_lt = 0.5 * (1 + alpha_lt * (lambda_lt - lambda_0) + beta * lambda_lt * lambda_lt);
     chi_lt = rolled_curve ? reduction_factor_rolled(lambda_lt, curve, lambda_0, beta)
                           : (lambda_lt <= 0.2 ? 1.0 : reduction_factor(lambda_lt, curve));  // 6.3.2.2(4)
-    std::vector<std::pair<std::string, double>> details{
-        {"Mcr", Mcr},          {"W_y", Wy},      {"lambda_LT", lambda_lt}, {"alpha_LT", alpha_lt},
-        {"lambda_LT_0", lambda_0}, {"beta", beta}, {"Phi_LT", phi_lt},     {"chi_LT", chi_lt}};
-    std::string modification;
+    const double chi_lt_unmodified = chi_lt;
+    std::optional<std::array<double, 2>> modified;  // kc, f of 6.3.2.3(2)
     if (rolled_curve && ltb.f_modification) {
       // 6.3.2.3(2): kc of Table 6.6 from the diagram; C1 (for curved diagrams) with the load at the shear centre.
       double C1 = 1.0;
@@ -287,20 +295,33 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
       const double kc = ends_only ? correction_factor_kc(my.linear, my.psi, C1) : 1.0;
       const double f_mod = modification_factor_f(kc, lambda_lt);
       chi_lt = std::min({chi_lt / f_mod, 1.0, 1.0 / (lambda_lt * lambda_lt)});  // (6.58)
-      details.insert(details.end(), {{"kc", kc}, {"f", f_mod}, {"chi_LT_mod", chi_lt}});
-      modification = fmt::format(", f = {:.3f} (kc = {:.3f}, 6.58)", f_mod, kc);
+      modified = {kc, f_mod};
     }
     const double MbRd = chi_lt * Wy * fy / f.gamma_M1;  // (6.55)
-    details.insert(details.end(), {{"M_Ed", my.peak}, {"M_b_Rd", MbRd}});
-    CheckResult r = result(
-        "6.3.2 lateral-torsional buckling",
-        fmt::format("EN 1993-1-1 {}{}, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}{}; {}", method_name(method),
-                    ltb.method == LateralTorsionalMethod::rolled && !rolled_curve ? " (6.3.2.3 covers I sections only)"
-                                                                                  : "",
-                    curve_name(curve), Mcr / 1e3, chi_lt, modification, basis),
-        line.stations[my.peak_station].x, my.peak, MbRd, "N*m");
-    r.details = std::move(details);
-    out.push_back(std::move(r));
+    if (wanted("6.3.2 lateral-torsional buckling", my.peak, MbRd)) {
+      std::vector<std::pair<std::string, double>> details{
+          {"Mcr", Mcr},          {"W_y", Wy},      {"lambda_LT", lambda_lt}, {"alpha_LT", alpha_lt},
+          {"lambda_LT_0", lambda_0}, {"beta", beta}, {"Phi_LT", phi_lt},     {"chi_LT", chi_lt_unmodified}};
+      if (modified) details.insert(details.end(), {{"kc", (*modified)[0]}, {"f", (*modified)[1]}, {"chi_LT_mod", chi_lt}});
+      details.insert(details.end(), {{"M_Ed", my.peak}, {"M_b_Rd", MbRd}});
+      const std::string basis =
+          ends_only ? fmt::format("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and "
+                                  "no restraint between{}",
+                                  lT, my.linear ? "" : "; span loads on the top flange (conservative default)")
+                    : fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", lT,
+                                  my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
+      const std::string modification =
+          modified ? fmt::format(", f = {:.3f} (kc = {:.3f}, 6.58)", (*modified)[1], (*modified)[0]) : std::string();
+      CheckResult r = result(
+          "6.3.2 lateral-torsional buckling",
+          fmt::format("EN 1993-1-1 {}{}, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}{}; {}", method_name(method),
+                      ltb.method == LateralTorsionalMethod::rolled && !rolled_curve ? " (6.3.2.3 covers I sections only)"
+                                                                                    : "",
+                      curve_name(curve), Mcr / 1e3, chi_lt, modification, basis),
+          line.stations[my.peak_station].x, my.peak, MbRd, "N*m");
+      r.details = std::move(details);
+      out.push_back(std::move(r));
+    }
   }
 
   if (NEd > 0) {
@@ -328,30 +349,32 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double MyRk = Wy * fy, MzRk = Wz * fy;
     const double u61 = n_y + kyy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kyz * mz.peak / (MzRk / f.gamma_M1);
     const double u62 = n_z + kzy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kzz * mz.peak / (MzRk / f.gamma_M1);
-    CheckResult r = result("6.3.3 interaction",
-                           fmt::format("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
-                                       "kzz = {:.3f}, Cmy = {:.2f}, Cmz = {:.2f}",
-                                       u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy, Cmz),
-                           line.stations[my.peak_station].x, std::max(u61, u62), 1.0);
-    r.details = {{"N_Ed", NEd},
-                 {"M_y_Ed", my.peak},
-                 {"M_z_Ed", mz.peak},
-                 {"chi_y", chi_y},
-                 {"chi_z", std::min(chi_z, chi_t)},
-                 {"chi_LT", chi_lt},
-                 {"N_b_y_Rd", chi_y * NRk / f.gamma_M1},
-                 {"N_b_z_Rd", std::min(chi_z, chi_t) * NRk / f.gamma_M1},
-                 {"M_b_Rd", chi_lt * MyRk / f.gamma_M1},
-                 {"C_my", Cmy},
-                 {"C_mz", Cmz},
-                 {"C_mLT", Cmlt},
-                 {"k_yy", kyy},
-                 {"k_yz", kyz},
-                 {"k_zy", kzy},
-                 {"k_zz", kzz},
-                 {"eq_6_61", u61},
-                 {"eq_6_62", u62}};
-    out.push_back(std::move(r));
+    if (wanted("6.3.3 interaction", std::max(u61, u62), 1.0)) {
+      CheckResult r = result("6.3.3 interaction",
+                             fmt::format("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
+                                         "kzz = {:.3f}, Cmy = {:.2f}, Cmz = {:.2f}",
+                                         u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy, Cmz),
+                             line.stations[my.peak_station].x, std::max(u61, u62), 1.0);
+      r.details = {{"N_Ed", NEd},
+                   {"M_y_Ed", my.peak},
+                   {"M_z_Ed", mz.peak},
+                   {"chi_y", chi_y},
+                   {"chi_z", std::min(chi_z, chi_t)},
+                   {"chi_LT", chi_lt},
+                   {"N_b_y_Rd", chi_y * NRk / f.gamma_M1},
+                   {"N_b_z_Rd", std::min(chi_z, chi_t) * NRk / f.gamma_M1},
+                   {"M_b_Rd", chi_lt * MyRk / f.gamma_M1},
+                   {"C_my", Cmy},
+                   {"C_mz", Cmz},
+                   {"C_mLT", Cmlt},
+                   {"k_yy", kyy},
+                   {"k_yz", kyz},
+                   {"k_zy", kzy},
+                   {"k_zz", kzz},
+                   {"eq_6_61", u61},
+                   {"eq_6_62", u62}};
+      out.push_back(std::move(r));
+    }
   }
   for (auto& r : out) r.combination = combination, r.member = in.member;
   return out;
@@ -376,7 +399,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     for (const LoadResult* r : results) {
       const LineResult line = member_line(model, *r, chains[m], LineDetail::stations);
       in.length = line.length;
-      keep_worst(worst[m], check_member(in, line, r->name, factors, ltb));
+      keep_worst(worst[m], check_member(in, line, r->name, factors, ltb, &worst[m]));
     }
   });
   return flatten(std::move(worst));

@@ -263,7 +263,12 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
 /// Mcr, lambda_LT, alpha_LT, Phi_LT, chi_LT, M_b_Rd; the interaction: chi_y,
 /// chi_z, chi_LT, k_yy, k_yz, k_zy, k_zz, eq_6_61, eq_6_62). `ltb` chooses
 /// 6.3.2.2 or 6.3.2.3 for chi_LT; the LTB clause text names the one used.
+/// `kept`, when given, holds the results already kept for this member from
+/// other load results (keep_worst, worst_checks.hpp): a check that would not
+/// replace the kept one of its name (its utilisation not above it) is left
+/// out, without formatting its words, as keep_worst would drop it anyway.
 std::vector<CheckResult> check_member(const MemberInput& member, const LineResult& line, const std::string& combination,
-                                      const PartialFactors& factors, const LateralTorsionalOptions& ltb = {});
+                                      const PartialFactors& factors, const LateralTorsionalOptions& ltb = {},
+                                      const std::vector<CheckResult>* kept = nullptr);
 
 }  // namespace stepframe::analysis::en1993
