@@ -56,7 +56,11 @@ std::vector<bool> ungoverning_variants(const Analysis& analysis) {
       if (const auto it = index.find(name); it != index.end()) variants[record.combination].push_back(it->second);
   for (const auto& [combination, list] : variants) {
     const bool checked = std::any_of(list.begin(), list.end(), [&](std::size_t i) { return utilisation.count(i) > 0; });
-    auto measure = [&](std::size_t i) { return checked ? (utilisation.count(i) ? utilisation[i] : -1.0) : largest_stress(i); };
+    auto measure = [&](std::size_t i) {
+      if (!checked) return largest_stress(i);
+      const auto it = utilisation.find(i);
+      return it != utilisation.end() ? it->second : -1.0;
+    };
     std::size_t kept = list.front();
     for (std::size_t i : list)
       if (measure(i) > measure(kept)) kept = i;  // the first of equals: the order the variants were made in
