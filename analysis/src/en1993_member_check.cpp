@@ -9,11 +9,11 @@
 
 #include <algorithm>
 #include <array>
-#include <optional>
-#include <string_view>
 #include <cmath>
 #include <map>
 #include <numbers>
+#include <optional>
+#include <string_view>
 
 namespace stepframe::analysis::en1993 {
 namespace {
