@@ -28,9 +28,9 @@ inline constexpr double wide_factorisation_flops = 2e10;
 /// Factorises the free-free stiffness once (CHOLMOD supernodal L L^T, ordered
 /// by CHOLMOD's nested dissection (METIS separators) of the graph of the
 /// nodes, each node's DOFs kept together) and then solves any number of
-/// right-hand sides, several at once as the columns of a matrix. The pivots (L_kk^2) are checked
-/// for mechanisms; when CHOLMOD stops on a non-positive pivot, a simplicial
-/// L D L^T of the same matrix names the free directions.
+/// right-hand sides, several at once as the columns of a matrix. The pivots
+/// (L_kk^2) are checked for mechanisms; when CHOLMOD stops on a non-positive
+/// pivot, a simplicial L D L^T of the same matrix names the free directions.
 class StiffnessFactor {
  public:
   /// Throws UnstableFrame naming each node and direction whose pivot vanishes
