@@ -389,7 +389,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     if (m < buckling.size()) in.buckling = buckling[m];
     in.cantilever = (ends[start] == 1) != (ends[end] == 1);
     for (std::size_t i = 0; i < results.size(); ++i) {
-      const LineResult line = member_line(model, *results[i], chains[m], LineDetail::stations);
+      const LineResult line = member_line(model, *results[i], chains[m], LineDetail::forces);
       in.length = line.length;
       in.B2 = b2[i];
       keep_worst(worst[m], check_member(in, line, results[i]->name, method));

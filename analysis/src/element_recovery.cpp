@@ -119,6 +119,25 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   const Recovery ends = solve_ends(s);
   const Vector6d f0 = ends.end.head<6>();
   const Vector6d d0 = ends.u.head<6>();
+  LineResult result;
+  result.length = L;
+  result.stations.reserve(stations);
+  auto station_x = [&](std::size_t k) {  // the last station exactly at L (no rounding drift)
+    return k + 1 == stations ? L : L * static_cast<double>(k) / static_cast<double>(stations - 1);
+  };
+  if (detail == LineDetail::forces && !s.second_order) {
+    // First order: the forces follow from the start actions and the loads alone (statics).
+    for (std::size_t k = 0; k < stations; ++k) {
+      Station st;
+      st.x = station_x(k);
+      st.position = s.origin + st.x * s.axes.row(0).transpose();
+      st.forces = internal_forces_at(f0, s.loads, st.x);
+      result.stations.push_back(st);
+    }
+    result.start_forces = result.stations.front().forces;
+    result.end_forces = result.stations.back().forces;
+    return result;
+  }
   // The beam equations carried from the start end at the far end agree with the
   // end displacements up to rounding in first order; in second order the
   // element's P-delta makes them differ slightly, and the difference is spread
@@ -147,12 +166,8 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
     return forces_with(x, s.second_order ? displacement_local(x) : start_displacement);
   };
 
-  LineResult result;
-  result.length = L;
-  result.stations.reserve(stations);
   for (std::size_t k = 0; k < stations; ++k) {
-    // Last station exactly at L (no rounding drift).
-    const double x = k + 1 == stations ? L : L * static_cast<double>(k) / static_cast<double>(stations - 1);
+    const double x = station_x(k);
     Station st;
     st.x = x;
     st.position = s.origin + x * s.axes.row(0).transpose();
@@ -170,7 +185,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   }
   result.start_forces = result.stations.front().forces;
   result.end_forces = result.stations.back().forces;
-  if (detail == LineDetail::stations) return result;
+  if (detail != LineDetail::full) return result;  // stations, or forces in second order
 
   // Candidate points of the extremes: ends, load breakpoints, and the zero
   // crossings of the shears (for moments) and of the load intensity (for

@@ -397,7 +397,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     DiagramIntegrals integrals;
     in.integrals = &integrals;
     for (const LoadResult* r : results) {
-      const LineResult line = member_line(model, *r, chains[m], LineDetail::stations);
+      const LineResult line = member_line(model, *r, chains[m], LineDetail::forces);
       in.length = line.length;
       keep_worst(worst[m], check_member(in, line, r->name, factors, ltb, &worst[m]));
     }

@@ -52,10 +52,10 @@ void inner_node_forces(JsonWriter& w, const analysis::FrameModel& model, const a
                        const analysis::Member& member) {
   w.key("inner_nodes").begin_array();
   double x = 0;
-  analysis::LineResult previous = analysis::element_line(model, r, member.elements.front(), 2, analysis::LineDetail::stations);
+  analysis::LineResult previous = analysis::element_line(model, r, member.elements.front(), 2, analysis::LineDetail::forces);
   for (std::size_t k = 1; k < member.elements.size(); ++k) {
     x += previous.length;
-    analysis::LineResult next = analysis::element_line(model, r, member.elements[k], 2, analysis::LineDetail::stations);
+    analysis::LineResult next = analysis::element_line(model, r, member.elements[k], 2, analysis::LineDetail::forces);
     w.begin_object();
     w.key("node").value(model.elements[member.elements[k]].nodes[0]);
     w.key("x").value(x);

@@ -5,6 +5,7 @@
 //    midspan deflection w L^4 / (384 E I), deflected shape w x^2 (L - x)^2 / (24 E I).
 
 #include "frame_fixtures.hpp"
+#include "stepframe/analysis/member_line.hpp"
 #include "stepframe/analysis/solve.hpp"
 
 #include "recovered_lines.hpp"
@@ -141,4 +142,45 @@ TEST_CASE("uniform load along local y bends the beam about z", "[analysis][udl]"
   CHECK(mid.displacement.y() == Approx(5 * w * L * L * L * L / (384 * m.E * s.Iz)).epsilon(tol));
   CHECK(std::abs(mid.forces(5)) == Approx(w * L * L / 8).epsilon(tol));
   CHECK(mid.max_abs_stress == Approx(w * L * L / 8 / s.Wz()).epsilon(tol));
+}
+
+TEST_CASE("the member checks' forces-only recovery gives the stations' forces alone", "[analysis][udl]") {
+  // Fixed-ended beam under uniform load: M(x) = w (6 L x - 6 x^2 - L^2) / 12, end moments w L^2 / 12
+  // (standard beam theory, common practice; sagging My < 0 as above).
+  const double L = 5.0, w = 8e3;
+  FrameModel model = test::single_member(V(0, 0, 0), V(L, 0, 0));
+  model.supports = {test::support(0, test::fixed_all), test::support(1, test::fixed_all)};
+  LoadCase lc;
+  lc.name = "uniform";
+  lc.element_loads = {ElementUniformLoad{0, V(0, 0, -w)}};
+  model.cases = {lc};
+  const auto results = solve(model);
+  const LineResult forces = element_line(model, results.at(0), 0, 11, LineDetail::forces);
+  const LineResult stations = element_line(model, results.at(0), 0, 11, LineDetail::stations);
+  REQUIRE(forces.stations.size() == 11);
+  for (std::size_t k = 0; k < forces.stations.size(); ++k) {
+    const Station& f = forces.stations[k];
+    const double x = f.x;
+    CHECK(x == stations.stations[k].x);
+    CHECK(f.position == stations.stations[k].position);
+    CHECK(f.forces == stations.stations[k].forces);  // the same arithmetic in first order
+    CHECK(-f.forces(4) == Approx(w * (6 * L * x - 6 * x * x - L * L) / 12).margin(1e-6));
+    CHECK(f.displacement.isZero(0.0));
+    CHECK(f.von_mises == 0.0);
+  }
+  CHECK(forces.start_forces == stations.start_forces);
+  CHECK(forces.end_forces == stations.end_forces);
+  CHECK(forces.length == L);
+
+  SECTION("in second order the forces need the deflected axis, so the stations are recovered whole") {
+    LoadResult second = results.at(0);
+    second.second_order_axial = {-2e5};  // an axial thrust [N] in the element's stiffness
+    const LineResult f2 = element_line(model, second, 0, 11, LineDetail::forces);
+    const LineResult s2 = element_line(model, second, 0, 11, LineDetail::stations);
+    for (std::size_t k = 0; k < f2.stations.size(); ++k) {
+      CHECK(f2.stations[k].forces == s2.stations[k].forces);
+      CHECK(f2.stations[k].displacement == s2.stations[k].displacement);
+    }
+    CHECK(f2.stations[5].displacement.z() < 0);  // the midspan sags: the deflected axis was recovered
+  }
 }

@@ -65,8 +65,10 @@ Vector12d element_end_actions(const ElementState& state);
 enum class LineDetail {
   full,      ///< stations, exact diagram extremes, stresses and local deflection (the summary)
   stations,  ///< the stations only (forces, displacements, stresses at each; end forces and
-             ///< length): what checks, pictures and VTK files read. The extremes, the
+             ///< length): what pictures and VTK files read. The extremes, the
              ///< largest stresses between stations and the local deflection are left at zero.
+  forces,    ///< the stations' positions and forces only (and end forces and length): what the
+             ///< member checks read. Displacements, rotations and stresses are left at zero.
 };
 
 /// End forces, `stations` evenly spaced stations (both ends included, at
