@@ -78,6 +78,8 @@ LineResult element_line(const FrameModel& model, const LoadResult& result, std::
 
 LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member, LineDetail detail,
                        std::size_t stations) {
+  // One element (most members): its line is the member's, with no copy of its stations.
+  if (member.elements.size() == 1) return element_line(model, result, member.elements.front(), stations, detail);
   std::vector<LineResult> parts;
   parts.reserve(member.elements.size());
   for (std::size_t e : member.elements) parts.push_back(element_line(model, result, e, stations, detail));
