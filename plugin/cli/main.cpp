@@ -35,7 +35,9 @@ constexpr const char* exit_statuses =
 
 // SIGINT and SIGTERM stop a run as a cancel does: the staging folder is
 // removed and the previous results stay. A second signal ends the process at
-// once (SA_RESETHAND). The command re-raises the signal when the run has stopped.
+// once (SA_RESETHAND). The command re-raises the signal when the run has stopped;
+// a signal after the run's last moment to stop (its results already replace the
+// earlier ones) stops nothing, and the command ends with the run's own status.
 std::atomic<bool> stop_requested{false};
 volatile std::sig_atomic_t stop_signal = 0;
 
@@ -53,10 +55,16 @@ void catch_stop_signals() {
   sigaction(SIGTERM, &action, nullptr);
 }
 
-// After a run a signal stopped: end as the signal would have ended us.
-void finish_if_signalled() {
+// After a run a signal stopped: end as the signal would have ended us. `results_written`: the run got past
+// its last moment to stop, and its results are in place.
+void finish_if_signalled(bool results_written) {
   if (stop_signal == 0) return;
   const int signal_number = stop_signal;
+  if (results_written) {
+    spdlog::warn("signal {} came after the results were complete and in place: they stand, and the run ends as usual",
+                 signal_number);
+    return;
+  }
   spdlog::error("stopped by signal {}: temporary files removed; earlier results, if any, are untouched", signal_number);
   std::signal(signal_number, SIG_DFL);
   std::raise(signal_number);
@@ -92,7 +100,7 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   catch_stop_signals();
   const auto outcome = stepframe::run_project(project, out, control, vtk);
   display.clear();
-  finish_if_signalled();
+  finish_if_signalled(outcome.analysis.has_value());  // an analysis in the outcome: its files are written
   if (timings) print_timings(display);
   const int status = static_cast<int>(outcome.status);
   if (!outcome.analysis) {

@@ -187,6 +187,51 @@ TEST_CASE("SIGINT or SIGTERM at any moment leaves the earlier results whole and 
   }
 }
 
+TEST_CASE("a signal after the new results replaced the old ones stops nothing: the run ends with its status") {
+  // The window between the folder's swap and the process' exit (the summary, the teardown) is short:
+  // the signal is sent the moment the new results.json shows, several times over.
+  test::ScratchDir dir;
+  write_model(dir, 40);
+  const auto out = dir / "out";
+  test::write_text(dir / "beam.yaml", project(2));
+  REQUIRE(test::run_stepframe("run " + quoted(dir / "beam.yaml") + " --out " + quoted(out), dir).status == 0);
+  int caught_running = 0;
+  for (int attempt = 0; attempt < 12; ++attempt) {
+    const std::string before = test::read_text(out / "results.json");
+    test::write_text(dir / "beam.yaml", project(attempt % 2 == 0 ? 3 : 2));
+    const pid_t child = ::fork();
+    REQUIRE(child >= 0);
+    if (child == 0) {
+      const int null = ::open("/dev/null", O_WRONLY);
+      ::dup2(null, 1);
+      ::dup2(null, 2);
+      ::execl(STEPFRAME_EXE, STEPFRAME_EXE, "run", (dir / "beam.yaml").c_str(), "--out", out.c_str(), nullptr);
+      ::_exit(127);
+    }
+    int status = 0;
+    pid_t done = 0;
+    std::error_code ec;
+    // Poll until the folder holds the new results (the swap is one rename) or the run has ended.
+    while ((done = ::waitpid(child, &status, WNOHANG)) == 0) {
+      if (fs::exists(out / "results.json", ec) && test::read_text(out / "results.json") != before) break;
+      std::this_thread::sleep_for(std::chrono::microseconds(200));
+    }
+    if (done == 0) {
+      ::kill(child, attempt % 2 == 0 ? SIGTERM : SIGINT);
+      ++caught_running;
+      REQUIRE(::waitpid(child, &status, 0) == child);
+    }
+    INFO("attempt " << attempt);
+    CHECK_FALSE(WIFSIGNALED(status));
+    CHECK(WIFEXITED(status));
+    CHECK(WEXITSTATUS(status) == 0);
+    CHECK(test::read_text(out / "results.json") != before);
+    CHECK(leftovers(dir.path()).empty());
+  }
+  INFO("runs signalled after their results were in place: " << caught_running);
+  CHECK(caught_running > 0);
+}
+
 TEST_CASE("an output file that cannot be written says disk full or not writable") {
   CHECK_THAT(detail::output_failure("/x/results.json", ENOSPC).what(), Contains("disk full"));
   CHECK_THAT(detail::output_failure("/x/results.json", EROFS).what(), Contains("not writable"));
