@@ -7,7 +7,7 @@
 #include <fmt/format.h>
 
 #include <algorithm>
-#include <limits>
+#include <iterator>
 #include <map>
 
 namespace stepframe {
@@ -16,6 +16,9 @@ namespace {
 using detail::csv_field;
 using detail::member_length;
 using detail::design_results;
+using detail::csv_name;
+using detail::end_force_envelope;
+using detail::EndForceEnvelope;
 
 std::string mark_of(const Analysis& a, std::size_t m) { return m < a.shop.marks.size() ? a.shop.marks[m] : ""; }
 double camber_of(const Analysis& a, std::size_t m) { return m < a.shop.camber.size() ? a.shop.camber[m] : 0.0; }
@@ -80,20 +83,15 @@ std::string connections_csv(const Analysis& a) {
     const auto& p = model.nodes[node];
     for (const auto& [m, end] : list) {
       const auto& src = a.built.member_sources[m];
-      out += fmt::format("{},{:.1f},{:.1f},{:.1f},{},{},{},{},{},{},{}", node, p.x() * 1e3, p.y() * 1e3, p.z() * 1e3,
+      fmt::format_to(std::back_inserter(out), "{},{:.1f},{:.1f},{:.1f},{},{},{},{},{},{},{}", node, p.x() * 1e3, p.y() * 1e3, p.z() * 1e3,
                          list.size(), m, csv_field(src.entity), csv_field(src.name), csv_field(mark_of(a, m)),
                          csv_field(model.sections[model.elements[model.members[m].elements.front()].section].designation),
                          end == 0 ? "start" : "end");
       for (int c = 0; c < 6; ++c) {
-        double high = -std::numeric_limits<double>::infinity(), low = std::numeric_limits<double>::infinity();
-        std::string high_by, low_by;
-        for (const auto* r : pool) {
-          const double v = (end == 0 ? r->members[m].start_forces : r->members[m].end_forces)(c);
-          if (v > high) high = v, high_by = r->name;
-          if (v < low) low = v, low_by = r->name;
-        }
+        const EndForceEnvelope e = end_force_envelope(pool, m, end, c);
         // Internal forces at the member end (results.hpp convention), kN and kN*m for people.
-        out += fmt::format(",{:.3f},{},{:.3f},{}", high / 1e3, csv_field(high_by), low / 1e3, csv_field(low_by));
+        fmt::format_to(std::back_inserter(out), ",{:.3f},{},{:.3f},{}", e.high / 1e3, csv_name(e.high_by), e.low / 1e3,
+                       csv_name(e.low_by));
       }
       out += "\n";
     }

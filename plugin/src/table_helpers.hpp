@@ -5,6 +5,7 @@
 #include "stepframe/analysis/results.hpp"
 
 #include <cstddef>
+#include <limits>
 #include <string>
 #include <vector>
 
@@ -37,5 +38,28 @@ inline std::vector<const analysis::LoadResult*> design_results(const std::vector
     for (const auto& r : results) pool.push_back(&r);
   return pool;
 }
+
+/// The largest and smallest of one end force component of a member over `pool`, and the results that
+/// give them (the first of equals; null when `pool` is empty).
+struct EndForceEnvelope {
+  double high = -std::numeric_limits<double>::infinity(), low = std::numeric_limits<double>::infinity();
+  const analysis::LoadResult *high_by = nullptr, *low_by = nullptr;
+};
+
+/// `end` 0 the member's start, 1 its end; `component` 0..5 as in results.hpp (N, Vy, Vz, T, My, Mz).
+inline EndForceEnvelope end_force_envelope(const std::vector<const analysis::LoadResult*>& pool, std::size_t member,
+                                           int end, int component) {
+  EndForceEnvelope e;
+  for (const auto* r : pool) {
+    const auto& line = r->members[member];
+    const double v = (end == 0 ? line.start_forces : line.end_forces)(component);
+    if (v > e.high) e.high = v, e.high_by = r;
+    if (v < e.low) e.low = v, e.low_by = r;
+  }
+  return e;
+}
+
+/// A result's name as a CSV field, empty for none.
+inline std::string csv_name(const analysis::LoadResult* result) { return result ? csv_field(result->name) : std::string(); }
 
 }  // namespace stepframe::detail

@@ -6,6 +6,7 @@
 
 #include <algorithm>
 #include <array>
+#include <iterator>
 #include <map>
 
 namespace stepframe {
@@ -14,6 +15,9 @@ namespace {
 using detail::csv_field;
 using detail::member_length;
 using detail::design_results;
+using detail::csv_name;
+using detail::end_force_envelope;
+using detail::EndForceEnvelope;
 
 const analysis::FrameElement& first_element(const analysis::FrameModel& model, std::size_t member) {
   return model.elements[model.members[member].elements.front()];
@@ -138,18 +142,11 @@ std::string end_forces_csv(const Analysis& a) {
   for (std::size_t m = 0; m < model.members.size(); ++m)
     for (int end = 0; end < 2; ++end)
       for (int c = 0; c < 6; ++c) {
-        double high = -std::numeric_limits<double>::infinity(), low = std::numeric_limits<double>::infinity();
-        std::string high_by, low_by;
-        for (const auto* r : pool) {
-          const auto& line = r->members[m];
-          const double v = (end == 0 ? line.start_forces : line.end_forces)(c);
-          if (v > high) high = v, high_by = r->name;
-          if (v < low) low = v, low_by = r->name;
-        }
+        const EndForceEnvelope e = end_force_envelope(pool, m, end, c);
         // kN and kN*m for people: internal forces are N and N*m inside.
-        out += fmt::format("{},{},{},{},{:.3f},{},{:.3f},{}\n", m, csv_field(a.built.member_sources[m].entity),
-                           end == 0 ? "start" : "end", names[c], high / 1e3, csv_field(high_by), low / 1e3,
-                           csv_field(low_by));
+        fmt::format_to(std::back_inserter(out), "{},{},{},{},{:.3f},{},{:.3f},{}\n", m,
+                       csv_field(a.built.member_sources[m].entity), end == 0 ? "start" : "end", names[c], e.high / 1e3,
+                       csv_name(e.high_by), e.low / 1e3, csv_name(e.low_by));
       }
   return out;
 }
