@@ -51,11 +51,11 @@ class JsonWriter {
   }
   void value(std::size_t v) {
     separate();
-    fmt::format_to(std::back_inserter(out_), "{}", v);
+    integer(v);
   }
   void value(int v) {
     separate();
-    fmt::format_to(std::back_inserter(out_), "{}", v);
+    integer(v);
   }
   void value(bool v) {
     separate();
@@ -121,6 +121,11 @@ class JsonWriter {
     first_.back() = false;
   }
   void append(std::string_view text) { out_.append(text.data(), text.data() + text.size()); }
+  template <class Integer>
+  void integer(Integer v) {
+    char text[24];
+    out_.append(text, std::to_chars(text, text + sizeof text, v).ptr);
+  }
   // Length of the valid UTF-8 sequence starting at s[i] (RFC 3629 section 4), or 0.
   static std::size_t utf8_length(std::string_view s, std::size_t i) {
     const auto b = [&](std::size_t k) { return static_cast<unsigned char>(s[k]); };
@@ -141,7 +146,19 @@ class JsonWriter {
   // that does not start valid UTF-8 becomes U+FFFD (names from CAD files are not always UTF-8).
   void string_text(std::string_view s) {
     out_.push_back('"');
+    // Plain ASCII (keys, names, clause texts: nearly everything) goes over in runs.
+    auto plain = [](char c) {
+      const auto u = static_cast<unsigned char>(c);
+      return u >= 0x20 && u < 0x80 && c != '"' && c != '\\';
+    };
     for (std::size_t i = 0; i < s.size(); ++i) {
+      if (plain(s[i])) {
+        std::size_t end = i + 1;
+        while (end < s.size() && plain(s[end])) ++end;
+        append(s.substr(i, end - i));
+        i = end - 1;
+        continue;
+      }
       const char c = s[i];
       if (static_cast<unsigned char>(c) >= 0x80) {
         const std::size_t n = utf8_length(s, i);
