@@ -14,7 +14,7 @@ PACKAGES=(
   libocct-foundation-dev libocct-modeling-data-dev libocct-modeling-algorithms-dev
   libocct-ocaf-dev libocct-data-exchange-dev
   libvtk9-dev libegl-dev libegl-mesa0 libgl1-mesa-dri libglew-dev libeigen3-dev libsuitesparse-dev libopenblas-dev libspectra-dev
-  libspdlog-dev libyaml-cpp-dev nlohmann-json3-dev libcli11-dev catch2 libssl-dev libre2-dev libboost-dev
+  libspdlog-dev libyaml-cpp-dev nlohmann-json3-dev libcli11-dev catch2 libssl-dev libre2-dev libboost-dev libpng-dev
   python3 python3-dev pybind11-dev python3-distributed
   chromium  # the browser test of report.html (headless)
 )

@@ -1,24 +1,15 @@
 #pragma once
-// An image encoded as PNG in memory by VTK's writer.
+// An image encoded as PNG in memory.
 
 #include <vtkImageData.h>
-#include <vtkNew.h>
-#include <vtkPNGWriter.h>
-#include <vtkUnsignedCharArray.h>
 
 #include <cstdint>
 #include <vector>
 
 namespace stepframe::viz::detail {
 
-inline std::vector<std::uint8_t> png_bytes(vtkImageData* image) {
-  vtkNew<vtkPNGWriter> writer;
-  writer->SetInputData(image);
-  writer->WriteToMemoryOn();
-  writer->Write();
-  vtkUnsignedCharArray* bytes = writer->GetResult();
-  const auto* first = bytes->GetPointer(0);
-  return {first, first + bytes->GetNumberOfTuples() * bytes->GetNumberOfComponents()};
-}
+/// The image (8-bit, 1 to 4 components: grey, grey and alpha, RGB, RGBA) as a PNG file's bytes
+/// (ISO/IEC 15948), its top row first. Throws std::runtime_error for any other image.
+std::vector<std::uint8_t> png_bytes(vtkImageData* image);
 
 }  // namespace stepframe::viz::detail
