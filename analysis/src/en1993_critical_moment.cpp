@@ -11,6 +11,7 @@
 #include <numbers>
 #include <stdexcept>
 #include <string>
+#include <vector>
 
 namespace stepframe::analysis::en1993 {
 
@@ -125,25 +126,41 @@ DiagramIntegrals diagram_integrals(std::vector<double> x, int terms) {
     const auto intervals = static_cast<int>(x.size() - 1);
     const int sub = std::max(1, (2 * terms + intervals - 1) / intervals);
     const double gauss_x[3] = {-std::sqrt(0.6), 0.0, std::sqrt(0.6)}, gauss_w[3] = {5.0 / 9, 8.0 / 9, 5.0 / 9};
-    Vector sines(n), bent(n);  // sin_i(x) and (i pi / L)^2 sin_i(x) at one point
+    Vector sines(n);  // sin_i(x) at one point
+    // Per Gauss point k of an interval: its sines, and (i pi / L)^2 sin_i times its two shares' weights.
+    const auto points = static_cast<std::size_t>(3 * sub), rows = static_cast<std::size_t>(n);
+    std::vector<double> point_sines(points * rows), share_a(points * rows), share_b(points * rows);
     for (std::size_t p = 0; p + 1 < x.size(); ++p) {
       const double xa = x[p] - x0, xb = x[p + 1] - x0;
       if (xb - xa <= 0) continue;
-      Eigen::Map<Matrix> at_a(out.moment.data() + p * block, n, n), at_b(out.moment.data() + (p + 1) * block, n, n);
       for (int s = 0; s < sub; ++s) {
         const double sa = xa + (xb - xa) * s / sub, sb = xa + (xb - xa) * (s + 1) / sub;
         for (int g = 0; g < 3; ++g) {
           const double xg = 0.5 * (sa + sb) + 0.5 * (sb - sa) * gauss_x[g], weight = 0.5 * (sb - sa) * gauss_w[g];
           const double t = (xg - xa) / (xb - xa);
           fill_sines(pi * xg / L, sines);
-          for (Eigen::Index i = 0; i < n; ++i) {
+          const std::size_t k = static_cast<std::size_t>(3 * s + g) * rows;
+          for (std::size_t i = 0; i < rows; ++i) {
             const double wi = static_cast<double>(i + 1) * pi / L;
-            bent(i) = wi * wi * sines(i);
+            const double bent = wi * wi * sines(static_cast<Eigen::Index>(i));
+            point_sines[k + i] = sines(static_cast<Eigen::Index>(i));
+            share_a[k + i] = (weight * (1 - t)) * bent;
+            share_b[k + i] = (weight * t) * bent;
           }
-          at_a.noalias() += (weight * (1 - t)) * bent * sines.transpose();
-          at_b.noalias() += (weight * t) * bent * sines.transpose();
         }
       }
+      // The blocks of the interval's two points: sum over k of share_k sines_k^T, k in order (plain loops
+      // over contiguous columns: the compiler vectorises them; Eigen's outer products per point did not).
+      double* at_a = out.moment.data() + p * block;
+      double* at_b = out.moment.data() + (p + 1) * block;
+      for (std::size_t j = 0; j < rows; ++j)
+        for (std::size_t k = 0; k < points * rows; k += rows) {
+          const double sj = point_sines[k + j];
+          for (std::size_t i = 0; i < rows; ++i) {
+            at_a[j * rows + i] += share_a[k + i] * sj;
+            at_b[j * rows + i] += share_b[k + i] * sj;
+          }
+        }
     }
     // Load-height term: sin_i sin_j at the middle of each interval (a point load is the jump between two
     // points at the same x).
@@ -190,20 +207,27 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const Dia
     K(i) = k.E * k.Iz * w2 * w2 * L / 2;                                  // int sin^2 = L / 2
     K(n + i) = (k.G * k.It * w2 + k.E * k.Iw * w2 * w2) * L / 2;
   }
+  // Sums of the points' (or intervals') n x n blocks, each block contiguous: plain loops, p in order.
+  std::vector<double> sum(block);
+  auto add = [&](double weight, const double* b) {
+    for (std::size_t i = 0; i < block; ++i) sum[i] += weight * b[i];
+  };
   Matrix G = Matrix::Zero(2 * n, 2 * n);
   // 1/2 x^T G x = sum a_i b_j c_ij, c_ij = int M (i pi / L)^2 sin_i sin_j dx = sum_p M_p (the point's block).
   for (std::size_t p = 0; p < diagram.size(); ++p)
-    if (diagram[p].M != 0)
-      G.topRightCorner(n, n) += diagram[p].M * Eigen::Map<const Matrix>(integrals.moment.data() + p * block, n, n);
+    if (diagram[p].M != 0) add(diagram[p].M, integrals.moment.data() + p * block);
+  G.topRightCorner(n, n) = Eigen::Map<const Matrix>(sum.data(), n, n);
   G.bottomLeftCorner(n, n) = G.topRightCorner(n, n).transpose();
   // Load-height term: the transverse load on each interval is the drop of the shear across it, taken at
   // its middle.
-  if (load_height != 0)
+  if (load_height != 0) {
+    std::fill(sum.begin(), sum.end(), 0.0);
     for (std::size_t p = 0; p + 1 < diagram.size(); ++p) {
       const double Q = std::abs(diagram[p].V - diagram[p + 1].V);
-      if (Q == 0) continue;
-      G.bottomRightCorner(n, n) += (Q * load_height) * Eigen::Map<const Matrix>(integrals.load.data() + p * block, n, n);
+      if (Q != 0) add(Q * load_height, integrals.load.data() + p * block);
     }
+    G.bottomRightCorner(n, n) = Eigen::Map<const Matrix>(sum.data(), n, n);
+  }
   // G x = mu K x with K diagonal and positive: mu of K^-1/2 G K^-1/2; lambda = 1 / mu_max.
   const Vector r = K.cwiseSqrt().cwiseInverse();
   const Matrix S = r.asDiagonal() * G * r.asDiagonal();
