@@ -83,10 +83,11 @@ std::string connections_csv(const Analysis& a) {
     const auto& p = model.nodes[node];
     for (const auto& [m, end] : list) {
       const auto& src = a.built.member_sources[m];
-      fmt::format_to(std::back_inserter(out), "{},{:.1f},{:.1f},{:.1f},{},{},{},{},{},{},{}", node, p.x() * 1e3, p.y() * 1e3, p.z() * 1e3,
-                         list.size(), m, csv_field(src.entity), csv_field(src.name), csv_field(mark_of(a, m)),
-                         csv_field(model.sections[model.elements[model.members[m].elements.front()].section].designation),
-                         end == 0 ? "start" : "end");
+      fmt::format_to(std::back_inserter(out), "{},{:.1f},{:.1f},{:.1f},{},{},{},{},{},{},{}", node, p.x() * 1e3,
+                     p.y() * 1e3, p.z() * 1e3, list.size(), m, csv_field(src.entity), csv_field(src.name),
+                     csv_field(mark_of(a, m)),
+                     csv_field(model.sections[model.elements[model.members[m].elements.front()].section].designation),
+                     end == 0 ? "start" : "end");
       for (int c = 0; c < 6; ++c) {
         const EndForceEnvelope e = end_force_envelope(pool, m, end, c);
         // Internal forces at the member end (results.hpp convention), kN and kN*m for people.
