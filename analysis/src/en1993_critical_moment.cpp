@@ -6,6 +6,7 @@
 #include <Eigen/Eigenvalues>
 
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <limits>
 #include <numbers>
@@ -207,8 +208,10 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const Dia
     K(i) = k.E * k.Iz * w2 * w2 * L / 2;                                  // int sin^2 = L / 2
     K(n + i) = (k.G * k.It * w2 + k.E * k.Iw * w2 * w2) * L / 2;
   }
-  // Sums of the points' (or intervals') n x n blocks, each block contiguous: plain loops, p in order.
-  std::vector<double> sum(block);
+  // Sums of the points' (or intervals') n x n blocks, each block contiguous: plain loops, p in order (on
+  // the stack: this runs for every member and result).
+  std::array<double, (most / 2) * (most / 2)> sum;
+  std::fill_n(sum.begin(), block, 0.0);
   auto add = [&](double weight, const double* b) {
     for (std::size_t i = 0; i < block; ++i) sum[i] += weight * b[i];
   };
@@ -221,7 +224,7 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const Dia
   // Load-height term: the transverse load on each interval is the drop of the shear across it, taken at
   // its middle.
   if (load_height != 0) {
-    std::fill(sum.begin(), sum.end(), 0.0);
+    std::fill_n(sum.begin(), block, 0.0);
     for (std::size_t p = 0; p + 1 < diagram.size(); ++p) {
       const double Q = std::abs(diagram[p].V - diagram[p + 1].V);
       if (Q != 0) add(Q * load_height, integrals.load.data() + p * block);
