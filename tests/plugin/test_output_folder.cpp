@@ -10,7 +10,9 @@
 #include <cerrno>
 #include <csignal>
 #include <set>
+#include <string>
 #include <thread>
+#include <vector>
 
 #include <fcntl.h>
 #include <sys/file.h>
@@ -63,6 +65,26 @@ std::vector<std::string> leftovers(const fs::path& parent) {
 }
 
 std::string quoted(const fs::path& p) { return "\"" + p.string() + "\""; }
+
+/// `stepframe run PROJECT --out OUT EXTRA...` as a child process of its own (output to /dev/null), to be
+/// signalled and waited for.
+pid_t start_run(const fs::path& project, const fs::path& out, std::vector<std::string> extra) {
+  std::vector<std::string> args{STEPFRAME_EXE, "run", project.string(), "--out", out.string()};
+  args.insert(args.end(), extra.begin(), extra.end());
+  std::vector<char*> argv;
+  for (auto& a : args) argv.push_back(a.data());
+  argv.push_back(nullptr);
+  const pid_t child = ::fork();
+  REQUIRE(child >= 0);
+  if (child == 0) {
+    const int null = ::open("/dev/null", O_WRONLY);
+    ::dup2(null, 1);
+    ::dup2(null, 2);
+    ::execv(STEPFRAME_EXE, argv.data());
+    ::_exit(127);
+  }
+  return child;
+}
 
 }  // namespace
 
@@ -158,15 +180,7 @@ TEST_CASE("SIGINT or SIGTERM at any moment leaves the earlier results whole and 
 
   for (int delay_ms : {30, 120, 250, 400}) {
     for (int signal_number : {SIGINT, SIGTERM}) {
-      const pid_t child = ::fork();
-      REQUIRE(child >= 0);
-      if (child == 0) {
-        const int null = ::open("/dev/null", O_WRONLY);
-        ::dup2(null, 2);
-        ::execl(STEPFRAME_EXE, STEPFRAME_EXE, "run", (dir / "beam.yaml").c_str(), "--out", out.c_str(), "--vtk", "all",
-                nullptr);
-        ::_exit(127);
-      }
+      const pid_t child = start_run(dir / "beam.yaml", out, {"--vtk", "all"});
       std::this_thread::sleep_for(std::chrono::milliseconds(delay_ms));
       ::kill(child, signal_number);
       int status = 0;
@@ -199,15 +213,7 @@ TEST_CASE("a signal after the new results replaced the old ones stops nothing: t
   for (int attempt = 0; attempt < 12; ++attempt) {
     const std::string before = test::read_text(out / "results.json");
     test::write_text(dir / "beam.yaml", project(attempt % 2 == 0 ? 3 : 2));
-    const pid_t child = ::fork();
-    REQUIRE(child >= 0);
-    if (child == 0) {
-      const int null = ::open("/dev/null", O_WRONLY);
-      ::dup2(null, 1);
-      ::dup2(null, 2);
-      ::execl(STEPFRAME_EXE, STEPFRAME_EXE, "run", (dir / "beam.yaml").c_str(), "--out", out.c_str(), nullptr);
-      ::_exit(127);
-    }
+    const pid_t child = start_run(dir / "beam.yaml", out, {});
     int status = 0;
     pid_t done = 0;
     std::error_code ec;
