@@ -1,6 +1,7 @@
 // EN 1993-1-1 (2005) member checks: 5.5, 6.2, 6.3.1, 6.3.2 and 6.3.3 (Annex B).
 
 #include "stepframe/analysis/en1993.hpp"
+#include "stepframe/analysis/diagram_integrals_cache.hpp"
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/analysis/parallel.hpp"
 #include "stepframe/analysis/worst_checks.hpp"
@@ -71,18 +72,11 @@ double modulus_y(const Section& s, int cls) { return cls <= 2 && s.Wpl_y > 0 ? s
 double modulus_z(const Section& s, int cls) { return cls <= 2 && s.Wpl_z > 0 ? s.Wpl_z : s.Wz(); }
 
 // Mcr of the diagram (critical_moment_for_diagram), with the integrals of its positions that the member
-// keeps when they fit (its load results share its stations), else worked out and kept for the next one.
+// keeps (its load results share its stations) or shares with members at the same positions.
 double critical_moment_of(const LateralTorsionalStiffness& k, const MemberInput& in,
                           const std::vector<DiagramPoint>& points, double load_height) {
   if (!in.integrals) return critical_moment_for_diagram(k, points, load_height);
-  DiagramIntegrals& kept = *in.integrals;
-  if (!lie_at(points, kept.x)) {
-    std::vector<double> x;
-    x.reserve(points.size());
-    for (const auto& p : points) x.push_back(p.x);
-    kept = diagram_integrals(std::move(x));
-  }
-  return critical_moment_for_diagram(k, kept, points, load_height);
+  return critical_moment_for_diagram(k, in.integrals->at(points), points, load_height);
 }
 
 bool is_open(SectionShape shape) {
@@ -387,6 +381,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
   // Per member, the worst result of each check over the results, ordered by check name; the
   // members are independent, so they are spread over the cores and joined in member order.
   std::vector<WorstByCheck> worst(chains.size());
+  DiagramIntegralsCache shared_integrals;
   parallel_for(chains.size(), [&](std::size_t m) {
     const FrameElement& first = model.elements[chains[m].elements.front()];
     MemberInput in;
@@ -394,7 +389,7 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     in.section = &model.sections[first.section];
     in.material = material_for_section(model.materials[first.material], *in.section);
     if (m < buckling.size()) in.buckling = buckling[m];
-    DiagramIntegrals integrals;
+    MemberIntegrals integrals{&shared_integrals, nullptr};
     in.integrals = &integrals;
     for (const LoadResult* r : results) {
       const LineResult line = member_line(model, *r, chains[m], LineDetail::forces);

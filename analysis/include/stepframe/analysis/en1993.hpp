@@ -227,6 +227,8 @@ struct BucklingLengths {
                     ///< buckling length lT of 6.3.1.4 (length between twist restraints)
 };
 
+struct MemberIntegrals;  // diagram_integrals_cache.hpp
+
 /// One member as the checks see it.
 struct MemberInput {
   std::size_t member = 0;
@@ -234,10 +236,10 @@ struct MemberInput {
   Material material;  ///< with fy for the section's thickest plate
   double length = 0;  ///< [m]
   BucklingLengths buckling;
-  /// Where the check may keep the Mcr integrals of the member's stations
-  /// from one load result to the next (check_members gives one per member);
-  /// null: worked out for each result.
-  DiagramIntegrals* integrals = nullptr;
+  /// Where the check finds the Mcr integrals of the member's stations and
+  /// keeps them from one load result to the next (check_members gives one per
+  /// member, all drawing on one shared cache); null: worked out for each result.
+  MemberIntegrals* integrals = nullptr;
 };
 
 /// The EN 1993-1-1 checks of every member under every listed result, the
