@@ -40,12 +40,20 @@ std::array<double, 3> part_limits(const SectionPart& part, double fy, double alp
   return {0.0, 0.0, 0.0};
 }
 
-int part_class(const SectionPart& part, double fy, double alpha, double psi) {
-  if (part.kind == PartKind::internal && alpha <= 0) return 1;  // the part is not in compression
-  const auto limits = part_limits(part, fy, alpha, psi);
+namespace {
+
+// The class of a part in compression whose limits are given (Table 5.2: the first class whose limit c/t meets).
+int class_within(const SectionPart& part, const std::array<double, 3>& limits) {
   for (int cls = 1; cls <= 3; ++cls)
     if (part.ratio() <= limits[static_cast<std::size_t>(cls - 1)]) return cls;
   return 4;
+}
+
+}  // namespace
+
+int part_class(const SectionPart& part, double fy, double alpha, double psi) {
+  if (part.kind == PartKind::internal && alpha <= 0) return 1;  // the part is not in compression
+  return class_within(part, part_limits(part, fy, alpha, psi));
 }
 
 Classification classify(const Section& s, double fy, double N, double My) {
@@ -58,7 +66,7 @@ Classification classify(const Section& s, double fy, double N, double My) {
   const double compression = -N;  // compression positive from here on
   for (const SectionPart& part : s.parts) {
     double alpha = 1.0, psi = 1.0;
-    if (is_web(part) && part.kind == PartKind::internal) {
+    if (part.kind == PartKind::internal && is_web(part)) {
       // Plastic neutral axis of a symmetric web under N and M: alpha = 0.5 (1 + N / (fy c t)).
       alpha = std::clamp(0.5 * (1.0 + compression / (fy * part.c * part.t)), 0.0, 1.0);
       // Elastic stresses at the web ends, compression positive: N/A +- M (c/2) / Iy.
@@ -69,9 +77,11 @@ Classification classify(const Section& s, double fy, double N, double My) {
       psi = sigma1 > 0 ? sigma2 / sigma1 : 1.0;
       if (std::abs(compression) < 1e-9 && std::abs(My) < 1e-9) alpha = 1.0, psi = 1.0;  // unloaded: take compression
     }
-    const int cls = part_class(part, fy, alpha, psi);
-    const double class3 = part.kind == PartKind::internal && alpha <= 0 ? 0.0
-                                                                        : part.ratio() / part_limits(part, fy, alpha, psi)[2];
+    // As part_class, with the limits worked out once for the class and the class 3 margin (per station).
+    const bool in_tension = part.kind == PartKind::internal && alpha <= 0;
+    const auto limits = in_tension ? std::array<double, 3>{} : part_limits(part, fy, alpha, psi);
+    const int cls = in_tension ? 1 : class_within(part, limits);
+    const double class3 = in_tension ? 0.0 : part.ratio() / limits[2];
     if (cls > result.section_class || (cls == result.section_class && class3 > result.class3_utilisation)) {
       result.section_class = std::max(cls, result.section_class);
       result.governing_part = part.name;

@@ -22,23 +22,23 @@ double flange_thickness(const Section& s) {
 
 std::optional<double> plastic_interaction(const Section& s, const PlasticResistances& r, double N, double My,
                                           double Mz) {
-  const bool i_section = s.shape == SectionShape::rolled_i && flange_thickness(s) > 0;
-  const bool hollow = s.shape == SectionShape::rhs && s.t_max > 0;
+  const double tf = s.shape == SectionShape::rolled_i ? flange_thickness(s) : 0.0, t = s.t_max;
+  const bool i_section = s.shape == SectionShape::rolled_i && tf > 0;
+  const bool hollow = s.shape == SectionShape::rhs && t > 0;
   if (!(i_section || hollow) || r.N <= 0 || r.My <= 0 || r.Mz <= 0) return std::nullopt;
-  const double tf = flange_thickness(s), t = s.t_max;
+  const double a = std::min((s.A - 2 * s.width * tf) / s.A, 0.5);   // 6.2.9.1(5), I sections
+  const double aw = std::min((s.A - 2 * s.width * t) / s.A, 0.5);  // 6.2.9.1(5), (6.39), hollow sections
+  const double af = std::min((s.A - 2 * s.depth * t) / s.A, 0.5);  // (6.40)
   // Left side of (6.41) for the actions scaled by lambda; infinite once N alone reaches Npl,Rd.
   auto criterion = [&](double lambda) {
     const double n = lambda * std::abs(N) / r.N;  // compression or tension alike (6.2.9.1(1))
     if (n >= 1) return std::numeric_limits<double>::infinity();
     double MNy = 0, MNz = 0, alpha = 0, beta = 0;
     if (i_section) {
-      const double a = std::min((s.A - 2 * s.width * tf) / s.A, 0.5);   // 6.2.9.1(5)
       MNy = std::min(r.My * (1 - n) / (1 - 0.5 * a), r.My);               // (6.36)
       MNz = n <= a ? r.Mz : r.Mz * (1 - std::pow((n - a) / (1 - a), 2));  // (6.37), (6.38)
       alpha = 2, beta = std::max(5 * n, 1.0);                             // 6.2.9.1(6), I and H sections
     } else {
-      const double aw = std::min((s.A - 2 * s.width * t) / s.A, 0.5);  // 6.2.9.1(5), (6.39)
-      const double af = std::min((s.A - 2 * s.depth * t) / s.A, 0.5);  // (6.40)
       MNy = std::min(r.My * (1 - n) / (1 - 0.5 * aw), r.My);
       MNz = std::min(r.Mz * (1 - n) / (1 - 0.5 * af), r.Mz);
       alpha = beta = std::min(1.66 / (1 - 1.13 * n * n), 6.0);  // 6.2.9.1(6), rectangular hollow sections
