@@ -120,17 +120,26 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const std
   return critical_moment_for_diagram(k, diagram_integrals(std::move(x), terms), diagram, load_height);
 }
 
-double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const DiagramIntegrals& integrals,
-                                   const std::vector<DiagramPoint>& diagram, double load_height) {
+namespace {
+
+// The scaled matrix S = K^-1/2 G K^-1/2 of a diagram (Mcr = max|M| / lambda_max(S)), 2 terms x 2 terms,
+// and the diagram's max|M|.
+struct ScaledProblem {
+  Matrix s;
+  double peak = 0;
+};
+
+ScaledProblem scaled_problem(const LateralTorsionalStiffness& k, const DiagramIntegrals& integrals,
+                             const std::vector<DiagramPoint>& diagram, double load_height) {
   if (!lie_at(diagram, integrals.x))
     throw std::invalid_argument("critical_moment_for_diagram: the diagram's points are not those of its integrals");
   const double L = integrals.x.back() - integrals.x.front();
   const double pi = std::numbers::pi;
   const auto n = static_cast<Eigen::Index>(integrals.terms);
   const auto block = static_cast<std::size_t>(n * n);
-  double peak = 0;
-  for (const auto& p : diagram) peak = std::max(peak, std::abs(p.M));
-  if (peak <= 0 || L <= 0) return std::numeric_limits<double>::infinity();
+  ScaledProblem out;
+  for (const auto& p : diagram) out.peak = std::max(out.peak, std::abs(p.M));
+  if (out.peak <= 0 || L <= 0) return out;
 
   // Lateral displacement u = sum a_i sin(i pi x / L) and twist phi = sum b_i sin(i pi x / L): fork supports
   // at both ends (u = phi = u'' = phi'' = 0). Strain energy (Timoshenko & Gere 1961, 6.3; Trahair,
@@ -171,19 +180,56 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const Dia
   }
   // G x = mu K x with K diagonal and positive: mu of K^-1/2 G K^-1/2; lambda = 1 / mu_max.
   const Vector r = K.cwiseSqrt().cwiseInverse();
-  const Matrix S = r.asDiagonal() * G * r.asDiagonal();
-  double mu = 0;
-  if (load_height == 0) {
+  out.s = r.asDiagonal() * G * r.asDiagonal();
+  return out;
+}
+
+// lambda_max(S) of a scaled problem.
+double largest_mu(const ScaledProblem& problem, bool load_height) {
+  const Eigen::Index n = problem.s.rows() / 2;
+  if (!load_height) {
     // S = [0 C; C^T 0]: its eigenvalues are plus and minus the singular values of C, so mu_max is
     // the square root of the largest eigenvalue of C^T C (half the size, an eighth of the work).
-    const Matrix C = S.topRightCorner(n, n);
+    const Matrix C = problem.s.topRightCorner(n, n);
     const Matrix CtC = C.transpose() * C;
-    mu = std::sqrt(std::max(0.0, detail::largest_eigenvalue(CtC)));
-  } else {
-    mu = detail::largest_eigenvalue(S);
+    return std::sqrt(std::max(0.0, detail::largest_eigenvalue(CtC)));
   }
-  if (mu <= 0) return std::numeric_limits<double>::infinity();
-  return peak / mu;
+  return detail::largest_eigenvalue(problem.s);
+}
+
+}  // namespace
+
+double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const DiagramIntegrals& integrals,
+                                   const std::vector<DiagramPoint>& diagram, double load_height) {
+  CriticalMomentReference none;
+  return critical_moment_or_bound(k, integrals, diagram, load_height, none, nullptr).value;
+}
+
+CriticalMomentEstimate critical_moment_or_bound(const LateralTorsionalStiffness& k, const DiagramIntegrals& integrals,
+                                                const std::vector<DiagramPoint>& diagram, double load_height,
+                                                CriticalMomentReference& reference,
+                                                const std::function<bool(double)>& bound_suffices) {
+  constexpr double infinite = std::numeric_limits<double>::infinity();
+  const ScaledProblem problem = scaled_problem(k, integrals, diagram, load_height);
+  if (problem.s.size() == 0) return {infinite, true};  // no moment, or no length
+  const auto entries = static_cast<std::size_t>(problem.s.size());
+  if (bound_suffices && reference.s.size() == entries) {
+    // lambda_max(S) <= lambda_max(S_ref) + ||S - S_ref||_F, plus a margin far above the rounding of
+    // either eigenvalue (a few units in the last place of ||S||).
+    double change = 0, size = 0;
+    for (std::size_t i = 0; i < entries; ++i) {
+      const double d = problem.s.data()[i] - reference.s[i];
+      change += d * d;
+      size += problem.s.data()[i] * problem.s.data()[i] + reference.s[i] * reference.s[i];
+    }
+    const double mu_above = reference.mu + std::sqrt(change) + 1e-12 * std::sqrt(size);
+    const double lower = mu_above > 0 ? problem.peak / mu_above : infinite;
+    if (bound_suffices(lower)) return {lower, false};
+  }
+  const double mu = largest_mu(problem, load_height != 0);
+  reference.s.assign(problem.s.data(), problem.s.data() + entries);
+  reference.mu = mu;
+  return {mu > 0 ? problem.peak / mu : infinite, true};
 }
 
 }  // namespace stepframe::analysis::en1993

@@ -11,6 +11,7 @@
 #include <algorithm>
 #include <array>
 #include <cmath>
+#include <functional>
 #include <map>
 #include <numbers>
 #include <optional>
@@ -72,11 +73,16 @@ double modulus_y(const Section& s, int cls) { return cls <= 2 && s.Wpl_y > 0 ? s
 double modulus_z(const Section& s, int cls) { return cls <= 2 && s.Wpl_z > 0 ? s.Wpl_z : s.Wz(); }
 
 // Mcr of the diagram (critical_moment_for_diagram), with the integrals of its positions that the member
-// keeps (its load results share its stations) or shares with members at the same positions.
-double critical_moment_of(const LateralTorsionalStiffness& k, const MemberInput& in,
-                          const std::vector<DiagramPoint>& points, double load_height) {
-  if (!in.integrals) return critical_moment_for_diagram(k, points, load_height);
-  return critical_moment_for_diagram(k, in.integrals->at(points), points, load_height);
+// keeps (its load results share its stations) or shares with members at the same positions; or only a
+// lower bound on it when `bound_suffices` says that settles the check (critical_moment_or_bound, from the
+// member's last Mcr solved exactly).
+CriticalMomentEstimate critical_moment_of(const LateralTorsionalStiffness& k, const MemberInput& in,
+                                          const std::vector<DiagramPoint>& points, double load_height,
+                                          const std::function<bool(double)>& bound_suffices = nullptr) {
+  if (!in.integrals) return {critical_moment_for_diagram(k, points, load_height), true};
+  const DiagramIntegrals& integrals = in.integrals->at(points);
+  if (!in.mcr_reference || !bound_suffices) return {critical_moment_for_diagram(k, integrals, points, load_height), true};
+  return critical_moment_or_bound(k, integrals, points, load_height, *in.mcr_reference, bound_suffices);
 }
 
 bool is_open(SectionShape shape) {
@@ -110,12 +116,14 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   // Whether a result of `check` with this value and limit is wanted: without `kept` always, else
   // only when it would replace the one kept (keep_worst keeps the first of equals). The others
   // are left out before their words are formatted.
-  auto wanted = [kept](std::string_view check, double value, double limit) {
+  auto may_replace = [kept](std::string_view check, double u) {
     if (!kept) return true;
-    const double u = limit > 0 ? value / limit : 0.0;  // as result() below
     for (const CheckResult& k : *kept)
       if (k.check == check) return u > k.utilisation;
     return true;
+  };
+  auto wanted = [&](std::string_view check, double value, double limit) {
+    return may_replace(check, limit > 0 ? value / limit : 0.0);  // u as result() below
   };
   const Section& s = *in.section;
   const double fy = in.material.fy, E = in.material.E, G = in.material.G;
@@ -247,25 +255,42 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
 
   const int cls_member = classify(s, fy, -NEd, my.peak).section_class;
   const double Wy = modulus_y(s, cls_member), Wz = modulus_z(s, cls_member);
+  // 6.3.3 (6.61), (6.62) with the interaction factors of Annex B (method 2), for members in compression;
+  // everything but chi_LT is known here.
+  const double Cmy = equivalent_moment_factor(my, in.buckling.y), Cmz = equivalent_moment_factor(mz, in.buckling.z);
+  const double Cmlt = Cmy;
+  const bool plastic = cls_member <= 2;
+  // n_z takes the smaller of the flexural and the torsional chi (conservative: 6.3.3(4) names only
+  // the flexural one, but a section that twists first cannot reach it).
+  const double n_y = NEd / (chi_y * NRk / f.gamma_M1), n_z = NEd / (std::min(chi_z, chi_t) * NRk / f.gamma_M1);
+  const bool i_section = s.shape == SectionShape::rolled_i || s.shape == SectionShape::welded_i;
+  // Table B.1.
+  const double kyy = plastic ? Cmy * (1 + std::min(lambda_y - 0.2, 0.8) * n_y) : Cmy * (1 + 0.6 * std::min(lambda_y, 1.0) * n_y);
+  const double kzz = plastic ? (i_section ? Cmz * (1 + std::min(2 * lambda_z - 0.6, 1.4) * n_z)
+                                          : Cmz * (1 + std::min(lambda_z - 0.2, 0.8) * n_z))
+                             : Cmz * (1 + 0.6 * std::min(lambda_z, 1.0) * n_z);
+  const double kyz = plastic ? 0.6 * kzz : kzz;
+  double kzy = plastic ? 0.6 * kyy : 0.8 * kyy;
+  if (is_open(s.shape)) {
+    // Table B.2: members susceptible to torsional deformations.
+    const double c = plastic ? 0.1 : 0.05, lz = std::min(lambda_z, 1.0);
+    kzy = 1 - c * lz * n_z / (Cmlt - 0.25);
+    if (plastic && lambda_z < 0.4) kzy = std::min(0.6 + lambda_z, kzy);
+  }
+  const double MyRk = Wy * fy, MzRk = Wz * fy;
+  // (6.61) and (6.62) for a chi_LT: both fall as it rises.
+  auto interaction = [&](double chi_lt) -> std::array<double, 2> {
+    return {n_y + kyy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kyz * mz.peak / (MzRk / f.gamma_M1),
+            n_z + kzy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kzz * mz.peak / (MzRk / f.gamma_M1)};
+  };
+
   double chi_lt = 1.0;
+  bool lateral_torsional_bounded = false;  // 6.3.2 and 6.3.3 settled by a bound on Mcr: neither can govern
   if (has_lateral_torsional_buckling(s) && my.peak > 0) {
     // Span loads (a curved diagram) are taken on the top flange, towards the shear centre: the conservative
     // default when the model does not say where they act.
     const double zg = my.linear ? 0.0 : 0.5 * s.depth;
     const bool ends_only = std::abs(in.buckling.lt - 1.0) < 1e-12;
-    std::vector<DiagramPoint> points;
-    double Mcr = 0;
-    if (ends_only) {
-      // Restrained at the member ends only: Mcr of the member's own moment diagram (energy method).
-      points.reserve(line.stations.size());
-      for (const Station& st : line.stations) points.push_back({st.x, st.forces(My_), st.forces(Vz_)});
-      Mcr = critical_moment_of({E, G, s.Iz, s.Iw, s.J}, in, points, zg);
-    } else {
-      // Restraints inside the member: the diagram between them is not known here, so uniform moment (C1 = 1,
-      // the lowest) over the unrestrained length is the conservative default.
-      Mcr = critical_moment(E, G, s.Iz, s.Iw, s.J, lT, 1.0, my.linear ? 0.0 : 0.454, zg);
-    }
-    const double lambda_lt = std::sqrt(Wy * fy / Mcr);  // (6.56)
     // 6.3.2.3 where the options ask for it and the section is an I section; 6.3.2.2 otherwise.
     const std::optional<Curve> rolled_curve =
         ltb.method == LateralTorsionalMethod::rolled ? lateral_torsional_curve_rolled(s) : std::nullopt;
@@ -273,76 +298,90 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const Curve curve = rolled_curve ? *rolled_curve : lateral_torsional_curve(s);
     const double lambda_0 = rolled_curve ? ltb.lambda_0 : 0.2, beta = rolled_curve ? ltb.beta : 1.0;
     const double alpha_lt = imperfection_factor(curve);
-    // Phi_LT = 0.5 [1 + alpha_LT (lambda_LT - lambda_LT,0) + beta lambda_LT^2]: (6.56) with lambda_LT,0 = 0.2,
-    // beta = 1, or (6.57).
-    const double phi_lt = 0.5 * (1 + alpha_lt * (lambda_lt - lambda_0) + beta * lambda_lt * lambda_lt);
-    chi_lt = rolled_curve ? reduction_factor_rolled(lambda_lt, curve, lambda_0, beta)
+    // chi_LT of a slenderness, before 6.3.2.3(2): (6.56) or (6.57); it falls as the slenderness rises.
+    auto chi_of = [&](double lambda_lt) {
+      return rolled_curve ? reduction_factor_rolled(lambda_lt, curve, lambda_0, beta)
                           : (lambda_lt <= 0.2 ? 1.0 : reduction_factor(lambda_lt, curve));  // 6.3.2.2(4)
-    const double chi_lt_unmodified = chi_lt;
-    std::optional<std::array<double, 2>> modified;  // kc, f of 6.3.2.3(2)
-    if (rolled_curve && ltb.f_modification) {
-      // 6.3.2.3(2): kc of Table 6.6 from the diagram; C1 (for curved diagrams) with the load at the shear centre.
-      double C1 = 1.0;
-      if (!my.linear && ends_only)
-        C1 = critical_moment_of({E, G, s.Iz, s.Iw, s.J}, in, points, 0.0) /
-             critical_moment(E, G, s.Iz, s.Iw, s.J, lT, 1.0);
-      const double kc = ends_only ? correction_factor_kc(my.linear, my.psi, C1) : 1.0;
-      const double f_mod = modification_factor_f(kc, lambda_lt);
-      chi_lt = std::min({chi_lt / f_mod, 1.0, 1.0 / (lambda_lt * lambda_lt)});  // (6.58)
-      modified = {kc, f_mod};
+    };
+    std::vector<DiagramPoint> points;
+    double Mcr = 0;
+    if (ends_only) {
+      // Restrained at the member ends only: Mcr of the member's own moment diagram (energy method).
+      points.reserve(line.stations.size());
+      for (const Station& st : line.stations) points.push_back({st.x, st.forces(My_), st.forces(Vz_)});
+      // Whether Mcr >= lower settles that neither 6.3.2 nor 6.3.3 of this result can replace the member's
+      // kept ones: then its eigenproblem is left out. chi_LT only rises with Mcr, and 6.3.2.3(2) (f <= 1)
+      // can only raise it, to at most 1 / lambda_LT^2; both utilisations fall as chi_LT rises. A margin of
+      // 1e-9 covers the rounding of the formulas on the way.
+      auto cannot_govern = [&](double lower) {
+        const double lambda_above = std::sqrt(Wy * fy / lower);
+        double chi_below = chi_of(lambda_above);
+        if (rolled_curve && ltb.f_modification) chi_below = std::min(chi_below, 1.0 / (lambda_above * lambda_above));
+        const double margin = 1 + 1e-9;
+        if (may_replace("6.3.2 lateral-torsional buckling", margin * my.peak / (chi_below * Wy * fy / f.gamma_M1)))
+          return false;
+        if (NEd <= 0) return true;
+        if (kyy < 0 || kzy < 0) return false;  // (far beyond failure) 6.3.3 would then rise with chi_LT
+        const auto [u61, u62] = interaction(chi_below);
+        return !may_replace("6.3.3 interaction", margin * std::max(u61, u62));
+      };
+      const CriticalMomentEstimate estimate = critical_moment_of({E, G, s.Iz, s.Iw, s.J}, in, points, zg, cannot_govern);
+      Mcr = estimate.value;
+      lateral_torsional_bounded = !estimate.exact;
+    } else {
+      // Restraints inside the member: the diagram between them is not known here, so uniform moment (C1 = 1,
+      // the lowest) over the unrestrained length is the conservative default.
+      Mcr = critical_moment(E, G, s.Iz, s.Iw, s.J, lT, 1.0, my.linear ? 0.0 : 0.454, zg);
     }
-    const double MbRd = chi_lt * Wy * fy / f.gamma_M1;  // (6.55)
-    if (wanted("6.3.2 lateral-torsional buckling", my.peak, MbRd)) {
-      std::vector<std::pair<std::string, double>> details{
-          {"Mcr", Mcr},          {"W_y", Wy},      {"lambda_LT", lambda_lt}, {"alpha_LT", alpha_lt},
-          {"lambda_LT_0", lambda_0}, {"beta", beta}, {"Phi_LT", phi_lt},     {"chi_LT", chi_lt_unmodified}};
-      if (modified) details.insert(details.end(), {{"kc", (*modified)[0]}, {"f", (*modified)[1]}, {"chi_LT_mod", chi_lt}});
-      details.insert(details.end(), {{"M_Ed", my.peak}, {"M_b_Rd", MbRd}});
-      const std::string basis =
-          ends_only ? fmt::format("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and "
-                                  "no restraint between{}",
-                                  lT, my.linear ? "" : "; span loads on the top flange (conservative default)")
-                    : fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", lT,
-                                  my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
-      const std::string modification =
-          modified ? fmt::format(", f = {:.3f} (kc = {:.3f}, 6.58)", (*modified)[1], (*modified)[0]) : std::string();
-      CheckResult r = result(
-          "6.3.2 lateral-torsional buckling",
-          fmt::format("EN 1993-1-1 {}{}, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}{}; {}", method_name(method),
-                      ltb.method == LateralTorsionalMethod::rolled && !rolled_curve ? " (6.3.2.3 covers I sections only)"
-                                                                                    : "",
-                      curve_name(curve), Mcr / 1e3, chi_lt, modification, basis),
-          line.stations[my.peak_station].x, my.peak, MbRd, "N*m");
-      r.details = std::move(details);
-      out.push_back(std::move(r));
+    if (!lateral_torsional_bounded) {
+      const double lambda_lt = std::sqrt(Wy * fy / Mcr);  // (6.56)
+      // Phi_LT = 0.5 [1 + alpha_LT (lambda_LT - lambda_LT,0) + beta lambda_LT^2]: (6.56) with lambda_LT,0 = 0.2,
+      // beta = 1, or (6.57).
+      const double phi_lt = 0.5 * (1 + alpha_lt * (lambda_lt - lambda_0) + beta * lambda_lt * lambda_lt);
+      chi_lt = chi_of(lambda_lt);
+      const double chi_lt_unmodified = chi_lt;
+      std::optional<std::array<double, 2>> modified;  // kc, f of 6.3.2.3(2)
+      if (rolled_curve && ltb.f_modification) {
+        // 6.3.2.3(2): kc of Table 6.6 from the diagram; C1 (for curved diagrams) with the load at the shear centre.
+        double C1 = 1.0;
+        if (!my.linear && ends_only)
+          C1 = critical_moment_of({E, G, s.Iz, s.Iw, s.J}, in, points, 0.0).value /
+               critical_moment(E, G, s.Iz, s.Iw, s.J, lT, 1.0);
+        const double kc = ends_only ? correction_factor_kc(my.linear, my.psi, C1) : 1.0;
+        const double f_mod = modification_factor_f(kc, lambda_lt);
+        chi_lt = std::min({chi_lt / f_mod, 1.0, 1.0 / (lambda_lt * lambda_lt)});  // (6.58)
+        modified = {kc, f_mod};
+      }
+      const double MbRd = chi_lt * Wy * fy / f.gamma_M1;  // (6.55)
+      if (wanted("6.3.2 lateral-torsional buckling", my.peak, MbRd)) {
+        std::vector<std::pair<std::string, double>> details{
+            {"Mcr", Mcr},          {"W_y", Wy},      {"lambda_LT", lambda_lt}, {"alpha_LT", alpha_lt},
+            {"lambda_LT_0", lambda_0}, {"beta", beta}, {"Phi_LT", phi_lt},     {"chi_LT", chi_lt_unmodified}};
+        if (modified) details.insert(details.end(), {{"kc", (*modified)[0]}, {"f", (*modified)[1]}, {"chi_LT_mod", chi_lt}});
+        details.insert(details.end(), {{"M_Ed", my.peak}, {"M_b_Rd", MbRd}});
+        const std::string basis =
+            ends_only ? fmt::format("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and "
+                                    "no restraint between{}",
+                                    lT, my.linear ? "" : "; span loads on the top flange (conservative default)")
+                      : fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", lT,
+                                    my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
+        const std::string modification =
+            modified ? fmt::format(", f = {:.3f} (kc = {:.3f}, 6.58)", (*modified)[1], (*modified)[0]) : std::string();
+        CheckResult r = result(
+            "6.3.2 lateral-torsional buckling",
+            fmt::format("EN 1993-1-1 {}{}, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}{}; {}", method_name(method),
+                        ltb.method == LateralTorsionalMethod::rolled && !rolled_curve ? " (6.3.2.3 covers I sections only)"
+                                                                                      : "",
+                        curve_name(curve), Mcr / 1e3, chi_lt, modification, basis),
+            line.stations[my.peak_station].x, my.peak, MbRd, "N*m");
+        r.details = std::move(details);
+        out.push_back(std::move(r));
+      }
     }
   }
 
-  if (NEd > 0) {
-    // 6.3.3 (6.61), (6.62) with the interaction factors of Annex B (method 2).
-    const double Cmy = equivalent_moment_factor(my, in.buckling.y), Cmz = equivalent_moment_factor(mz, in.buckling.z);
-    const double Cmlt = Cmy;
-    const bool plastic = cls_member <= 2;
-    // n_z takes the smaller of the flexural and the torsional chi (conservative: 6.3.3(4) names only
-    // the flexural one, but a section that twists first cannot reach it).
-    const double n_y = NEd / (chi_y * NRk / f.gamma_M1), n_z = NEd / (std::min(chi_z, chi_t) * NRk / f.gamma_M1);
-    const bool i_section = s.shape == SectionShape::rolled_i || s.shape == SectionShape::welded_i;
-    // Table B.1.
-    const double kyy = plastic ? Cmy * (1 + std::min(lambda_y - 0.2, 0.8) * n_y) : Cmy * (1 + 0.6 * std::min(lambda_y, 1.0) * n_y);
-    const double kzz = plastic ? (i_section ? Cmz * (1 + std::min(2 * lambda_z - 0.6, 1.4) * n_z)
-                                            : Cmz * (1 + std::min(lambda_z - 0.2, 0.8) * n_z))
-                               : Cmz * (1 + 0.6 * std::min(lambda_z, 1.0) * n_z);
-    const double kyz = plastic ? 0.6 * kzz : kzz;
-    double kzy = plastic ? 0.6 * kyy : 0.8 * kyy;
-    if (is_open(s.shape)) {
-      // Table B.2: members susceptible to torsional deformations.
-      const double c = plastic ? 0.1 : 0.05, lz = std::min(lambda_z, 1.0);
-      kzy = 1 - c * lz * n_z / (Cmlt - 0.25);
-      if (plastic && lambda_z < 0.4) kzy = std::min(0.6 + lambda_z, kzy);
-    }
-    const double MyRk = Wy * fy, MzRk = Wz * fy;
-    const double u61 = n_y + kyy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kyz * mz.peak / (MzRk / f.gamma_M1);
-    const double u62 = n_z + kzy * my.peak / (chi_lt * MyRk / f.gamma_M1) + kzz * mz.peak / (MzRk / f.gamma_M1);
+  if (NEd > 0 && !lateral_torsional_bounded) {
+    const auto [u61, u62] = interaction(chi_lt);
     if (wanted("6.3.3 interaction", std::max(u61, u62), 1.0)) {
       CheckResult r = result("6.3.3 interaction",
                              fmt::format("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
@@ -391,6 +430,8 @@ std::vector<CheckResult> check_members(const FrameModel& model, const std::vecto
     if (m < buckling.size()) in.buckling = buckling[m];
     MemberIntegrals integrals{&shared_integrals, nullptr};
     in.integrals = &integrals;
+    CriticalMomentReference mcr_reference;
+    in.mcr_reference = &mcr_reference;
     for (const LoadResult* r : results) {
       const LineResult line = member_line(model, *r, chains[m], LineDetail::forces);
       in.length = line.length;

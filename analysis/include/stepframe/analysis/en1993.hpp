@@ -17,6 +17,7 @@
 #include <array>
 #include <optional>
 #include <string>
+#include <functional>
 #include <vector>
 
 namespace stepframe::analysis::en1993 {
@@ -188,6 +189,34 @@ bool lie_at(const std::vector<DiagramPoint>& diagram, const std::vector<double>&
 double critical_moment_for_diagram(const LateralTorsionalStiffness& stiffness, const DiagramIntegrals& integrals,
                                    const std::vector<DiagramPoint>& diagram, double load_height = 0);
 
+/// What the last diagram solved exactly on a member leaves for bounding the
+/// next one's Mcr: its scaled matrix S = K^-1/2 G K^-1/2 (Mcr = max|M| /
+/// lambda_max(S)) and that largest eigenvalue.
+struct CriticalMomentReference {
+  std::vector<double> s;  ///< S, 2 terms x 2 terms, column-major; empty: nothing solved yet
+  double mu = 0;          ///< lambda_max(S)
+};
+
+/// Mcr, or a lower bound on it.
+struct CriticalMomentEstimate {
+  double value = 0;    ///< [N m]
+  bool exact = true;   ///< false: value is a lower bound (the eigenproblem was not solved)
+};
+
+/// critical_moment_for_diagram, or only a lower bound on it when the caller's
+/// `bound_suffices(lower)` says that bound settles its question (a check that
+/// cannot govern). The bound needs no eigenproblem: lambda_max moves by at most
+/// the norm of the change of S (Weyl's inequality, lambda_max(A + E) <=
+/// lambda_max(A) + ||E||_2 <= lambda_max(A) + ||E||_F; Golub & Van Loan,
+/// Matrix Computations, 4th ed. 2013, 8.1.2; from memory), so Mcr >= max|M| /
+/// (mu_ref + ||S - S_ref||_F) with a margin of 1e-12 ||S||_F for rounding. An
+/// exact solution replaces `reference`; a bound leaves it.
+CriticalMomentEstimate critical_moment_or_bound(const LateralTorsionalStiffness& stiffness,
+                                                const DiagramIntegrals& integrals,
+                                                const std::vector<DiagramPoint>& diagram, double load_height,
+                                                CriticalMomentReference& reference,
+                                                const std::function<bool(double)>& bound_suffices);
+
 /// Equivalent uniform moment factor Cm of Annex B Table B.3 for a linear
 /// diagram: 0.6 + 0.4 psi >= 0.4.
 double cm_linear(double psi);
@@ -240,6 +269,11 @@ struct MemberInput {
   /// keeps them from one load result to the next (check_members gives one per
   /// member, all drawing on one shared cache); null: worked out for each result.
   MemberIntegrals* integrals = nullptr;
+  /// Where the check keeps the member's last Mcr solved exactly, to bound the
+  /// next result's from below and leave out the eigenproblem of a result whose
+  /// 6.3.2 and 6.3.3 checks cannot govern (check_members gives one per member);
+  /// null: every Mcr solved. Used only together with `integrals`.
+  CriticalMomentReference* mcr_reference = nullptr;
 };
 
 /// The EN 1993-1-1 checks of every member under every listed result, the
