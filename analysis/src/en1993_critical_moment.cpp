@@ -157,30 +157,34 @@ ScaledProblem scaled_problem(const LateralTorsionalStiffness& k, const DiagramIn
   }
   // Sums of the points' (or intervals') n x n blocks, each block contiguous: plain loops, p in order (on
   // the stack: this runs for every member and result).
-  std::array<double, (most / 2) * (most / 2)> sum;
-  std::fill_n(sum.begin(), block, 0.0);
-  auto add = [&](double weight, const double* b) {
-    for (std::size_t i = 0; i < block; ++i) sum[i] += weight * b[i];
-  };
-  Matrix G = Matrix::Zero(2 * n, 2 * n);
-  // 1/2 x^T G x = sum a_i b_j c_ij, c_ij = int M (i pi / L)^2 sin_i sin_j dx = sum_p M_p (the point's block).
-  for (std::size_t p = 0; p < diagram.size(); ++p)
-    if (diagram[p].M != 0) add(diagram[p].M, integrals.moment.data() + p * block);
-  G.topRightCorner(n, n) = Eigen::Map<const Matrix>(sum.data(), n, n);
-  G.bottomLeftCorner(n, n) = G.topRightCorner(n, n).transpose();
-  // Load-height term: the transverse load on each interval is the drop of the shear across it, taken at
-  // its middle.
-  if (load_height != 0) {
+  std::array<double, (most / 2) * (most / 2)> c, d;
+  auto sum_of = [&](std::array<double, (most / 2) * (most / 2)>& sum, auto weight_of, std::size_t count,
+                    const double* blocks) {
     std::fill_n(sum.begin(), block, 0.0);
-    for (std::size_t p = 0; p + 1 < diagram.size(); ++p) {
-      const double Q = std::abs(diagram[p].V - diagram[p + 1].V);
-      if (Q != 0) add(Q * load_height, integrals.load.data() + p * block);
-    }
-    G.bottomRightCorner(n, n) = Eigen::Map<const Matrix>(sum.data(), n, n);
-  }
-  // G x = mu K x with K diagonal and positive: mu of K^-1/2 G K^-1/2; lambda = 1 / mu_max.
+    for (std::size_t p = 0; p < count; ++p)
+      if (const double weight = weight_of(p); weight != 0)
+        for (std::size_t i = 0; i < block; ++i) sum[i] += weight * blocks[p * block + i];
+  };
+  // G = [0 C; C^T D]. 1/2 x^T G x = sum a_i b_j c_ij, c_ij = int M (i pi / L)^2 sin_i sin_j dx = sum_p M_p
+  // (the point's block).
+  sum_of(c, [&](std::size_t p) { return diagram[p].M; }, diagram.size(), integrals.moment.data());
+  // Load-height term D: the transverse load on each interval is the drop of the shear across it, taken at
+  // its middle.
+  if (load_height != 0)
+    sum_of(d, [&](std::size_t p) { return std::abs(diagram[p].V - diagram[p + 1].V) * load_height; },
+           diagram.size() - 1, integrals.load.data());
+  // G x = mu K x with K diagonal and positive: mu of S = K^-1/2 G K^-1/2; lambda = 1 / mu_max. S block by
+  // block, each entry (r_a G_ab) r_b with r = K^-1/2.
   const Vector r = K.cwiseSqrt().cwiseInverse();
-  out.s = r.asDiagonal() * G * r.asDiagonal();
+  out.s.resize(2 * n, 2 * n);
+  out.s.topLeftCorner(n, n).setZero();
+  for (Eigen::Index j = 0; j < n; ++j)
+    for (Eigen::Index i = 0; i < n; ++i) {
+      const double cij = c[static_cast<std::size_t>(j * n + i)];  // column-major
+      out.s(i, n + j) = (r(i) * cij) * r(n + j);
+      out.s(n + j, i) = (r(n + j) * cij) * r(i);
+      out.s(n + i, n + j) = load_height != 0 ? (r(n + i) * d[static_cast<std::size_t>(j * n + i)]) * r(n + j) : 0.0;
+    }
   return out;
 }
 
