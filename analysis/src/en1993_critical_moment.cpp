@@ -20,8 +20,7 @@ namespace stepframe::analysis::en1993 {
 
 namespace {
 
-// Matrices and vectors of at most 64 rows and columns, kept on the stack (no heap traffic for
-// the small eigenproblem solved for every member and combination).
+// Small matrices and vectors, kept on the stack (largest_eigenvalue.hpp).
 constexpr int most = detail::small_most;
 using Matrix = detail::SmallMatrix;
 using Vector = detail::SmallVector;
