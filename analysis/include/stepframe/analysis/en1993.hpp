@@ -15,9 +15,9 @@
 #include "stepframe/analysis/section.hpp"
 
 #include <array>
+#include <functional>
 #include <optional>
 #include <string>
-#include <functional>
 #include <vector>
 
 namespace stepframe::analysis::en1993 {
