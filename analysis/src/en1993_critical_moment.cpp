@@ -126,6 +126,7 @@ namespace {
 struct ScaledProblem {
   Matrix s;
   double peak = 0;
+  Vector r;  // K^-1/2
 };
 
 ScaledProblem scaled_problem(const LateralTorsionalStiffness& k, const DiagramIntegrals& integrals,
@@ -174,7 +175,8 @@ ScaledProblem scaled_problem(const LateralTorsionalStiffness& k, const DiagramIn
            diagram.size() - 1, integrals.load.data());
   // G x = mu K x with K diagonal and positive: mu of S = K^-1/2 G K^-1/2; lambda = 1 / mu_max. S block by
   // block, each entry (r_a G_ab) r_b with r = K^-1/2.
-  const Vector r = K.cwiseSqrt().cwiseInverse();
+  out.r = K.cwiseSqrt().cwiseInverse();
+  const Vector& r = out.r;
   out.s.resize(2 * n, 2 * n);
   out.s.topLeftCorner(n, n).setZero();
   for (Eigen::Index j = 0; j < n; ++j)
@@ -200,6 +202,35 @@ double largest_mu(const ScaledProblem& problem, bool load_height) {
   return detail::largest_eigenvalue(problem.s);
 }
 
+// What S is linear in (scaled_problem's block weights): M at each point, then Q zg on each interval.
+double weight(const std::vector<DiagramPoint>& diagram, double load_height, std::size_t i) {
+  if (i < diagram.size()) return diagram[i].M;
+  const std::size_t p = i - diagram.size();
+  return load_height != 0 ? std::abs(diagram[p].V - diagram[p + 1].V) * load_height : 0.0;
+}
+
+// The Frobenius norm of S's change per unit of each weight: sqrt 2 ||R B_p R|| for a point's moment block
+// (above and below the diagonal), ||R L_p R|| for an interval's load-height block.
+std::vector<double> unit_changes(const Vector& r, const DiagramIntegrals& integrals) {
+  const auto n = static_cast<Eigen::Index>(integrals.terms);
+  const auto block = static_cast<std::size_t>(n * n);
+  const std::size_t points = integrals.x.size();
+  std::vector<double> out;
+  out.reserve(2 * points - 1);
+  auto norm = [&](const double* b, Eigen::Index row_offset) {
+    double sum = 0;
+    for (Eigen::Index j = 0; j < n; ++j)
+      for (Eigen::Index i = 0; i < n; ++i) {
+        const double v = r(row_offset + i) * b[static_cast<std::size_t>(j * n + i)] * r(n + j);
+        sum += v * v;
+      }
+    return std::sqrt(sum);
+  };
+  for (std::size_t p = 0; p < points; ++p) out.push_back(std::sqrt(2.0) * norm(integrals.moment.data() + p * block, 0));
+  for (std::size_t p = 0; p + 1 < points; ++p) out.push_back(norm(integrals.load.data() + p * block, n));
+  return out;
+}
+
 }  // namespace
 
 double critical_moment_for_diagram(const LateralTorsionalStiffness& k, const DiagramIntegrals& integrals,
@@ -213,6 +244,21 @@ CriticalMomentEstimate critical_moment_or_bound(const LateralTorsionalStiffness&
                                                 CriticalMomentReference& reference,
                                                 const std::function<bool(double)>& bound_suffices) {
   constexpr double infinite = std::numeric_limits<double>::infinity();
+  auto lower_from = [&](double peak, double mu_above) { return mu_above > 0 ? peak / mu_above : infinite; };
+  if (bound_suffices && !reference.s.empty() && lie_at(diagram, reference.x)) {
+    // Without building S: ||S - S_ref||_F <= sum |w - w_ref| (unit change). The margin covers the
+    // rounding of both S's sums (a few units in the last place of sum |w| (unit change) each) and of
+    // both eigenvalues (of ||S||).
+    double peak = 0, change = 0, scale = 0;
+    for (const auto& p : diagram) peak = std::max(peak, std::abs(p.M));
+    for (std::size_t i = 0; i < reference.weights.size(); ++i) {
+      const double w = weight(diagram, load_height, i);
+      change += std::abs(w - reference.weights[i]) * reference.unit_changes[i];
+      scale += (std::abs(w) + std::abs(reference.weights[i])) * reference.unit_changes[i];
+    }
+    const double mu_above = reference.mu + change + 1e-12 * (scale + reference.size + change);
+    if (peak > 0 && bound_suffices(lower_from(peak, mu_above))) return {lower_from(peak, mu_above), false};
+  }
   const ScaledProblem problem = scaled_problem(k, integrals, diagram, load_height);
   if (problem.s.size() == 0) return {infinite, true};  // no moment, or no length
   const auto entries = static_cast<std::size_t>(problem.s.size());
@@ -225,13 +271,19 @@ CriticalMomentEstimate critical_moment_or_bound(const LateralTorsionalStiffness&
       change += d * d;
       size += problem.s.data()[i] * problem.s.data()[i] + reference.s[i] * reference.s[i];
     }
-    const double mu_above = reference.mu + std::sqrt(change) + 1e-12 * std::sqrt(size);
-    const double lower = mu_above > 0 ? problem.peak / mu_above : infinite;
+    const double lower = lower_from(problem.peak, reference.mu + std::sqrt(change) + 1e-12 * std::sqrt(size));
     if (bound_suffices(lower)) return {lower, false};
   }
   const double mu = largest_mu(problem, load_height != 0);
   reference.s.assign(problem.s.data(), problem.s.data() + entries);
   reference.mu = mu;
+  reference.size = problem.s.norm();
+  if (reference.x != integrals.x) {
+    reference.x = integrals.x;
+    reference.unit_changes = unit_changes(problem.r, integrals);
+  }
+  reference.weights.resize(reference.unit_changes.size());
+  for (std::size_t i = 0; i < reference.weights.size(); ++i) reference.weights[i] = weight(diagram, load_height, i);
   return {mu > 0 ? problem.peak / mu : infinite, true};
 }
 

@@ -191,10 +191,16 @@ double critical_moment_for_diagram(const LateralTorsionalStiffness& stiffness, c
 
 /// What the last diagram solved exactly on a member leaves for bounding the
 /// next one's Mcr: its scaled matrix S = K^-1/2 G K^-1/2 (Mcr = max|M| /
-/// lambda_max(S)) and that largest eigenvalue.
+/// lambda_max(S)) and that largest eigenvalue, and what S is made of.
 struct CriticalMomentReference {
   std::vector<double> s;  ///< S, 2 terms x 2 terms, column-major; empty: nothing solved yet
   double mu = 0;          ///< lambda_max(S)
+  double size = 0;        ///< ||S||_F
+  std::vector<double> x;  ///< the points' positions
+  /// S is linear in these weights (the diagram's M at each point, then Q zg on each interval) ...
+  std::vector<double> weights;
+  /// ... and one unit of each changes S by at most this (Frobenius norm of its scaled block).
+  std::vector<double> unit_changes;
 };
 
 /// Mcr, or a lower bound on it.
@@ -209,8 +215,10 @@ struct CriticalMomentEstimate {
 /// the norm of the change of S (Weyl's inequality, lambda_max(A + E) <=
 /// lambda_max(A) + ||E||_2 <= lambda_max(A) + ||E||_F; Golub & Van Loan,
 /// Matrix Computations, 4th ed. 2013, 8.1.2; from memory), so Mcr >= max|M| /
-/// (mu_ref + ||S - S_ref||_F) with a margin of 1e-12 ||S||_F for rounding. An
-/// exact solution replaces `reference`; a bound leaves it.
+/// (mu_ref + ||S - S_ref||_F) with a margin of 1e-12 ||S||_F for rounding.
+/// ||S - S_ref||_F is first bounded without building S, by the weights'
+/// changes times their unit changes (the triangle inequality), then taken
+/// from S itself. An exact solution replaces `reference`; a bound leaves it.
 CriticalMomentEstimate critical_moment_or_bound(const LateralTorsionalStiffness& stiffness,
                                                 const DiagramIntegrals& integrals,
                                                 const std::vector<DiagramPoint>& diagram, double load_height,
