@@ -219,6 +219,7 @@ struct CriticalMomentEstimate {
 /// ||S - S_ref||_F is first bounded without building S, by the weights'
 /// changes times their unit changes (the triangle inequality), then taken
 /// from S itself. An exact solution replaces `reference`; a bound leaves it.
+/// A reference belongs to one member: its stiffness, length and stations.
 CriticalMomentEstimate critical_moment_or_bound(const LateralTorsionalStiffness& stiffness,
                                                 const DiagramIntegrals& integrals,
                                                 const std::vector<DiagramPoint>& diagram, double load_height,
