@@ -5,6 +5,8 @@
 // (a relative rounding of 5e-13, far below any engineering tolerance, and a
 // quarter of the text of the full 17); non-finite numbers become null.
 
+#include "significant_digits.hpp"
+
 #include <fmt/format.h>
 
 #include <array>
@@ -44,10 +46,8 @@ class JsonWriter {
   void value(double v) {
     separate();
     if (!std::isfinite(v)) return append("null");
-    // 12 significant digits as printf's %.12g; std::to_chars writes the same text as fmt's "{:.12g}" in
-    // two thirds of the time (a results.json holds millions of numbers).
-    char text[32];
-    out_.append(text, std::to_chars(text, text + sizeof text, v, std::chars_format::general, 12).ptr);
+    char text[32];  // 12 significant digits as printf's %.12g
+    out_.append(text, significant_digits<12>(v, text));
   }
   void value(std::size_t v) {
     separate();

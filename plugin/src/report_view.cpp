@@ -3,6 +3,7 @@
 // result's forces and stress ratio per member, and each member's checks.
 
 #include "report_parts.hpp"
+#include "significant_digits.hpp"
 
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/viz/browser_view.hpp"
@@ -25,7 +26,7 @@ void n5(std::string& d, double value) {
     return;
   }
   char text[32];
-  d.append(text, std::to_chars(text, text + sizeof text, value, std::chars_format::general, 5).ptr);
+  d.append(text, detail::significant_digits<5>(value, text));
 }
 std::string n5(double value) {
   std::string d;
