@@ -6,11 +6,12 @@
 // numbers, the report's 3D view some hundred thousand).
 //
 // For 1e-30 <= |v| < 1e30 the digits come from one product m = |v| 10^k in
-// [10^(P-1), 10^P): the power is the double nearest to it and the product is
-// rounded once, so m is within 2^-52 m < 2^-12 of the exact value and its
-// nearest integer is the correctly rounded one unless m lies within 2^-10 of
-// a half. Those numbers, and every other (zero, the extremes, subnormals),
-// are written by std::to_chars, which is exact throughout.
+// [10^(P-1), 10^P): the power is the double nearest to 10^k and the product
+// is rounded once (each a relative error of at most 2^-53), so m is within
+// 2^-52 m < 2^-12 of the exact value (m < 10^12 < 2^40) and its nearest
+// integer is the correctly rounded one unless m lies within 2^-10 of a half.
+// Those numbers, and every other (zero, the extremes, subnormals), are
+// written by std::to_chars, which is exact throughout.
 
 #include <array>
 #include <charconv>
