@@ -137,6 +137,12 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   const Station* class_station = nullptr;
   Classification class_worst;
   std::array<double, 5> shear_worst{};  // station, Vy, Vz, Vpl_y_Rd, Vpl_z_Rd
+  // The member's kept 6.2 utilisation: this result replaces it only through a station above it, so
+  // a station whose linear sum (an upper bound, below) is not above it needs no plastic solve either.
+  double section_kept = -1;
+  if (kept)
+    for (const CheckResult& k : *kept)
+      if (k.check == "6.2 cross-section") section_kept = k.utilisation;
   struct {
     bool plastic = false;
     Classification cls;
@@ -159,9 +165,10 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     if (VplY > 0 && Vy > 0.5 * VplY) MzRd *= 1.0 - std::pow(std::min(2 * Vy / VplY - 1, 1.0), 2);
     // Class 1 and 2 I and rectangular hollow sections: the plastic interaction of 6.2.9.1; otherwise the
     // linear sum (6.2), valid for every class 1 to 3 section. The linear sum bounds the plastic
-    // utilisation from above, so a station where it cannot beat the worst so far needs no plastic solve.
+    // utilisation from above, so a station where it cannot beat the worst so far, or the member's kept
+    // result, needs no plastic solve (its linear sum stands in: never above what the result must beat).
     const double linear = std::abs(N) / NRd + std::abs(My) / MyRd + std::abs(Mz) / MzRd;
-    const std::optional<double> plastic = cls.section_class <= 2 && linear > worst_section
+    const std::optional<double> plastic = cls.section_class <= 2 && linear > std::max(worst_section, section_kept)
                                               ? plastic_interaction(s, {NRd, MyRd, MzRd}, N, My, Mz)
                                               : std::nullopt;
     const double u = plastic ? *plastic : linear;
