@@ -151,5 +151,5 @@ TEST_CASE("member checks over many results keep the same worst results with Mcr 
     plastic = plastic || checked[i].clause.find("6.2.9.1") != std::string::npos;
   }
   CHECK(ltb);
-  CHECK(plastic);  // 6.2 by 6.2.9.1, whose plastic solve is also left out where the kept result cannot fall
+  CHECK(plastic);  // a 6.2 result by 6.2.9.1, the path whose plastic solve is left out at some stations
 }
