@@ -116,11 +116,15 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   // Whether a result of `check` with this value and limit is wanted: without `kept` always, else
   // only when it would replace the one kept (keep_worst keeps the first of equals). The others
   // are left out before their words are formatted.
-  auto may_replace = [kept](std::string_view check, double u) {
-    if (!kept) return true;
-    for (const CheckResult& k : *kept)
-      if (k.check == check) return u > k.utilisation;
-    return true;
+  auto kept_utilisation = [kept](std::string_view check) -> std::optional<double> {
+    if (kept)
+      for (const CheckResult& k : *kept)
+        if (k.check == check) return k.utilisation;
+    return std::nullopt;
+  };
+  auto may_replace = [&](std::string_view check, double u) {
+    const std::optional<double> k = kept_utilisation(check);
+    return !k || u > *k;
   };
   auto wanted = [&](std::string_view check, double value, double limit) {
     return may_replace(check, limit > 0 ? value / limit : 0.0);  // u as result() below
@@ -139,10 +143,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   std::array<double, 5> shear_worst{};  // station, Vy, Vz, Vpl_y_Rd, Vpl_z_Rd
   // The member's kept 6.2 utilisation: this result replaces it only through a station above it, so
   // a station whose linear sum (an upper bound, below) is not above it needs no plastic solve either.
-  double section_kept = -1;
-  if (kept)
-    for (const CheckResult& k : *kept)
-      if (k.check == "6.2 cross-section") section_kept = k.utilisation;
+  const double section_kept = kept_utilisation("6.2 cross-section").value_or(-1.0);
   struct {
     bool plastic = false;
     Classification cls;
