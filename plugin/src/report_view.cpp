@@ -12,7 +12,6 @@
 #include <nlohmann/json.hpp>
 #include <spdlog/spdlog.h>
 
-#include <charconv>
 
 namespace stepframe::report {
 namespace {
