@@ -69,18 +69,7 @@ void inner_node_forces(JsonWriter& w, const analysis::FrameModel& model, const a
   w.end_array();
 }
 
-void write_result(JsonWriter& w, const analysis::FrameModel& model, const analysis::LoadResult& r) {
-  w.begin_object();
-  w.key("name").value(r.name);
-  w.key("kind").value(r.is_combination ? "combination" : "case");
-  if (r.is_combination) w.key("limit_state").value(r.serviceability ? "sls" : "uls");
-  // Elastic critical load factor and the lowest buckling modes' factors (null / empty when not computed).
-  if (r.alpha_cr) w.key("alpha_cr").value(*r.alpha_cr);
-  else w.key("alpha_cr").null();
-  w.key("buckling_factors").begin_array();
-  for (const auto& mode : r.buckling_modes) w.value(mode.alpha);
-  w.end_array();
-  w.key("second_order").value(r.second_order);
+void displacements(JsonWriter& w, const analysis::FrameModel& model, const analysis::LoadResult& r) {
   w.key("displacements").begin_array();
   for (std::size_t n = 0; n < model.nodes.size(); ++n) {
     const auto d = r.displacements.segment<6>(static_cast<Eigen::Index>(6 * n));
@@ -94,6 +83,9 @@ void write_result(JsonWriter& w, const analysis::FrameModel& model, const analys
     w.end_object();
   }
   w.end_array();
+}
+
+void reactions(JsonWriter& w, const analysis::FrameModel& model, const analysis::LoadResult& r) {
   std::vector<bool> supported(model.nodes.size(), false);
   for (const auto& s : model.supports) supported[s.node] = true;
   w.key("reactions").begin_array();
@@ -110,6 +102,9 @@ void write_result(JsonWriter& w, const analysis::FrameModel& model, const analys
     w.end_object();
   }
   w.end_array();
+}
+
+void member_summaries(JsonWriter& w, const analysis::FrameModel& model, const analysis::LoadResult& r) {
   w.key("members").begin_array();
   for (std::size_t m = 0; m < r.members.size(); ++m) {
     const auto& res = r.members[m];
@@ -129,6 +124,33 @@ void write_result(JsonWriter& w, const analysis::FrameModel& model, const analys
     w.end_object();
   }
   w.end_array();
+}
+
+// One result; without `details` (outputs.result_details) its node displacements and member summaries
+// are left out, and named in "left_out".
+void write_result(JsonWriter& w, const analysis::FrameModel& model, const analysis::LoadResult& r, bool details) {
+  w.begin_object();
+  w.key("name").value(r.name);
+  w.key("kind").value(r.is_combination ? "combination" : "case");
+  if (r.is_combination) w.key("limit_state").value(r.serviceability ? "sls" : "uls");
+  // Elastic critical load factor and the lowest buckling modes' factors (null / empty when not computed).
+  if (r.alpha_cr) w.key("alpha_cr").value(*r.alpha_cr);
+  else w.key("alpha_cr").null();
+  w.key("buckling_factors").begin_array();
+  for (const auto& mode : r.buckling_modes) w.value(mode.alpha);
+  w.end_array();
+  w.key("second_order").value(r.second_order);
+  if (details) {
+    displacements(w, model, r);
+    reactions(w, model, r);
+    member_summaries(w, model, r);
+  } else {
+    w.key("left_out").begin_array();
+    w.value("displacements");
+    w.value("members");
+    w.end_array();
+    reactions(w, model, r);
+  }
   w.end_object();
 }
 
@@ -240,9 +262,10 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
   w.newline();
 
   w.key("results").begin_array();
-  for (const auto& r : a.results) {
+  const std::vector<bool> details = selected_results(a, a.project.outputs.result_details);
+  for (std::size_t i = 0; i < a.results.size(); ++i) {
     w.newline();
-    write_result(w, model, r);
+    write_result(w, model, a.results[i], details[i]);
   }
   w.end_array();
   w.newline();

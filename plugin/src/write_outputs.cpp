@@ -14,8 +14,6 @@
 #include <cerrno>
 #include <fstream>
 #include <future>
-#include <map>
-#include <optional>
 #include <set>
 
 namespace stepframe {
@@ -32,79 +30,10 @@ std::string file_stem(const std::string& name, std::set<std::string>& used) {
   return unique;
 }
 
-// The results a `combinations` selection leaves out: every sway-imperfection variant of a
-// combination but the one that governs it, i.e. carries the largest utilisation of a member check
-// among the combination's variants (each check names the result that governs it; when no check names
-// a variant, the variant with the largest von Mises stress of a member).
-std::vector<bool> ungoverning_variants(const Analysis& analysis) {
-  std::vector<bool> left_out(analysis.results.size(), false);
-  std::map<std::string, std::size_t> index;
-  for (std::size_t i = 0; i < analysis.results.size(); ++i) index.emplace(analysis.results[i].name, i);
-  std::map<std::size_t, double> utilisation;  // of each result named by a member check
-  for (const auto& c : analysis.checks)
-    if (c.member != analysis::whole_frame)
-      if (const auto it = index.find(c.combination); it != index.end())
-        utilisation[it->second] = std::max(utilisation[it->second], c.utilisation);
-  auto largest_stress = [&](std::size_t i) {
-    double s = 0;
-    for (const auto& m : analysis.results[i].members) s = std::max(s, m.max_von_mises);
-    return s;
-  };
-  std::map<std::string, std::vector<std::size_t>> variants;  // of each combination
-  for (const auto& record : analysis.sway_imperfections)
-    for (const auto& name : record.variants)
-      if (const auto it = index.find(name); it != index.end()) variants[record.combination].push_back(it->second);
-  for (const auto& [combination, list] : variants) {
-    const bool checked = std::any_of(list.begin(), list.end(), [&](std::size_t i) { return utilisation.count(i) > 0; });
-    auto measure = [&](std::size_t i) {
-      if (!checked) return largest_stress(i);
-      const auto it = utilisation.find(i);
-      return it != utilisation.end() ? it->second : -1.0;
-    };
-    std::size_t kept = list.front();
-    for (std::size_t i : list)
-      if (measure(i) > measure(kept)) kept = i;  // the first of equals: the order the variants were made in
-    for (std::size_t i : list) left_out[i] = i != kept;
-  }
-  return left_out;
-}
-
 }  // namespace
 
 std::filesystem::path default_out_dir(const std::filesystem::path& project_file) {
   return project_file.parent_path() / (project_file.stem().string() + "-results");
-}
-
-std::vector<std::size_t> governing_results(const Analysis& analysis) {
-  // Combinations when there are any (cases otherwise), as the checks see them.
-  std::vector<std::size_t> pool;
-  for (std::size_t i = 0; i < analysis.results.size(); ++i)
-    if (analysis.results[i].is_combination) pool.push_back(i);
-  if (pool.empty())
-    for (std::size_t i = 0; i < analysis.results.size(); ++i) pool.push_back(i);
-  auto index_of = [&](const std::string& name) -> std::optional<std::size_t> {
-    for (std::size_t i : pool)
-      if (analysis.results[i].name == name) return i;
-    return std::nullopt;
-  };
-  std::vector<std::size_t> chosen;
-  auto choose = [&](std::optional<std::size_t> i) {
-    if (i && std::find(chosen.begin(), chosen.end(), *i) == chosen.end()) chosen.push_back(*i);
-  };
-  // The largest member utilisation, then the lowest alpha_cr.
-  const analysis::CheckResult* worst = nullptr;
-  for (const auto& c : analysis.checks)
-    if (c.member != analysis::whole_frame && (!worst || c.utilisation > worst->utilisation)) worst = &c;
-  if (worst) choose(index_of(worst->combination));
-  std::optional<std::size_t> lowest;
-  for (std::size_t i : pool)
-    if (analysis.results[i].alpha_cr &&
-        (!lowest || *analysis.results[i].alpha_cr < *analysis.results[*lowest].alpha_cr))
-      lowest = i;
-  choose(lowest);
-  if (chosen.empty() && !pool.empty()) choose(pool.front());
-  std::sort(chosen.begin(), chosen.end());
-  return chosen;
 }
 
 std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir,
@@ -132,18 +61,9 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
   std::vector<double> utilisation(model.members.size(), 0.0);
   for (const auto& c : analysis.checks)
     if (c.member != analysis::whole_frame) utilisation[c.member] = std::max(utilisation[c.member], c.utilisation);
-  const std::vector<std::size_t> governing = governing_results(analysis);
-  const std::vector<bool> left_out = ungoverning_variants(analysis);
-  auto wanted = [&](VtkSelection selection, std::size_t result) {
-    const bool governs = std::find(governing.begin(), governing.end(), result) != governing.end();
-    switch (selection) {
-      case VtkSelection::all: return true;
-      case VtkSelection::combinations: return governs || !left_out[result];
-      case VtkSelection::governing: return governs;
-      case VtkSelection::none: return false;
-    }
-    return false;
-  };
+  const std::vector<bool> line_models = selected_results(analysis, outputs.line_models);
+  const std::vector<bool> surfaces = selected_results(analysis, outputs.surfaces);
+  const std::vector<bool> buckling_modes = selected_results(analysis, outputs.buckling_modes);
   // Four writers run side by side, each with files of its own: the report (its pictures on a thread of
   // their own), the tables, results.json, and the VTK files on this thread. They read the analysis only
   // and call no one back; progress is reported from this thread alone. results.json has a thread of its
@@ -176,13 +96,13 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
       const std::string stem = file_stem(result.name, used);
       const std::filesystem::path line = std::filesystem::path("vtk") / (stem + ".vtu");
       const std::filesystem::path surface = std::filesystem::path("vtk") / (stem + ".surface.vtu");
-      if (wanted(outputs.line_models, i)) {
+      if (line_models[i]) {
         viz::write_line_model_vtu(dir / line, model, result, utilisation,
                                   {outputs.line_model_points, outputs.compression, analysis.shop.marks});
         written.push_back(line);
         index.push_back({"line model", result.name, line});
       }
-      if (wanted(outputs.surfaces, i)) {
+      if (surfaces[i]) {
         viz::SurfaceOptions surface_options;
         surface_options.compression = outputs.compression;
         surface_options.sections_per_element = outputs.surface_sections;
@@ -190,7 +110,7 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
         written.push_back(surface);
         index.push_back({"surface model", result.name, surface});
       }
-      if (!wanted(outputs.buckling_modes, i)) continue;
+      if (!buckling_modes[i]) continue;
       for (std::size_t m = 0; m < result.buckling_modes.size(); ++m) {
         const std::filesystem::path mode = std::filesystem::path("vtk") / fmt::format("{}.mode{}.vtu", stem, m + 1);
         viz::write_mode_vtu(dir / mode, model, result, m, outputs.compression);

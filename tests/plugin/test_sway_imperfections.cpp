@@ -170,3 +170,64 @@ TEST_CASE("sway amplification 1/(1 - 1/alpha_cr) of EN 1993-1-1 5.2.2(5)") {
   // Without the amplification the sway is smaller by about the factor k (wind and imperfection both amplified).
   CHECK(top_sway(amplified, "ULS.sway+X") > 1.1 * top_sway(amplified, "ULS"));
 }
+
+TEST_CASE("outputs.result_details: results.json details the sway variant that governs, or every result") {
+  // Every variant is solved, checked and keeps its reactions; by default only the variant with the
+  // largest member utilisation among a combination's variants keeps its node displacements and member
+  // summaries, the same rule as for the line models.
+  test::ScratchDir dir;
+  write_portal(dir);
+  auto detailed = [](const nlohmann::json& doc) {
+    std::set<std::string> names;
+    for (const auto& res : doc["results"]) {
+      const bool has = res.contains("members") && res.contains("displacements");
+      CHECK(has != res.contains("left_out"));
+      if (!has) CHECK(res["left_out"] == nlohmann::json::array({"displacements", "members"}));
+      CHECK(res["reactions"].size() == 2);  // both feet, detailed or not
+      if (has) names.insert(res["name"].get<std::string>());
+    }
+    return names;
+  };
+  const Results r = run_text(portal_project(""), dir.path());
+  INFO(r.message());
+  REQUIRE(r.analysed());
+  // The variant whose member checks reach the largest utilisation, from the checks themselves.
+  std::string worst;
+  double largest = -1;
+  for (const auto& c : r.json()["checks"]) {
+    const auto name = c["combination"].get<std::string>();
+    if (!c["member"].is_null() && name.find("ULS.sway") == 0 && c["utilisation"].get<double>() > largest) {
+      largest = c["utilisation"].get<double>();
+      worst = name;
+    }
+  }
+  REQUIRE(!worst.empty());
+  CHECK(detailed(r.json()) == std::set<std::string>{"G", "ULS", "SLS", worst});
+  const auto& defaults = r.json()["results"];
+
+  SECTION("all") {
+    const Results all = run_text(portal_project("outputs: {result_details: all}\n"), dir.path());
+    INFO(all.message());
+    REQUIRE(all.analysed());
+    CHECK(detailed(all.json()).size() == 7);
+    // What the default keeps is written the same.
+    for (std::size_t i = 0; i < defaults.size(); ++i)
+      if (defaults[i].contains("members")) CHECK(all.json()["results"][i] == defaults[i]);
+  }
+  SECTION("governing and none") {
+    const Results governing = run_text(portal_project("outputs: {result_details: governing}\n"), dir.path());
+    INFO(governing.message());
+    REQUIRE(governing.analysed());
+    std::set<std::string> expected;
+    for (std::size_t i : governing_results(governing.analysis())) expected.insert(governing.analysis().results[i].name);
+    CHECK(detailed(governing.json()) == expected);
+    const Results none = run_text(portal_project("outputs: {result_details: none}\n"), dir.path());
+    REQUIRE(none.analysed());
+    CHECK(detailed(none.json()).empty());
+  }
+  SECTION("a bad value names the key") {
+    const Results bad = run_text(portal_project("outputs: {result_details: some}\n"), dir.path());
+    CHECK(bad.status() == ExitStatus::bad_input);
+    CHECK_THAT(bad.message(), Contains("outputs.result_details") && Contains("got 'some'"));
+  }
+}

@@ -200,7 +200,8 @@ struct ChecksSpec {
   double gamma_M1 = 1.0;
 };
 
-/// Which results a kind of VTK file is written for.
+/// Which results a kind of output is written for: a kind of VTK file, or
+/// results.json's node displacements and member summaries.
 enum class VtkSelection {
   all,        ///< every case and combination, and every sway-imperfection variant of a combination
   /// Every case and combination, and of a combination's sway-imperfection variants (EN 1993-1-1 5.3.2)
@@ -210,15 +211,19 @@ enum class VtkSelection {
   none,
 };
 
-/// What a run writes besides results.json, the tables and the report (the
-/// `outputs:` block). The defaults keep a building-sized run's folder small:
-/// line models for every case and combination (of a combination's sway
-/// variants the governing one), surfaces and buckling modes for the
-/// governing combinations only.
+/// What a run writes (the `outputs:` block). The defaults keep a
+/// building-sized run's folder small: line models, and results.json's node
+/// displacements and member summaries, for every case and combination (of a
+/// combination's sway variants the governing one), surfaces and buckling
+/// modes for the governing combinations only.
 struct OutputsSpec {
   VtkSelection line_models = VtkSelection::combinations;  ///< outputs.line_models
   VtkSelection surfaces = VtkSelection::governing;       ///< outputs.surfaces
   VtkSelection buckling_modes = VtkSelection::governing;  ///< outputs.buckling_modes
+  /// outputs.result_details: the results whose node displacements and member
+  /// summaries results.json holds (every result keeps its name, alpha_cr and
+  /// reactions; every variant is solved and checked whatever this says).
+  VtkSelection result_details = VtkSelection::combinations;
   viz::VtkCompression compression = viz::VtkCompression::lz4;  ///< outputs.compression
   std::size_t line_model_points = 11;  ///< outputs.line_model_points: points per element in line models
   std::size_t surface_sections = 3;    ///< outputs.surface_sections: outlines per element in surfaces

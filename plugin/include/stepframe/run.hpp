@@ -105,6 +105,13 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
 /// of the largest member utilisation and the one with the lowest alpha_cr.
 std::vector<std::size_t> governing_results(const Analysis& analysis);
 
+/// Which of analysis.results `selection` picks (one flag per result): every
+/// one (all), none, the governing results (governing), or every case and
+/// combination with, of a combination's sway-imperfection variants, the one
+/// that governs it (the largest member utilisation among them) besides the
+/// governing results (combinations).
+std::vector<bool> selected_results(const Analysis& analysis, VtkSelection selection);
+
 /// The default output folder: "<project stem>-results" beside the project file.
 std::filesystem::path default_out_dir(const std::filesystem::path& project_file);
 
