@@ -153,19 +153,27 @@ Vector12d end_actions_from_start(const ElementProperties& p, const Vector6d& f0,
   return f;
 }
 
-Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads) {
+CantileverFlexibility cantilever_flexibility(const ElementProperties& p) {
+  const Vector6d zero = Vector6d::Zero();
+  const LocalLoads none;
+  Eigen::Matrix<double, 6, 6> flexibility;
+  for (int i = 0; i < 6; ++i) flexibility.col(i) = element_state_at(p, zero, Vector6d::Unit(i), none, p.length);
+  return flexibility.partialPivLu();
+}
+
+Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads, const CantileverFlexibility& flexibility) {
   // With zero start state, the end state is F f0 + e(loads), linear in f0; the
   // fixed end needs it to vanish: f0 = -F^-1 e. F is the cantilever's
   // flexibility (its columns are the end states of unit start actions).
   if (loads.empty()) return Vector12d::Zero();
-  const double L = p.length;
-  const Vector6d zero = Vector6d::Zero();
-  const LocalLoads none;
-  Eigen::Matrix<double, 6, 6> flexibility;
-  for (int i = 0; i < 6; ++i) flexibility.col(i) = element_state_at(p, zero, Vector6d::Unit(i), none, L);
-  const Vector6d e = element_state_at(p, zero, zero, loads, L);
-  const Vector6d f0 = -flexibility.partialPivLu().solve(e);
+  const Vector6d e = element_state_at(p, Vector6d::Zero(), Vector6d::Zero(), loads, p.length);
+  const Vector6d f0 = -flexibility.solve(e);
   return end_actions_from_start(p, f0, loads);
+}
+
+Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads) {
+  if (loads.empty()) return Vector12d::Zero();
+  return fixed_end_actions(p, loads, cantilever_flexibility(p));
 }
 
 LocalLoad to_local(const ElementLoad& load, const Eigen::Matrix3d& axes, double length) {

@@ -1,6 +1,7 @@
 #include "stepframe/analysis/member_line.hpp"
 
 #include "stepframe/analysis/assembly.hpp"
+#include "stepframe/analysis/element_constants.hpp"
 #include "stepframe/analysis/element_geometry.hpp"
 #include "stepframe/analysis/material.hpp"
 
@@ -53,12 +54,19 @@ LocalLoads element_loads(const LoadResult& result, std::size_t element) {
 
 ElementState element_state(const FrameModel& model, const LoadResult& result, std::size_t e) {
   const FrameElement& element = model.elements[e];
-  const ElementGeometry geo = element_geometry(model, e);
   ElementState es;
   es.section = &model.sections[element.section];
-  es.properties = element_properties(*es.section, model.materials[element.material], geo.length,
-                                     model.settings.shear_deformation);
-  es.axes = geo.axes;
+  if (result.element_constants && result.element_constants->size() == model.elements.size()) {
+    const ElementConstants& c = (*result.element_constants)[e];
+    es.properties = c.properties;
+    es.axes = c.geometry.axes;
+    es.flexibility = c.flexibility ? &*c.flexibility : nullptr;
+  } else {
+    const ElementGeometry geo = element_geometry(model, e);
+    es.properties = element_properties(*es.section, model.materials[element.material], geo.length,
+                                       model.settings.shear_deformation);
+    es.axes = geo.axes;
+  }
   es.origin = model.nodes[element.nodes[0]];
   es.end_displacements << result.displacements.segment<6>(global_dof(element.nodes[0], ux)),
       result.displacements.segment<6>(global_dof(element.nodes[1], ux));

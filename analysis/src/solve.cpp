@@ -2,6 +2,7 @@
 
 #include "stepframe/analysis/assembly.hpp"
 #include "stepframe/analysis/buckling.hpp"
+#include "stepframe/analysis/element_constants.hpp"
 #include "stepframe/analysis/element_recovery.hpp"
 #include "stepframe/analysis/load_vector.hpp"
 #include "stepframe/analysis/member_line.hpp"
@@ -315,7 +316,10 @@ Solution solve_beside_buckling(const FrameModel& given, const SolveOptions& opti
                                           dofs, factor);
   }
 
-  // Recovery of every case and combination (second order first where asked).
+  // Recovery of every case and combination (second order first where asked), each element's
+  // geometry, properties and flexibility worked out once for them all.
+  const auto constants = std::make_shared<const std::vector<ElementConstants>>(element_constants(model, results));
+  for (LoadResult& r : results) r.element_constants = constants;
   const auto chains = member_chains(model);
   for (std::size_t i = 0; i < results.size(); ++i) {
     report("recovery", static_cast<double>(i) / static_cast<double>(results.size()));

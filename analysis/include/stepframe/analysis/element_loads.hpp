@@ -16,6 +16,7 @@
 #include "stepframe/analysis/results.hpp"
 
 #include <Eigen/Core>
+#include <Eigen/LU>
 
 #include <vector>
 
@@ -63,6 +64,17 @@ Vector6d internal_forces_at(const Vector6d& f0, const LocalLoads& loads, double 
 /// flexibility of the element from element_state_at), the end actions follow
 /// from equilibrium.
 Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads);
+
+/// The cantilever's flexibility (its end state under unit start actions, no
+/// loads: column i is element_state_at for f0 = e_i at x = L), factorised. It
+/// depends on the element alone, so a caller recovering one element under many
+/// load results can work it out once.
+using CantileverFlexibility = Eigen::PartialPivLU<Eigen::Matrix<double, 6, 6>>;
+CantileverFlexibility cantilever_flexibility(const ElementProperties& p);
+
+/// fixed_end_actions with the element's cantilever_flexibility(p) given: the
+/// same numbers, bit for bit.
+Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads, const CantileverFlexibility& flexibility);
 
 /// End actions from the start actions by equilibrium of the whole element.
 Vector12d end_actions_from_start(const ElementProperties& p, const Vector6d& f0, const LocalLoads& loads);

@@ -50,6 +50,8 @@ struct ElementState {
   Eigen::Vector3d origin = Eigen::Vector3d::Zero();    ///< start node position, global [m]
   Vector12d end_displacements = Vector12d::Zero();     ///< the nodes' values, global axes, start then end
   LocalLoads loads;                                    ///< local axes
+  /// cantilever_flexibility(properties) when worked out beforehand (not owned); null: worked out here.
+  const CantileverFlexibility* flexibility = nullptr;
   EndReleases releases{};
   /// Second order: the element's stiffness includes the geometric stiffness
   /// of this axial force [N] and moments include N times the axis' lateral

@@ -88,6 +88,8 @@ struct LoadTerm {
   std::shared_ptr<const std::vector<LocalLoads>> loads;
 };
 
+struct ElementConstants;  // element_constants.hpp
+
 struct LoadResult {
   std::string name;
   bool is_combination = false;
@@ -99,6 +101,10 @@ struct LoadResult {
   /// The element loads of this result: the sum of the terms (one for a case,
   /// one per case for a combination).
   std::vector<LoadTerm> element_loads;
+  /// Each element's geometry, properties and flexibility, shared by the results
+  /// of one solve and valid for the model solved (element_constants.hpp);
+  /// empty: worked out for each recovery.
+  std::shared_ptr<const std::vector<ElementConstants>> element_constants;
   /// Stations per element when a line is recovered (member_results.hpp).
   std::size_t stations = 21;
   /// Second-order (P-Delta) result, iterated until the displacements changed
