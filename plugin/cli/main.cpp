@@ -79,7 +79,8 @@ void print_timings(stepframe::cli::ProgressDisplay& display) {
 }
 
 int run_command(const std::filesystem::path& project, const std::filesystem::path& out, bool json, bool show_progress,
-                bool timings, std::optional<stepframe::VtkSelection> vtk, const std::filesystem::path& baseline_path,
+                bool timings, std::optional<stepframe::VtkSelection> vtk,
+                std::optional<stepframe::VtkSelection> result_details, const std::filesystem::path& baseline_path,
                 double max_increase, bool suggest) {
   // The baseline is read first: a bad one stops the run before anything is written, and a baseline that
   // is the output folder itself (the previous run) is read before the run replaces it.
@@ -98,7 +99,7 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   control.cancel_flag = &stop_requested;
   control.idle_cores_for_factorisation = std::getenv("OPENBLAS_NUM_THREADS") == nullptr;
   catch_stop_signals();
-  const auto outcome = stepframe::run_project(project, out, control, vtk);
+  const auto outcome = stepframe::run_project(project, out, control, vtk, result_details);
   display.clear();
   finish_if_signalled(outcome.analysis.has_value());  // an analysis in the outcome: its files are written
   if (timings) print_timings(display);
@@ -206,14 +207,20 @@ int main(int argc, char** argv) {
   bool run_timings = false;
   run->add_flag("--timings", run_timings, "Print each stage's wall time on stderr after the run");
   std::optional<stepframe::VtkSelection> run_vtk;
-  const std::map<std::string, stepframe::VtkSelection> vtk_choices{
+  const std::map<std::string, stepframe::VtkSelection> selection_choices{
       {"all", stepframe::VtkSelection::all}, {"combinations", stepframe::VtkSelection::combinations},
       {"governing", stepframe::VtkSelection::governing}, {"none", stepframe::VtkSelection::none}};
   run->add_option("--vtk", run_vtk,
                   "VTK files for every result and sway variant (all), every case and combination with its governing "
                   "sway variant (combinations), the governing combinations (governing) or none, whatever the "
                   "project's outputs: block says")
-      ->transform(CLI::CheckedTransformer(vtk_choices, CLI::ignore_case));
+      ->transform(CLI::CheckedTransformer(selection_choices, CLI::ignore_case));
+  std::optional<stepframe::VtkSelection> run_result_details;
+  run->add_option("--result-details", run_result_details,
+                  "Node displacements and member summaries in results.json for every result and sway variant (all), "
+                  "every case and combination with its governing sway variant (combinations), the governing "
+                  "combinations (governing) or none, whatever the project's outputs: block says")
+      ->transform(CLI::CheckedTransformer(selection_choices, CLI::ignore_case));
 
   std::filesystem::path run_baseline;
   double run_max_increase = stepframe::CompareOptions{}.max_increase;
@@ -271,8 +278,8 @@ int main(int argc, char** argv) {
 
   try {
     if (*run)
-      return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk, run_baseline,
-                         run_max_increase, run_suggest);
+      return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk,
+                         run_result_details, run_baseline, run_max_increase, run_suggest);
     if (*compare) return stepframe::cli::compare_command(compare_options);
     if (*suggest) return stepframe::cli::suggest_command(suggest_options);
     if (*sections) return stepframe::cli::sections_command(sections_options);

@@ -11,7 +11,8 @@
 namespace stepframe {
 
 RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::filesystem::path& out_dir,
-                       const RunControl& control, const std::string& context, std::optional<VtkSelection> vtk) {
+                       const RunControl& control, const std::string& context, std::optional<VtkSelection> vtk,
+                       std::optional<VtkSelection> result_details) {
   const ScopedLogSink log_route(control.log_sink, control.log_level);
   RunOutcome outcome;
   try {
@@ -19,10 +20,9 @@ RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::file
     std::optional<detail::OutputFolderLock> lock;
     if (!out_dir.empty()) lock.emplace(out_dir);
     outcome.analysis = analyse();
-    if (vtk) {
-      auto& outputs = outcome.analysis->project.outputs;
-      outputs.line_models = outputs.surfaces = outputs.buckling_modes = *vtk;
-    }
+    auto& outputs = outcome.analysis->project.outputs;
+    if (vtk) outputs.line_models = outputs.surfaces = outputs.buckling_modes = *vtk;
+    if (result_details) outputs.result_details = *result_details;
     if (!out_dir.empty()) {
       outcome.files = detail::write_outputs_locked(*outcome.analysis, out_dir, control);
     }
@@ -44,9 +44,11 @@ RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::file
 }
 
 RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir,
-                       const RunControl& control, std::optional<VtkSelection> vtk) {
+                       const RunControl& control, std::optional<VtkSelection> vtk,
+                       std::optional<VtkSelection> result_details) {
   return run_guarded([&] { return analyse_project(project_file, control); },
-                     out_dir.empty() ? default_out_dir(project_file) : out_dir, control, project_file.string(), vtk);
+                     out_dir.empty() ? default_out_dir(project_file) : out_dir, control, project_file.string(), vtk,
+                     result_details);
 }
 
 }  // namespace stepframe

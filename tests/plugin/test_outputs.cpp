@@ -213,3 +213,30 @@ TEST_CASE("outputs.line_models: all writes every sway variant's line model; --vt
   CHECK(r.status == 2);
   CHECK_THAT(r.err, Contains("expected all, combinations, governing or none, got 'each'"));
 }
+
+TEST_CASE("run --result-details sets results.json's details whatever the project's outputs: block says") {
+  test::ScratchDir dir;
+  test::write_portal(dir);
+  const std::string project = test::read_text(dir / "portal.yaml");
+  test::write_text(dir / "portal.yaml", project + "outputs: {result_details: none}\n");
+  // The results written with their node displacements and member summaries.
+  auto detailed = [&](const std::string& options) {
+    const auto out = dir / "out";
+    const auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\" --out \"" + out.string() + "\"" +
+                                           options,
+                                       dir);
+    INFO(r.out << r.err);
+    REQUIRE((r.status == 0 || r.status == 1));
+    const auto j = nlohmann::json::parse(test::read_text(out / "results.json"));
+    std::size_t count = 0;
+    for (const auto& result : j["results"]) count += result.contains("members") ? 1 : 0;
+    CHECK(j["results"].size() == 8);  // G, W, ULS, SLS and ULS's four sway variants
+    return count;
+  };
+  CHECK(detailed("") == 0);
+  CHECK(detailed(" --result-details all") == 8);
+  CHECK(detailed(" --result-details combinations") == 5);  // G, W, ULS, SLS and ULS's governing variant
+  const auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\" --result-details some", dir);
+  CHECK(r.status != 0);
+  CHECK_THAT(r.err, Contains("--result-details"));
+}

@@ -128,9 +128,11 @@ struct RunOutcome {
 /// status and message (nothing is written unless the analysis completes).
 /// `out_dir` empty means default_out_dir(project_file). `vtk`, when given,
 /// sets every kind of VTK file (line models, surfaces, buckling modes) to
-/// that selection, whatever the project's `outputs` say.
+/// that selection, and `result_details` results.json's details
+/// (outputs.result_details), whatever the project's `outputs` say.
 RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir = {},
-                       const RunControl& control = {}, std::optional<VtkSelection> vtk = std::nullopt);
+                       const RunControl& control = {}, std::optional<VtkSelection> vtk = std::nullopt,
+                       std::optional<VtkSelection> result_details = std::nullopt);
 
 /// Runs `analyse`, writes the outputs under `out_dir` unless it is empty, and
 /// maps every failure to its exit status and message (`context` names the
@@ -138,7 +140,8 @@ RunOutcome run_project(const std::filesystem::path& project_file, const std::fil
 /// for the duration. run_project and the embedding API share it.
 RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::filesystem::path& out_dir,
                        const RunControl& control, const std::string& context,
-                       std::optional<VtkSelection> vtk = std::nullopt);
+                       std::optional<VtkSelection> vtk = std::nullopt,
+                       std::optional<VtkSelection> result_details = std::nullopt);
 
 /// A short human summary: status, governing member and check, per-result extremes.
 std::string summary_text(const Analysis& analysis);
