@@ -161,7 +161,8 @@ CantileverFlexibility cantilever_flexibility(const ElementProperties& p) {
   return flexibility.partialPivLu();
 }
 
-Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads, const CantileverFlexibility& flexibility) {
+Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads,
+                            const CantileverFlexibility& flexibility) {
   // With zero start state, the end state is F f0 + e(loads), linear in f0; the
   // fixed end needs it to vanish: f0 = -F^-1 e. F is the cantilever's
   // flexibility (its columns are the end states of unit start actions).

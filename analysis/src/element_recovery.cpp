@@ -101,8 +101,8 @@ struct Recovery {
 Recovery solve_ends(const ElementState& s) {
   Matrix12d k = local_stiffness(s.properties);
   if (s.second_order) k += local_geometric_stiffness(s.properties, s.axial_force);
-  const Vector12d fe =
-      s.flexibility ? fixed_end_actions(s.properties, s.loads, *s.flexibility) : fixed_end_actions(s.properties, s.loads);
+  const Vector12d fe = s.flexibility ? fixed_end_actions(s.properties, s.loads, *s.flexibility)
+                                      : fixed_end_actions(s.properties, s.loads);
   const Vector12d u_nodes = transformation(s.axes) * s.end_displacements;
   Recovery r;
   r.u = element_end_displacements(k, fe, s.releases, u_nodes);

@@ -142,15 +142,14 @@ void write_result(JsonWriter& w, const analysis::FrameModel& model, const analys
   w.key("second_order").value(r.second_order);
   if (details) {
     displacements(w, model, r);
-    reactions(w, model, r);
-    member_summaries(w, model, r);
   } else {
     w.key("left_out").begin_array();
     w.value("displacements");
     w.value("members");
     w.end_array();
-    reactions(w, model, r);
   }
+  reactions(w, model, r);
+  if (details) member_summaries(w, model, r);
   w.end_object();
 }
 

@@ -74,7 +74,8 @@ CantileverFlexibility cantilever_flexibility(const ElementProperties& p);
 
 /// fixed_end_actions with the element's cantilever_flexibility(p) given: the
 /// same numbers, bit for bit.
-Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads, const CantileverFlexibility& flexibility);
+Vector12d fixed_end_actions(const ElementProperties& p, const LocalLoads& loads,
+                            const CantileverFlexibility& flexibility);
 
 /// End actions from the start actions by equilibrium of the whole element.
 Vector12d end_actions_from_start(const ElementProperties& p, const Vector6d& f0, const LocalLoads& loads);
