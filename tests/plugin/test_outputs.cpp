@@ -48,6 +48,17 @@ std::vector<std::vector<std::string>> csv_rows(const std::string& text) {
   return rows;
 }
 
+// Runs `stepframe run` on dir/portal.yaml into dir/out with more options; the folder, once the run
+// has written it (exit status 0 or 1).
+std::filesystem::path run_portal(const test::ScratchDir& dir, const std::string& options) {
+  const auto out = dir / "out";
+  const auto r = test::run_stepframe(
+      "run \"" + (dir / "portal.yaml").string() + "\" --out \"" + out.string() + "\"" + options, dir);
+  INFO(r.out << r.err);
+  REQUIRE((r.status == 0 || r.status == 1));
+  return out;
+}
+
 }  // namespace
 
 TEST_CASE("a run writes every output, and each reads back consistently") {
@@ -190,12 +201,7 @@ TEST_CASE("outputs.line_models: all writes every sway variant's line model; --vt
   const std::string project = test::read_text(dir / "portal.yaml");
   test::write_text(dir / "portal.yaml", project + "outputs: {line_models: all}\n");
   auto line_models = [&](const std::string& options) {
-    const auto out = dir / "out";
-    const auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\" --out \"" + out.string() + "\"" +
-                                           options,
-                                       dir);
-    INFO(r.out << r.err);
-    REQUIRE((r.status == 0 || r.status == 1));
+    const auto out = run_portal(dir, options);
     std::vector<std::string> names;
     for (const auto& f : std::filesystem::directory_iterator(out / "vtk")) {
       const auto name = f.path().filename().string();
@@ -221,13 +227,7 @@ TEST_CASE("run --result-details sets results.json's details whatever the project
   test::write_text(dir / "portal.yaml", project + "outputs: {result_details: none}\n");
   // The results written with their node displacements and member summaries.
   auto detailed = [&](const std::string& options) {
-    const auto out = dir / "out";
-    const auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\" --out \"" + out.string() + "\"" +
-                                           options,
-                                       dir);
-    INFO(r.out << r.err);
-    REQUIRE((r.status == 0 || r.status == 1));
-    const auto j = nlohmann::json::parse(test::read_text(out / "results.json"));
+    const auto j = nlohmann::json::parse(test::read_text(run_portal(dir, options) / "results.json"));
     std::size_t count = 0;
     for (const auto& result : j["results"]) count += result.contains("members") ? 1 : 0;
     CHECK(j["results"].size() == 8);  // G, W, ULS, SLS and ULS's four sway variants
