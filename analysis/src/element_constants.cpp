@@ -2,13 +2,18 @@
 
 #include "stepframe/analysis/parallel.hpp"
 
+#include <set>
+
 namespace stepframe::analysis {
 
 std::vector<ElementConstants> element_constants(const FrameModel& model, const std::vector<LoadResult>& results) {
-  std::vector<bool> loaded(model.elements.size(), false);
+  // The results' terms share their cases' loads: each case's loads are looked at once.
+  std::set<const std::vector<LocalLoads>*> cases;
   for (const LoadResult& r : results)
-    for (const LoadTerm& term : r.element_loads)
-      for (std::size_t e = 0; e < loaded.size(); ++e) loaded[e] = loaded[e] || !(*term.loads)[e].empty();
+    for (const LoadTerm& term : r.element_loads) cases.insert(term.loads.get());
+  std::vector<bool> loaded(model.elements.size(), false);
+  for (const std::vector<LocalLoads>* loads : cases)
+    for (std::size_t e = 0; e < loaded.size(); ++e) loaded[e] = loaded[e] || !(*loads)[e].empty();
   std::vector<ElementConstants> constants(model.elements.size());
   parallel_for(constants.size(), [&](std::size_t e) {
     const FrameElement& element = model.elements[e];

@@ -82,14 +82,17 @@ std::vector<std::size_t> governing_results(const Analysis& analysis) {
   return chosen;
 }
 
-std::vector<bool> selected_results(const Analysis& analysis, VtkSelection selection) {
-  std::vector<bool> selected(analysis.results.size(), selection == VtkSelection::all);
+ResultSelection::ResultSelection(const Analysis& analysis)
+    : governing_(governing_results(analysis)), ungoverning_variants_(ungoverning_variants(analysis)) {}
+
+std::vector<bool> ResultSelection::operator()(VtkSelection selection) const {
+  std::vector<bool> selected(ungoverning_variants_.size(), selection == VtkSelection::all);
   if (selection == VtkSelection::all || selection == VtkSelection::none) return selected;
   if (selection == VtkSelection::combinations) {
-    selected = ungoverning_variants(analysis);
+    selected = ungoverning_variants_;
     selected.flip();
   }
-  for (std::size_t i : governing_results(analysis)) selected[i] = true;
+  for (std::size_t i : governing_) selected[i] = true;
   return selected;
 }
 

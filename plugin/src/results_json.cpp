@@ -261,7 +261,7 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
   w.newline();
 
   w.key("results").begin_array();
-  const std::vector<bool> details = selected_results(a, a.project.outputs.result_details);
+  const std::vector<bool> details = ResultSelection(a)(a.project.outputs.result_details);
   for (std::size_t i = 0; i < a.results.size(); ++i) {
     w.newline();
     write_result(w, model, a.results[i], details[i]);

@@ -61,9 +61,10 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
   std::vector<double> utilisation(model.members.size(), 0.0);
   for (const auto& c : analysis.checks)
     if (c.member != analysis::whole_frame) utilisation[c.member] = std::max(utilisation[c.member], c.utilisation);
-  const std::vector<bool> line_models = selected_results(analysis, outputs.line_models);
-  const std::vector<bool> surfaces = selected_results(analysis, outputs.surfaces);
-  const std::vector<bool> buckling_modes = selected_results(analysis, outputs.buckling_modes);
+  const ResultSelection selected(analysis);
+  const std::vector<bool> line_models = selected(outputs.line_models);
+  const std::vector<bool> surfaces = selected(outputs.surfaces);
+  const std::vector<bool> buckling_modes = selected(outputs.buckling_modes);
   // Four writers run side by side, each with files of its own: the report (its pictures on a thread of
   // their own), the tables, results.json, and the VTK files on this thread. They read the analysis only
   // and call no one back; progress is reported from this thread alone. results.json has a thread of its

@@ -105,12 +105,21 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
 /// of the largest member utilisation and the one with the lowest alpha_cr.
 std::vector<std::size_t> governing_results(const Analysis& analysis);
 
-/// Which of analysis.results `selection` picks (one flag per result): every
-/// one (all), none, the governing results (governing), or every case and
-/// combination with, of a combination's sway-imperfection variants, the one
-/// that governs it (the largest member utilisation among them) besides the
-/// governing results (combinations).
-std::vector<bool> selected_results(const Analysis& analysis, VtkSelection selection);
+/// Which of analysis.results each output selection picks, worked out once
+/// from the analysis (its checks and sway variants) for every selection asked.
+class ResultSelection {
+ public:
+  explicit ResultSelection(const Analysis& analysis);
+  /// One flag per result: every one (all), none, the governing results
+  /// (governing), or every case and combination with, of a combination's
+  /// sway-imperfection variants, the one that governs it (the largest member
+  /// utilisation among them) besides the governing results (combinations).
+  std::vector<bool> operator()(VtkSelection selection) const;
+
+ private:
+  std::vector<std::size_t> governing_;
+  std::vector<bool> ungoverning_variants_;
+};
 
 /// The default output folder: "<project stem>-results" beside the project file.
 std::filesystem::path default_out_dir(const std::filesystem::path& project_file);
