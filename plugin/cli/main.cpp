@@ -212,14 +212,14 @@ int main(int argc, char** argv) {
       {"governing", stepframe::VtkSelection::governing}, {"none", stepframe::VtkSelection::none}};
   run->add_option("--vtk", run_vtk,
                   "VTK files for every result and sway variant (all), every case and combination with its governing "
-                  "sway variant (combinations), the governing combinations (governing) or none, whatever the "
+                  "sway variant (combinations), the governing results (governing) or none, whatever the "
                   "project's outputs: block says")
       ->transform(CLI::CheckedTransformer(selection_choices, CLI::ignore_case));
   std::optional<stepframe::VtkSelection> run_result_details;
   run->add_option("--result-details", run_result_details,
                   "Node displacements and member summaries in results.json for every result and sway variant (all), "
                   "every case and combination with its governing sway variant (combinations), the governing "
-                  "combinations (governing) or none, whatever the project's outputs: block says")
+                  "results (governing) or none, whatever the project's outputs: block says")
       ->transform(CLI::CheckedTransformer(selection_choices, CLI::ignore_case));
 
   std::filesystem::path run_baseline;

@@ -1,5 +1,5 @@
 // Which results an output is written for (outputs.line_models, surfaces,
-// buckling_modes, result_details): the governing combinations, and the sway
+// buckling_modes, result_details): the governing results, and the sway
 // variants a `combinations` selection leaves out.
 
 #include "stepframe/run.hpp"
@@ -11,14 +11,23 @@
 namespace stepframe {
 namespace {
 
-// The results a `combinations` selection leaves out: every sway-imperfection variant of a
-// combination but the one that governs it, i.e. carries the largest utilisation of a member check
-// among the combination's variants (each check names the result that governs it; when no check names
-// a variant, the variant with the largest von Mises stress of a member).
-std::vector<bool> ungoverning_variants(const Analysis& analysis) {
-  std::vector<bool> left_out(analysis.results.size(), false);
+constexpr std::size_t no_result = static_cast<std::size_t>(-1);
+
+// The sway-imperfection variants of the analysis, per result: the combination a variant belongs to
+// (no_result for a case or combination), and per combination the variant that governs it, i.e. carries
+// the largest utilisation of a member check among the combination's variants (each check names the
+// result that governs it; when no check names a variant, the variant with the largest von Mises stress
+// of a member; the first of equals, in the order the variants were made in).
+struct SwayVariants {
+  std::vector<std::size_t> combination_of;
+  std::vector<std::size_t> governing_variant;  // per result: of a combination with variants, else no_result
+};
+
+SwayVariants sway_variants(const Analysis& analysis) {
+  const std::size_t count = analysis.results.size();
+  SwayVariants out{std::vector<std::size_t>(count, no_result), std::vector<std::size_t>(count, no_result)};
   std::map<std::string, std::size_t> index;
-  for (std::size_t i = 0; i < analysis.results.size(); ++i) index.emplace(analysis.results[i].name, i);
+  for (std::size_t i = 0; i < count; ++i) index.emplace(analysis.results[i].name, i);
   std::map<std::size_t, double> utilisation;  // of each result named by a member check
   for (const auto& c : analysis.checks)
     if (c.member != analysis::whole_frame)
@@ -29,11 +38,12 @@ std::vector<bool> ungoverning_variants(const Analysis& analysis) {
     for (const auto& m : analysis.results[i].members) s = std::max(s, m.max_von_mises);
     return s;
   };
-  std::map<std::string, std::vector<std::size_t>> variants;  // of each combination
+  std::map<std::size_t, std::vector<std::size_t>> of;  // each combination's variants (a record per axis)
   for (const auto& record : analysis.sway_imperfections)
-    for (const auto& name : record.variants)
-      if (const auto it = index.find(name); it != index.end()) variants[record.combination].push_back(it->second);
-  for (const auto& [combination, list] : variants) {
+    if (const auto combination = index.find(record.combination); combination != index.end())
+      for (const auto& name : record.variants)
+        if (const auto it = index.find(name); it != index.end()) of[combination->second].push_back(it->second);
+  for (const auto& [combination, list] : of) {
     const bool checked = std::any_of(list.begin(), list.end(), [&](std::size_t i) { return utilisation.count(i) > 0; });
     auto measure = [&](std::size_t i) {
       if (!checked) return largest_stress(i);
@@ -41,16 +51,16 @@ std::vector<bool> ungoverning_variants(const Analysis& analysis) {
       return it != utilisation.end() ? it->second : -1.0;
     };
     std::size_t kept = list.front();
-    for (std::size_t i : list)
-      if (measure(i) > measure(kept)) kept = i;  // the first of equals: the order the variants were made in
-    for (std::size_t i : list) left_out[i] = i != kept;
+    for (std::size_t i : list) {
+      out.combination_of[i] = combination;
+      if (measure(i) > measure(kept)) kept = i;
+    }
+    out.governing_variant[combination] = kept;
   }
-  return left_out;
+  return out;
 }
 
-}  // namespace
-
-std::vector<std::size_t> governing_results(const Analysis& analysis) {
+std::vector<std::size_t> governing_results(const Analysis& analysis, const SwayVariants& variants) {
   // Combinations when there are any (cases otherwise), as the checks see them.
   std::vector<std::size_t> pool;
   for (std::size_t i = 0; i < analysis.results.size(); ++i)
@@ -76,14 +86,30 @@ std::vector<std::size_t> governing_results(const Analysis& analysis) {
     if (analysis.results[i].alpha_cr &&
         (!lowest || *analysis.results[i].alpha_cr < *analysis.results[*lowest].alpha_cr))
       lowest = i;
+  // A combination with sway variants (EN 1993-1-1 5.3.2) is designed for with its imperfections: its
+  // governing variant stands for it (alpha_cr is the combination's, the variants add no axial force).
+  if (lowest && variants.governing_variant[*lowest] != no_result) lowest = variants.governing_variant[*lowest];
   choose(lowest);
   if (chosen.empty() && !pool.empty()) choose(pool.front());
   std::sort(chosen.begin(), chosen.end());
   return chosen;
 }
 
-ResultSelection::ResultSelection(const Analysis& analysis)
-    : governing_(governing_results(analysis)), ungoverning_variants_(ungoverning_variants(analysis)) {}
+}  // namespace
+
+std::vector<std::size_t> governing_results(const Analysis& analysis) {
+  return governing_results(analysis, sway_variants(analysis));
+}
+
+ResultSelection::ResultSelection(const Analysis& analysis) {
+  const SwayVariants variants = sway_variants(analysis);
+  governing_ = governing_results(analysis, variants);
+  combination_of_ = variants.combination_of;
+  ungoverning_variants_.assign(analysis.results.size(), false);
+  for (std::size_t i = 0; i < analysis.results.size(); ++i)
+    ungoverning_variants_[i] = variants.combination_of[i] != no_result &&
+                               variants.governing_variant[variants.combination_of[i]] != i;
+}
 
 std::vector<bool> ResultSelection::operator()(VtkSelection selection) const {
   std::vector<bool> selected(ungoverning_variants_.size(), selection == VtkSelection::all);
@@ -93,6 +119,12 @@ std::vector<bool> ResultSelection::operator()(VtkSelection selection) const {
     selected.flip();
   }
   for (std::size_t i : governing_) selected[i] = true;
+  return selected;
+}
+
+std::vector<bool> ResultSelection::with_combinations(std::vector<bool> selected) const {
+  for (std::size_t i = 0; i < selected.size() && i < combination_of_.size(); ++i)
+    if (selected[i] && combination_of_[i] != no_result) selected[combination_of_[i]] = true;
   return selected;
 }
 

@@ -64,7 +64,7 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
   const ResultSelection selected(analysis);
   const std::vector<bool> line_models = selected(outputs.line_models);
   const std::vector<bool> surfaces = selected(outputs.surfaces);
-  const std::vector<bool> buckling_modes = selected(outputs.buckling_modes);
+  const std::vector<bool> buckling_modes = selected.with_combinations(selected(outputs.buckling_modes));
   // Four writers run side by side, each with files of its own: the report (its pictures on a thread of
   // their own), the tables, results.json, and the VTK files on this thread. They read the analysis only
   // and call no one back; progress is reported from this thread alone. results.json has a thread of its

@@ -112,8 +112,22 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
       REQUIRE(grid->GetCellData()->GetArray("utilisation"));
     }
   }
-  SECTION("the surface model shows the fibre stresses") {
-    const auto grid = read_vtu(out / "vtk" / "ULS.surface.vtu");
+  SECTION("one surface model, of the governing result, and it shows the fibre stresses") {
+    // The governing results: the largest member utilisation (ULS's governing sway variant here) and
+    // the lowest alpha_cr (ULS, which its governing variant stands for): one surface, none of ULS
+    // without its imperfections.
+    const auto worst = std::max_element(utilisation.begin(), utilisation.end(),
+                                        [](const auto& a, const auto& b) { return a.second < b.second; });
+    REQUIRE(worst->first == governing_variant);
+    REQUIRE(j["results"][2]["name"] == "ULS");
+    REQUIRE(j["results"][3]["name"] == "SLS");
+    REQUIRE(j["results"][2]["alpha_cr"].is_number());  // the only alpha_cr (SLS asks for no buckling analysis)
+    REQUIRE(j["results"][3]["alpha_cr"].is_null());
+    std::vector<std::string> surfaces;
+    for (const auto& e : std::filesystem::directory_iterator(out / "vtk"))
+      if (e.path().filename().string().ends_with(".surface.vtu")) surfaces.push_back(e.path().filename().string());
+    CHECK(surfaces == std::vector<std::string>{governing_variant + ".surface.vtu"});
+    const auto grid = read_vtu(out / "vtk" / (governing_variant + ".surface.vtu"));
     REQUIRE(grid->GetNumberOfCells() > 50);  // three members, outlines at three sections of each element
     auto* fibre = grid->GetPointData()->GetArray("fibre_stress");
     REQUIRE(fibre);
@@ -122,13 +136,14 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
     CHECK(range[0] < 0);  // compression and tension fibres both show
     CHECK(range[1] > 0);
     // The extreme fibre stress cannot exceed the largest normal stress of the line model.
-    const auto line = read_vtu(out / "vtk" / "ULS.vtu");
+    const auto line = read_vtu(out / "vtk" / (governing_variant + ".vtu"));
     double normal[2];
     line->GetCellData()->GetArray("normal_stress")->GetRange(normal);
     CHECK(std::max(-range[0], range[1]) <= normal[1] * (1 + 1e-9));
   }
-  SECTION("buckling modes and the multiblock index") {
+  SECTION("buckling modes (ULS's, the combination of the governing variant) and the multiblock index") {
     REQUIRE(j["results"][2]["alpha_cr"].is_number());
+    CHECK_FALSE(std::filesystem::exists(out / "vtk" / "SLS.mode1.vtu"));
     const auto mode = read_vtu(out / "vtk" / "ULS.mode1.vtu");
     REQUIRE(mode->GetPointData()->GetArray("mode_shape"));
     CHECK(mode->GetFieldData()->GetArray("alpha")->GetTuple1(0) ==

@@ -207,7 +207,7 @@ enum class VtkSelection {
   /// Every case and combination, and of a combination's sway-imperfection variants (EN 1993-1-1 5.3.2)
   /// the one that governs it (its largest member utilisation), besides the governing results.
   combinations,
-  governing,  ///< the combinations that govern: the largest member utilisation and the lowest alpha_cr
+  governing,  ///< the results that govern: the largest member utilisation and the lowest alpha_cr (governing_results)
   none,
 };
 

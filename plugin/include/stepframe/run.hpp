@@ -102,7 +102,9 @@ std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const
 
 /// The results the `governing` output selection writes, as indices into
 /// analysis.results: the combination (case, when there are no combinations)
-/// of the largest member utilisation and the one with the lowest alpha_cr.
+/// of the largest member utilisation and the one with the lowest alpha_cr,
+/// where a combination with sway-imperfection variants (EN 1993-1-1 5.3.2)
+/// is represented by the variant that governs it.
 std::vector<std::size_t> governing_results(const Analysis& analysis);
 
 /// Which of analysis.results each output selection picks, worked out once
@@ -115,9 +117,13 @@ class ResultSelection {
   /// sway-imperfection variants, the one that governs it (the largest member
   /// utilisation among them) besides the governing results (combinations).
   std::vector<bool> operator()(VtkSelection selection) const;
+  /// `selected` with the combination of each selected sway variant added
+  /// (a variant's buckling modes are its combination's).
+  std::vector<bool> with_combinations(std::vector<bool> selected) const;
 
  private:
   std::vector<std::size_t> governing_;
+  std::vector<std::size_t> combination_of_;  ///< per result: a variant's combination, else -1
   std::vector<bool> ungoverning_variants_;
 };
 
