@@ -41,8 +41,7 @@ ElementSystem element_system(const FrameModel& model, std::size_t e, const Local
   const CondensedElement c = condense_releases(k, fe, element.releases);
   // Global element stiffness K_e = T^T k T (congruent transformation) and
   // equivalent nodal loads F = -T^T f0 (common practice).
-  const Matrix12d t = transformation(geo.axes);
-  return ElementSystem{t.transpose() * c.k * t, -(t.transpose() * c.fixed_end)};
+  return ElementSystem{to_global(geo.axes, c.k), -to_global(geo.axes, c.fixed_end)};
 }
 
 Eigen::SparseMatrix<double> assemble_stiffness(const FrameModel& model, const std::vector<double>* axial_forces) {

@@ -185,8 +185,7 @@ Sparse negative_geometric_stiffness(const Mesh& mesh, const std::vector<double>&
       const ElementGeometry geo = element_geometry(m, p);
       const ElementProperties props =
           element_properties(m.sections[el.section], m.materials[el.material], geo.length, m.settings.shear_deformation);
-      const Matrix12d t = transformation(geo.axes);
-      kg = t.transpose() * local_geometric_stiffness(props, forces[p]) * t;
+      kg = to_global(geo.axes, local_geometric_stiffness(props, forces[p]));
     }
     for (int i = 0; i < 12; ++i) {
       const Eigen::Index r = dofs.free_index[static_cast<std::size_t>(global_dof(el.nodes[static_cast<std::size_t>(i / 6)], i % 6))];

@@ -103,7 +103,7 @@ Recovery solve_ends(const ElementState& s) {
   if (s.second_order) k += local_geometric_stiffness(s.properties, s.axial_force);
   const Vector12d fe = s.flexibility ? fixed_end_actions(s.properties, s.loads, *s.flexibility)
                                       : fixed_end_actions(s.properties, s.loads);
-  const Vector12d u_nodes = transformation(s.axes) * s.end_displacements;
+  const Vector12d u_nodes = to_local(s.axes, s.end_displacements);
   Recovery r;
   r.u = element_end_displacements(k, fe, s.releases, u_nodes);
   r.end = k * r.u + fe;  // superposition of deformation and fixed-end actions (common practice)

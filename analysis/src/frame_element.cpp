@@ -94,6 +94,26 @@ Matrix12d transformation(const Eigen::Matrix3d& axes) {
   return t;
 }
 
+Matrix12d to_global(const Eigen::Matrix3d& axes, const Matrix12d& local) {
+  Matrix12d out;
+  for (int i = 0; i < 4; ++i)
+    for (int j = 0; j < 4; ++j)
+      out.block<3, 3>(3 * i, 3 * j).noalias() = axes.transpose() * (local.block<3, 3>(3 * i, 3 * j) * axes);
+  return out;
+}
+
+Vector12d to_global(const Eigen::Matrix3d& axes, const Vector12d& local) {
+  Vector12d out;
+  for (int i = 0; i < 4; ++i) out.segment<3>(3 * i).noalias() = axes.transpose() * local.segment<3>(3 * i);
+  return out;
+}
+
+Vector12d to_local(const Eigen::Matrix3d& axes, const Vector12d& global) {
+  Vector12d out;
+  for (int i = 0; i < 4; ++i) out.segment<3>(3 * i).noalias() = axes * global.segment<3>(3 * i);
+  return out;
+}
+
 Vector12d member_end_forces(const ElementProperties& p, const Vector12d& u_local,
                             const Eigen::Vector3d& q_local) {
   // Superposition of the deformation forces and the fixed-end reactions (common practice).

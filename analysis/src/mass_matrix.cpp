@@ -83,8 +83,7 @@ Eigen::SparseMatrix<double> assemble_mass(const FrameModel& model, const AddedMa
                                                          model.settings.shear_deformation);
       m = condensed_mass(m, local_stiffness(props), el.releases);
     }
-    const Matrix12d t = transformation(geo.axes);
-    const Matrix12d global = t.transpose() * m * t;  // congruent transformation, as the stiffness
+    const Matrix12d global = to_global(geo.axes, m);  // congruent transformation, as the stiffness
     for (int a = 0; a < 12; ++a)
       for (int b = 0; b < 12; ++b)
         if (global(a, b) != 0.0)

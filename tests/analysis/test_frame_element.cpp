@@ -6,9 +6,12 @@
 
 #include "frame_fixtures.hpp"
 #include "stepframe/analysis/frame_element.hpp"
+#include "stepframe/analysis/geometric_stiffness.hpp"
 #include "stepframe/analysis/local_axes.hpp"
 
 #include <catch2/catch.hpp>
+
+#include <cmath>
 
 using namespace stepframe::analysis;
 
@@ -70,6 +73,27 @@ TEST_CASE("rigid-body motions produce no end forces", "[analysis][element]") {
   Vector12d rigid;
   rigid << shift + omega.cross(a), omega, shift + omega.cross(b), omega;
   CHECK((kg * rigid).norm() <= 1e-11 * kg.cwiseAbs().maxCoeff() * rigid.norm());
+}
+
+TEST_CASE("to_global and to_local by 3 x 3 blocks equal the dense products with T", "[analysis][element]") {
+  // An inclined, rolled member's axes and a full local matrix (the stiffness plus a geometric part,
+  // every block non-zero after rotation) and vector: the block forms against T^T k T, T^T v and T u.
+  const ElementProperties p = sample_properties();
+  const Eigen::Matrix3d axes = local_axes(Eigen::Vector3d(1, -2, 0.5), Eigen::Vector3d(3.5, 1, 4), 0.7);
+  const Matrix12d t = transformation(axes);
+  const Matrix12d k = local_stiffness(p) + local_geometric_stiffness(p, -3e5);
+  Vector12d v;
+  for (int i = 0; i < 12; ++i) v(i) = std::sin(1.0 + static_cast<double>(i));
+  const Matrix12d dense = t.transpose() * k * t;
+  CHECK((to_global(axes, k) - dense).norm() <= 1e-14 * dense.norm());
+  CHECK((to_global(axes, v) - t.transpose() * v).norm() <= 1e-15 * v.norm());
+  CHECK((to_local(axes, v) - t * v).norm() <= 1e-15 * v.norm());
+  CHECK((to_local(axes, to_global(axes, v)) - v).norm() <= 1e-15 * v.norm());  // R R^T = I
+  // An axis-aligned member keeps its exact zeros (the assembly leaves zero entries out).
+  const Eigen::Matrix3d along_x = local_axes(Eigen::Vector3d(0, 0, 0), Eigen::Vector3d(4, 0, 0), 0.0);
+  const Matrix12d aligned = to_global(along_x, local_stiffness(p));
+  const Matrix12d aligned_dense = transformation(along_x).transpose() * local_stiffness(p) * transformation(along_x);
+  CHECK(((aligned.array() == 0) == (aligned_dense.array() == 0)).all());
 }
 
 TEST_CASE("equivalent nodal loads of a uniform load", "[analysis][element]") {

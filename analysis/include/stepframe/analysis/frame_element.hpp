@@ -56,6 +56,16 @@ Vector12d equivalent_nodal_loads(double length, const Eigen::Vector3d& q_local);
 /// vectors (see local_axes), so that local vectors = T * global vectors.
 Matrix12d transformation(const Eigen::Matrix3d& axes);
 
+/// T^T k T (congruent transformation of a local element matrix to global
+/// axes) with T = transformation(axes), worked out block by block: T is
+/// block-diagonal, so the 3 x 3 block IJ is R^T k_IJ R (a fifth of the
+/// products of the dense triple product; equal to it up to rounding).
+Matrix12d to_global(const Eigen::Matrix3d& axes, const Matrix12d& local);
+/// T^T v: a local 12-vector in global axes, R^T on each 3-vector.
+Vector12d to_global(const Eigen::Matrix3d& axes, const Vector12d& local);
+/// T u: a global 12-vector in local axes, R on each 3-vector.
+Vector12d to_local(const Eigen::Matrix3d& axes, const Vector12d& global);
+
 /// Forces and moments the two nodes exert on the member, local axes:
 /// f = k u_local - equivalent_nodal_loads(q_local).
 Vector12d member_end_forces(const ElementProperties& p, const Vector12d& u_local,
