@@ -58,8 +58,8 @@ Matrix12d transformation(const Eigen::Matrix3d& axes);
 
 /// T^T k T (congruent transformation of a local element matrix to global
 /// axes) with T = transformation(axes), worked out block by block: T is
-/// block-diagonal, so the 3 x 3 block IJ is R^T k_IJ R (a fifth of the
-/// products of the dense triple product; equal to it up to rounding).
+/// block-diagonal, so the 3 x 3 block IJ is R^T k_IJ R (a quarter of the
+/// multiplications of the dense triple product; equal to it up to rounding).
 Matrix12d to_global(const Eigen::Matrix3d& axes, const Matrix12d& local);
 /// T^T v: a local 12-vector in global axes, R^T on each 3-vector.
 Vector12d to_global(const Eigen::Matrix3d& axes, const Vector12d& local);
