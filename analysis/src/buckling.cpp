@@ -273,6 +273,102 @@ std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eige
   return std::nullopt;
 }
 
+// Block Krylov iteration with Rayleigh-Ritz for a pattern with no similar
+// one solved before: block Lanczos in exact arithmetic (Golub & Van Loan,
+// Matrix Computations, 4th ed. 2013, 10.3.6), with the whole basis Q kept
+// K-orthonormal (Q^T K Q = I), so that the Ritz pairs are the eigenpairs of
+// H = Q^T G Q, x = Q y. A = K^-1 G is self-adjoint in the K inner product
+// u^T K v; each step solves W = A X for the p Ritz vectors X with the largest
+// mu at once and extends Q by their residuals S = W - X diag(mu), which
+// Rayleigh-Ritz makes K-orthogonal to Q already (one pass of Gram-Schmidt
+// removes the rounding). Some eigenvalue lies within min(|s|_K, |s|_K^2 / gap)
+// of each mu (Parlett, The Symmetric Eigenvalue Problem, 1998, ch. 4 and 11:
+// the residual and gap bounds, gap estimated from the other Ritz values);
+// converged when that is below `tolerance` of mu for the lowest alpha and
+// below 100 `tolerance` for the others. A block solve reads the factor once
+// for all its columns, so on a large frame (memory-bound solves) a step of p
+// columns costs little more than one Lanczos product. Q holds at most
+// `max_columns`; then it restarts from the 2p leading Ritz vectors.
+template <class Op>
+std::optional<Eigenpairs> block_krylov(const Op& op, const Sparse& g, const Eigen::MatrixXd& start, std::size_t modes,
+                                       double tolerance, Eigen::Index max_columns) {
+  const spdlog::stopwatch started;
+  const Eigen::Index n = op.rows(), p = start.cols();
+  const Eigen::Index nev = std::min<Eigen::Index>(static_cast<Eigen::Index>(modes), p - 1);
+  if (nev < 1 || max_columns < 3 * p) return std::nullopt;
+  auto g_times = [&](const Eigen::MatrixXd& v) -> Eigen::MatrixXd { return g.selfadjointView<Eigen::Lower>() * v; };
+  Eigen::MatrixXd q(n, max_columns), h(0, 0);  // the basis (its first `used` columns) and H
+  Eigen::Index used = 0;
+  // Appends v's part K-orthogonal to Q, K-orthonormalised; kv = K v. Directions that
+  // vanish against the others (relative K-norm below 1e-7) are dropped.
+  auto append = [&](Eigen::MatrixXd v, Eigen::MatrixXd kv) {
+    if (used > 0) {
+      v -= q.leftCols(used) * (q.leftCols(used).transpose() * kv);
+      kv = op.product(v);
+    }
+    Eigen::VectorXd scale(v.cols());
+    for (Eigen::Index c = 0; c < v.cols(); ++c) {
+      const double norm2 = v.col(c).dot(kv.col(c));
+      scale(c) = norm2 > 0 ? 1.0 / std::sqrt(norm2) : 0.0;
+    }
+    const Eigen::MatrixXd gram = scale.asDiagonal() * (0.5 * (v.transpose() * kv + kv.transpose() * v)) * scale.asDiagonal();
+    const Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> split(gram);
+    std::vector<Eigen::Index> kept;
+    for (Eigen::Index k = gram.cols() - 1; k >= 0; --k)
+      if (split.eigenvalues()(k) > 1e-14 && static_cast<Eigen::Index>(kept.size()) + used < max_columns) kept.push_back(k);
+    if (kept.empty()) return false;
+    Eigen::MatrixXd t(v.cols(), static_cast<Eigen::Index>(kept.size()));
+    for (std::size_t k = 0; k < kept.size(); ++k)
+      t.col(static_cast<Eigen::Index>(k)) = scale.asDiagonal() * split.eigenvectors().col(kept[k]) / std::sqrt(split.eigenvalues()(kept[k]));
+    const Eigen::Index added = t.cols();
+    q.middleCols(used, added) = v * t;
+    const Eigen::MatrixXd gv = g_times(q.middleCols(used, added));
+    h.conservativeResize(used + added, used + added);
+    h.rightCols(added) = q.leftCols(used + added).transpose() * gv;
+    h.bottomLeftCorner(added, used) = h.topRightCorner(used, added).transpose();
+    used += added;
+    return true;
+  };
+  if (!append(start, op.product(start))) return std::nullopt;
+  for (int step = 1; step <= 100; ++step) {
+    const Eigen::SelfAdjointEigenSolver<Eigen::MatrixXd> rr(0.5 * (h + h.transpose()));
+    if (rr.info() != Eigen::Success || used < p) return std::nullopt;  // let Lanczos do it
+    const Eigen::VectorXd mu = rr.eigenvalues().reverse();  // largest mu (lowest alpha) first
+    const Eigen::MatrixXd y = rr.eigenvectors().rowwise().reverse();
+    const Eigen::MatrixXd x = q.leftCols(used) * y.leftCols(p);
+    Eigen::MatrixXd s = op.solve(g_times(x));
+    s -= x * mu.head(p).asDiagonal();
+    const Eigen::MatrixXd ks = op.product(s);
+    bool converged = mu(0) > 0;
+    for (Eigen::Index k = 0; k < nev && converged; ++k) {
+      const double r2 = std::max(s.col(k).dot(ks.col(k)), 0.0), r = std::sqrt(r2);
+      double gap = std::numeric_limits<double>::infinity();
+      for (Eigen::Index j = 0; j < mu.size(); ++j)
+        if (j != k) gap = std::min(gap, std::abs(mu(k) - mu(j)));
+      gap -= r;
+      converged = (gap > 0 ? std::min(r, r2 / gap) : r) <= (k == 0 ? tolerance : 100 * tolerance) * std::abs(mu(k));
+    }
+    if (converged) {
+      spdlog::debug("buckling: {} DOFs, {} block Krylov steps of {} vectors, {} in the basis, {:.3f} s", n, step, p,
+                    used, started.elapsed().count());
+      Eigenpairs out;
+      for (Eigen::Index k = 0; k < nev && mu(k) > 0; ++k) out.alpha.push_back(1.0 / mu(k));
+      out.vectors = x.leftCols(static_cast<Eigen::Index>(out.alpha.size()));
+      out.block = x;
+      return out;
+    }
+    if (used + p > max_columns) {  // restart from the leading Ritz vectors
+      const Eigen::Index keep = std::min(used, 2 * p);
+      const Eigen::MatrixXd leading = q.leftCols(used) * y.leftCols(keep);
+      q.leftCols(keep) = leading;
+      h = mu.head(keep).asDiagonal();
+      used = keep;
+    }
+    if (!append(s, ks)) return std::nullopt;
+  }
+  return std::nullopt;
+}
+
 template <class Op>
 std::optional<Eigenpairs> lowest_alphas(const Op& op, const Sparse& g_free, std::size_t modes, double tolerance,
                                         const Eigen::VectorXd* start) {
@@ -325,6 +421,11 @@ std::optional<Eigenpairs> solve_pattern(const Op& op, const Sparse& g, std::size
     if (auto pairs = subspace_iteration(op, g, start_block(start, op.rows(), block_size(modes)), modes, tolerance))
       return pairs;
     spdlog::debug("buckling: subspace iteration did not settle; Lanczos instead");
+  } else {
+    const Eigen::Index p = block_size(modes);
+    if (auto pairs = block_krylov(op, g, start_block(Eigen::MatrixXd(), op.rows(), p), modes, tolerance, 8 * p))
+      return pairs;
+    spdlog::debug("buckling: block Krylov iteration did not settle; Lanczos instead");
   }
   const Eigen::VectorXd sum = start.rows() == op.rows() ? Eigen::VectorXd(start.rowwise().sum()) : Eigen::VectorXd();
   return lowest_alphas(op, g, modes, tolerance, sum.size() > 0 ? &sum : nullptr);

@@ -7,8 +7,7 @@
 // (linearised stability, e.g. Timoshenko & Gere, Theory of Elastic
 // Stability, 2nd ed. 1961, ch. 2; EN 1993-1-1 5.2.1(3) alpha_cr). The largest
 // eigenvalues mu = 1/alpha of the pencil, i.e. the alphas nearest zero, are
-// found with Spectra's Lanczos solver in regular-inverse mode, K factorised
-// by CHOLMOD.
+// found by iterations with K^-1 (-Kg), K factorised by CHOLMOD (below).
 //
 // One cubic element per member overestimates a member's own buckling load
 // (by 21.6% for a pin-ended column: 12 E I / L^2 against pi^2 E I / L^2);
@@ -30,9 +29,13 @@
 // A part at rho = 0.1 is within about 0.12% of its exact stiffness, so
 // alpha_cr comes out within a few tenths of a per cent of the converged
 // value; elements in tension or barely compressed (beams) stay whole.
-// The first compressed pattern is solved by Lanczos iteration; every later
-// one, and pass 2, by block subspace iteration started from the modes of the
-// pattern or pass before, which settles in two or three block solves.
+// The first compressed pattern is solved by block Krylov iteration from a
+// deterministic pseudo-random block (each step one solve with a block of
+// vectors, which on a large frame costs little more than a single one);
+// every later one, and pass 2, by block subspace iteration started from the
+// modes of the pattern or pass before, which settles in two or three block
+// solves. Spectra's Lanczos solver (one vector per solve) takes over when
+// either does not settle.
 
 #include "stepframe/analysis/assembly.hpp"
 #include "stepframe/analysis/frame_model.hpp"
