@@ -23,6 +23,7 @@
 #include <numbers>
 #include <optional>
 #include <random>
+#include <utility>
 
 namespace stepframe::analysis {
 namespace {
@@ -338,7 +339,7 @@ std::optional<Eigenpairs> block_krylov(const Op& op, const Sparse& g, const Eige
     const Eigen::MatrixXd x = q.leftCols(used) * y.leftCols(p);
     Eigen::MatrixXd s = op.solve(g_times(x));
     s -= x * mu.head(p).asDiagonal();
-    const Eigen::MatrixXd ks = op.product(s);
+    Eigen::MatrixXd ks = op.product(s);
     bool converged = mu(0) > 0;
     for (Eigen::Index k = 0; k < nev && converged; ++k) {
       const double r2 = std::max(s.col(k).dot(ks.col(k)), 0.0), r = std::sqrt(r2);
@@ -364,7 +365,7 @@ std::optional<Eigenpairs> block_krylov(const Op& op, const Sparse& g, const Eige
       h = mu.head(keep).asDiagonal();
       used = keep;
     }
-    if (!append(s, ks)) return std::nullopt;
+    if (!append(std::move(s), std::move(ks))) return std::nullopt;  // handed over: no copies of n x p blocks
   }
   return std::nullopt;
 }
