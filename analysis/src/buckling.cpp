@@ -228,6 +228,16 @@ Eigen::MatrixXd start_block(const Eigen::MatrixXd& given, Eigen::Index rows, Eig
   return v;
 }
 
+// The converged pairs of a block iteration: the first `nev` Ritz values mu (largest first) that
+// are positive, as alphas = 1 / mu, their Ritz vectors, and the whole block as the next start.
+Eigenpairs converged_pairs(const Eigen::VectorXd& mu, const Eigen::MatrixXd& ritz, Eigen::Index nev) {
+  Eigenpairs out;
+  for (Eigen::Index k = 0; k < nev && mu(k) > 0; ++k) out.alpha.push_back(1.0 / mu(k));
+  out.vectors = ritz.leftCols(static_cast<Eigen::Index>(out.alpha.size()));
+  out.block = ritz;
+  return out;
+}
+
 // Block inverse (subspace) iteration with Rayleigh-Ritz (Bathe & Wilson,
 // Numerical Methods in Finite Element Analysis, 1976, ch. 10): W = K^-1 G V,
 // then the small pencil (W^T G W) y = mu (W^T K W) y, where K W = G V needs no
@@ -265,11 +275,7 @@ std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eige
     if (!converged) continue;
     spdlog::debug("buckling: {} DOFs, {} block iterations of {} vectors, {:.3f} s", v.rows(), it, m,
                   started.elapsed().count());
-    Eigenpairs out;
-    for (Eigen::Index k = 0; k < nev && mu(k) > 0; ++k) out.alpha.push_back(1.0 / mu(k));
-    out.vectors = v.leftCols(static_cast<Eigen::Index>(out.alpha.size()));
-    out.block = v;
-    return out;
+    return converged_pairs(mu, v, nev);
   }
   return std::nullopt;
 }
@@ -352,11 +358,7 @@ std::optional<Eigenpairs> block_krylov(const Op& op, const Sparse& g, const Eige
     if (converged) {
       spdlog::debug("buckling: {} DOFs, {} block Krylov steps of {} vectors, {} in the basis, {:.3f} s", n, step, p,
                     used, started.elapsed().count());
-      Eigenpairs out;
-      for (Eigen::Index k = 0; k < nev && mu(k) > 0; ++k) out.alpha.push_back(1.0 / mu(k));
-      out.vectors = x.leftCols(static_cast<Eigen::Index>(out.alpha.size()));
-      out.block = x;
-      return out;
+      return converged_pairs(mu, x, nev);
     }
     if (used + p > max_columns) {  // restart from the leading Ritz vectors
       const Eigen::Index keep = std::min(used, 2 * p);
