@@ -1,7 +1,8 @@
 // The buckling analysis' eigen-solver against a dense solution of the same
 // pencil (-Kg) phi = (1/alpha) K phi: a consistency test (the same matrices,
-// another algorithm: Eigen's dense generalized self-adjoint solver), on a
-// frame whose lowest alpha is double, which a block method must find twice.
+// another algorithm: Eigen's dense generalized self-adjoint solver), on
+// frames whose lowest alpha repeats (twice; twenty times, more often than the
+// solver's block has vectors), which a block method must find as often.
 
 #include "frame_fixtures.hpp"
 
@@ -13,8 +14,8 @@
 
 #include <algorithm>
 #include <cmath>
-#include <numbers>
 #include <functional>
+#include <numbers>
 #include <vector>
 
 using namespace stepframe::analysis;
