@@ -426,7 +426,7 @@ std::optional<Eigenpairs> solve_pattern(const Op& op, const Sparse& g, std::size
     spdlog::debug("buckling: subspace iteration did not settle; Lanczos instead");
   } else {
     const Eigen::Index p = block_size(modes);
-    if (auto pairs = block_krylov(op, g, start_block(Eigen::MatrixXd(), op.rows(), p), modes, tolerance, 8 * p))
+    if (auto pairs = block_krylov(op, g, start_block(Eigen::MatrixXd(), op.rows(), p), modes, tolerance, 6 * p))
       return pairs;
     spdlog::debug("buckling: block Krylov iteration did not settle; Lanczos instead");
   }
