@@ -7,6 +7,7 @@
 #include "harvest.hpp"
 #include "occt_messages.hpp"
 #include "shell_wireframes.hpp"
+#include "step_long_lists.hpp"
 #include "step_long_strings.hpp"
 #include "step_quotes.hpp"
 #include "step_attributes.hpp"
@@ -257,10 +258,12 @@ void configure(STEPCAFControl_Reader& reader) {
   reader.SetViewMode(Standard_False);
 }
 
-// Parses with OCCT (`read` calls the reader's ReadFile or ReadStream) and reads the
-// parsed model; an unparsable input is a StepReadError naming `source`.
+// Parses with OCCT (`read` calls the reader's ReadFile or ReadStream), puts back the lists `cut` from
+// the text (nothing when that fails: see restore_long_lists) and reads the parsed model; an unparsable
+// input is a StepReadError naming `source`.
 template <class Read>
-StepModel parse_and_read_with_occt(const std::string& source, Read read) {
+std::optional<StepModel> parse_and_read_with_occt(const std::string& source, Read read,
+                                                  const std::vector<StepLongList>& cut) {
   const std::lock_guard<std::mutex> one_at_a_time(detail::occt_exchange_lock());
   detail::route_occt_messages_to_spdlog();
   STEPCAFControl_Controller::Init();
@@ -278,6 +281,7 @@ StepModel parse_and_read_with_occt(const std::string& source, Read read) {
     fail(source, fmt::format("is not a readable STEP (ISO 10303-21) file: OCCT could not parse it{}. {}",
                              said.empty() ? std::string() : " (" + said + ")", export_advice));
   }
+  if (!cut.empty() && !detail::restore_long_lists(reader, cut)) return std::nullopt;
   return read_parsed(reader, source);
 }
 
@@ -286,8 +290,8 @@ StepModel parse_and_read_with_occt(const std::string& source, Read read) {
 // heap (the 100k bench frame: 370 MiB of a 720 MiB resident set after the read), so the
 // factorisation that follows would add its gigabytes on top of it.
 template <class Read>
-StepModel parse_and_read(const std::string& source, Read read) {
-  StepModel model = parse_and_read_with_occt(source, read);
+std::optional<StepModel> parse_and_read(const std::string& source, Read read, const std::vector<StepLongList>& cut = {}) {
+  std::optional<StepModel> model = parse_and_read_with_occt(source, read, cut);
 #if defined(__GLIBC__)
   malloc_trim(0);
 #endif
@@ -295,20 +299,27 @@ StepModel parse_and_read(const std::string& source, Read read) {
 }
 
 // Parses the text through OCCT's stream reader, rewritten first where OCCT
-// would mis-read it: doubled quotes encoded, strings longer than OCCT takes
-// cut (`long_strings`, each with a warning), shell-based wireframes rewritten.
-StepModel read_text(std::string_view text, const std::string& source, const std::vector<StepLongString>& long_strings) {
-  const std::optional<std::string> quotes = detail::encode_doubled_quotes(text);
-  if (quotes) text = *quotes;
-  const std::optional<std::string> shortened =
-      long_strings.empty() ? std::nullopt : detail::shorten_long_strings(text, max_step_token);
-  if (shortened) text = *shortened;
-  const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(text);
-  std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : text)};
-  StepModel model = parse_and_read(source, [&](STEPCAFControl_Reader& reader) {
-    return reader.ChangeReader().ReadStream(source.c_str(), stream);
-  });
-  for (const StepLongString& s : long_strings) {
+// would mis-read it or read it slowly: long lists of references cut (and put
+// back after the parse), doubled quotes encoded, strings longer than OCCT
+// takes cut (`long_strings`, each with a warning), shell-based wireframes
+// rewritten.
+StepModel read_text(std::string_view text, const std::string& source, const StepRewrites& rewrites) {
+  const std::vector<StepLongList> lists = detail::restorable_long_lists(rewrites.long_lists);
+  auto parse = [&](std::string_view given, const std::vector<StepLongList>& cut) {
+    const std::optional<std::string> quotes = detail::encode_doubled_quotes(given);
+    if (quotes) given = *quotes;
+    const std::optional<std::string> shortened =
+        rewrites.long_strings.empty() ? std::nullopt : detail::shorten_long_strings(given, max_step_token);
+    if (shortened) given = *shortened;
+    const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(given);
+    std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : given)};
+    return parse_and_read(
+        source, [&](STEPCAFControl_Reader& reader) { return reader.ChangeReader().ReadStream(source.c_str(), stream); },
+        cut);
+  };
+  std::optional<StepModel> model = lists.empty() ? std::nullopt : parse(detail::cut_long_lists(text, lists), lists);
+  if (!model) model = parse(text, {});
+  for (const StepLongString& s : rewrites.long_strings) {
     const std::string where = s.entity != 0 ? fmt::format("a string of #{} (line {})", s.entity, s.line)
                                             : fmt::format("a string of the header (line {})", s.line);
     std::string message = fmt::format(
@@ -316,31 +327,31 @@ StepModel read_text(std::string_view text, const std::string& source, const std:
         "read, followed by '...'",
         source, where, s.length, max_step_token - 3);
     spdlog::warn("{}", message);
-    model.diagnostics.push_back({Severity::warning, "step-string-shortened", std::move(message),
-                                 s.entity != 0 ? std::vector<std::string>{fmt::format("#{}", s.entity)}
-                                               : std::vector<std::string>{},
-                                 std::nullopt});
+    model->diagnostics.push_back({Severity::warning, "step-string-shortened", std::move(message),
+                                  s.entity != 0 ? std::vector<std::string>{fmt::format("#{}", s.entity)}
+                                                : std::vector<std::string>{},
+                                  std::nullopt});
   }
-  return model;
+  return std::move(*model);
 }
 
 // What scan_file found: whether OCCT must be given rewritten text (the file
 // mentions a shell-based wireframe, a string holds a doubled quote or is
-// longer than OCCT takes) and the strings to cut.
+// longer than OCCT takes, a list of references is long) and what to rewrite.
 struct FileScan {
   bool rewrite = false;
-  std::vector<StepLongString> long_strings;
+  StepRewrites rewrites;
 };
 
 // One pass over the file in blocks: checks its exchange structure before OCCT
 // sees it (StepStructureCheck) and tells whether OCCT must be given rewritten
 // text. No copy of a large file is held.
-FileScan scan_file(const std::filesystem::path& file, const std::string& source) {
+FileScan scan_file(const std::filesystem::path& file, const std::string& source, std::size_t long_list) {
   errno = 0;
   std::ifstream in(file, std::ios::binary);
   if (!in)
     fail(source, fmt::format("cannot be read ({}); check its permissions", std::strerror(errno != 0 ? errno : EIO)));
-  StepStructureCheck structure(source);
+  StepStructureCheck structure(source, long_list);
   // Below glibc's initial mmap threshold (128 KiB): freeing a larger block
   // raises the threshold for the rest of the process (mallopt(3), "dynamic
   // mmap threshold"), which measurably slows OCCT's parse that follows.
@@ -362,12 +373,17 @@ FileScan scan_file(const std::filesystem::path& file, const std::string& source)
   }
   if (in.bad()) fail(source, "could not be read to its end; check the file");
   structure.finish();
-  return {mentions || structure.doubled_quotes() || !structure.long_strings().empty(), structure.long_strings()};
+  StepRewrites rewrites{structure.long_strings(), detail::restorable_long_lists(structure.long_lists())};
+  const bool rewrite =
+      mentions || structure.doubled_quotes() || !rewrites.long_strings.empty() || !rewrites.long_lists.empty();
+  return {rewrite, std::move(rewrites)};
 }
 
 }  // namespace
 
-StepModel read_step(const std::filesystem::path& file) {
+StepModel read_step(const std::filesystem::path& file) { return read_step(file, long_step_list); }
+
+StepModel read_step(const std::filesystem::path& file, std::size_t long_list) {
   const std::string source = file.string();
   std::error_code status_error;
   const auto status = std::filesystem::status(file, status_error);
@@ -377,14 +393,14 @@ StepModel read_step(const std::filesystem::path& file) {
     fail(source, "is not a regular file (a folder?). Give the path of a STEP file.");
   spdlog::info("reading STEP file {}", source);
 
-  if (const FileScan scan = scan_file(file, source); scan.rewrite) {
+  if (const FileScan scan = scan_file(file, source, long_list); scan.rewrite) {
     std::ifstream in(file, std::ios::binary);
     std::ostringstream text;
     text << in.rdbuf();
-    return read_text(text.str(), source, scan.long_strings);
+    return read_text(text.str(), source, scan.rewrites);
   }
 
-  return parse_and_read(source, [&](STEPCAFControl_Reader& reader) { return reader.ReadFile(source.c_str()); });
+  return *parse_and_read(source, [&](STEPCAFControl_Reader& reader) { return reader.ReadFile(source.c_str()); });
 }
 
 StepModel read_step_text(std::string_view step_text, std::string display_name) {
@@ -393,8 +409,7 @@ StepModel read_step_text(std::string_view step_text, std::string display_name) {
   if (step_text.find("ISO-10303-21") == std::string_view::npos)
     fail(display_name, fmt::format("is not STEP (ISO 10303-21) text: it does not start with ISO-10303-21;. {}",
                                    export_advice));
-  const std::vector<StepLongString> long_strings = check_step_structure(step_text, display_name);
-  return read_text(step_text, display_name, long_strings);
+  return read_text(step_text, display_name, check_step_structure(step_text, display_name));
 }
 
 }  // namespace stepframe::geometry

@@ -77,7 +77,8 @@ bool empty_list_allowed(std::string_view entity_type) {
   return std::find(std::begin(allowed), std::end(allowed), entity_type) != std::end(allowed);
 }
 
-StepStructureCheck::StepStructureCheck(std::string source) : source_(std::move(source)), owner_(1) {}
+StepStructureCheck::StepStructureCheck(std::string source, std::size_t long_list)
+    : source_(std::move(source)), long_list_(long_list), owner_(1) {}
 
 std::string StepStructureCheck::here() const {
   return current_ != 0 ? fmt::format("#{} (line {})", current_, line_) : fmt::format("line {}", line_);
@@ -104,6 +105,7 @@ void StepStructureCheck::feed(std::string_view piece) {
 }
 
 void StepStructureCheck::character(char c) {
+  const std::size_t at = offset_++;
   if (c == '\n') ++line_;
   if (control(c))
     fail(fmt::format("{}: the text holds a control character (byte 0x{:02X}); STEP files are plain text; {}", here(),
@@ -201,6 +203,14 @@ void StepStructureCheck::character(char c) {
       // "#20 = ( A() B() )": a complex instance's records, one after another without commas (ISO 10303-21 12.2.5.2).
       records_.resize(owner_.size());
       records_[d] = !typed && d == 1;
+      if (d == 1) parameter_ = 0;
+      list_plain_ = list_plain_ && d != 3;  // a list or typed value inside the list
+      if (d == 2 && !typed && !records_[1] && current_ != 0) {
+        list_open_ = list_plain_ = true;
+        list_begin_ = at;
+        list_commas_ = 0;
+        list_first_ref_ = refs_.size();
+      }
       empty_list_ = !typed;
       value_done_ = false;
       break;
@@ -212,6 +222,7 @@ void StepStructureCheck::character(char c) {
                          "OCCT's reader cannot take an empty one; {}",
                          here(), owner.empty() ? "the entity" : owner, damaged));
       if (expect_value_) fail(fmt::format("{}: a ',' just before ')' (a parameter is missing); {}", here(), damaged));
+      if (depth_ == 2 && std::exchange(list_open_, false)) note_list(at);
       if (--depth_ < 0) fail(fmt::format("{}: a ')' closes no '('; {}", here(), damaged));
       if (depth_ == 0) form_ = Form::closed;
       value_done_ = depth_ > 0;
@@ -247,6 +258,8 @@ void StepStructureCheck::character(char c) {
                          damaged));
       value_done_ = false;
       expect_value_ = true;
+      if (depth_ == 1) ++parameter_;
+      if (depth_ == 2) ++list_commas_;
       break;
     case '$':  // an unset value
     case '*':  // a value derived from others
@@ -261,6 +274,15 @@ void StepStructureCheck::character(char c) {
     default:  // ISO 10303-21 5.3 writes nothing else outside strings, comments and binaries
       fail(fmt::format("{}: {} cannot stand there (outside a string); {}", here(), printable(c), damaged));
   }
+}
+
+// A list at depth 2 ends at `end`: noted when it holds nothing but long_list_ or more references.
+void StepStructureCheck::note_list(std::size_t end) {
+  const std::size_t refs = refs_.size() - list_first_ref_;
+  if (!list_plain_ || refs < long_list_ || refs != list_commas_ + 1) return;
+  long_lists_.push_back({current_, owner_[1], parameter_, list_begin_, end,
+                         std::vector<std::uint64_t>(refs_.begin() + static_cast<std::ptrdiff_t>(list_first_ref_),
+                                                    refs_.end())});
 }
 
 void StepStructureCheck::value_starts(int depth) {
@@ -428,11 +450,11 @@ void StepStructureCheck::fail_deep_chain(std::size_t k, const std::vector<std::u
                    ids_[k], lines_[k], max_step_reference_depth, start, damaged));
 }
 
-std::vector<StepLongString> check_step_structure(std::string_view text, const std::string& source) {
-  StepStructureCheck check(source);
+StepRewrites check_step_structure(std::string_view text, const std::string& source, std::size_t long_list) {
+  StepStructureCheck check(source, long_list);
   check.feed(text);
   check.finish();
-  return check.long_strings();
+  return {check.long_strings(), check.long_lists()};
 }
 
 }  // namespace stepframe::geometry

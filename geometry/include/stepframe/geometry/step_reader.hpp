@@ -93,6 +93,10 @@ class StepReadError : public std::runtime_error {
 /// usable edge. OCCT's STEP translator keeps process-wide settings and
 /// messages: do not read or write STEP files from several threads at once.
 StepModel read_step(const std::filesystem::path& file);
+/// As read_step, with the lists of references of `long_list` items or more
+/// cut before OCCT parses the file and put back after (long_step_list in
+/// step_structure.hpp; SIZE_MAX: none cut). The result is the same either way.
+StepModel read_step(const std::filesystem::path& file, std::size_t long_list);
 
 /// The same for the text of a STEP file held in memory (ISO 10303-21).
 /// `display_name` stands for the file in messages and in StepModel::file.

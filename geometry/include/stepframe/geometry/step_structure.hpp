@@ -43,6 +43,25 @@ struct StepLongString {
   std::size_t length = 0;
 };
 
+/// OCCT 7.6's STEP parser appends each parameter to its list by walking the
+/// list from its start (StepFile_ReadData::CreateNewArg), so a list of n items
+/// costs n^2 / 2 steps: the 100,000 items of a large frame's
+/// SHAPE_REPRESENTATION took some 8 s of a 20 s read (tried with OCCT 7.6.3,
+/// Debian 12). Lists of references at least this long are cut before OCCT
+/// parses the text and put back whole afterwards (step_long_lists.hpp).
+inline constexpr std::size_t long_step_list = 1024;
+
+/// A list of at least long_step_list entity references, standing as a
+/// parameter of its own in a simple entity instance (`#32 = SHAPE_REPRESENTATION('',(#11,#33,...),#7);`):
+/// where it stands in the text and the ids it lists, in order.
+struct StepLongList {
+  std::uint64_t entity = 0;
+  std::string type;                  ///< the entity's type, e.g. "SHAPE_REPRESENTATION"
+  std::size_t parameter = 0;         ///< which of its parameters, from 0
+  std::size_t begin = 0, end = 0;    ///< offsets of its '(' and ')' in the text
+  std::vector<std::uint64_t> items;  ///< the referenced ids
+};
+
 /// Checks, as text arrives, that:
 /// - every reference (#12) names an entity the file defines, and no entity is defined twice;
 /// - no entity refers to itself, directly or through others (the STEP
@@ -70,10 +89,12 @@ struct StepLongString {
 /// - no keyword, number, reference, binary value or run of comment text is
 ///   longer than max_step_token (longer strings are listed in long_strings()).
 /// Each failure throws StepReadError naming `source`, the entity (#id) and
-/// its line, and what to do.
+/// its line, and what to do. On the way it notes the long lists of references
+/// (long_lists()).
 class StepStructureCheck {
  public:
-  explicit StepStructureCheck(std::string source);
+  /// `long_list` is the fewest items a list of references needs to be listed in long_lists().
+  explicit StepStructureCheck(std::string source, std::size_t long_list = long_step_list);
   /// The next piece of the text (pieces may split tokens anywhere).
   void feed(std::string_view piece);
   /// After the last piece: the references and cycles.
@@ -85,6 +106,8 @@ class StepStructureCheck {
   bool doubled_quotes() const { return doubled_quotes_; }
   /// The strings that must be cut before OCCT reads them (shorten_long_strings).
   const std::vector<StepLongString>& long_strings() const { return long_strings_; }
+  /// The lists of references with at least `long_list` items, in text order.
+  const std::vector<StepLongList>& long_lists() const { return long_lists_; }
 
  private:
   void character(char c);
@@ -92,7 +115,8 @@ class StepStructureCheck {
   [[noreturn]] void fail(const std::string& what) const;
   [[noreturn]] void fail_bare_word() const;
   [[noreturn]] void fail_form(const std::string& what) const;  // an entity instance not of the form #12 = A(...);
-  void value_starts(int depth);  // a parameter begins in a list at `depth`: the one before must be closed by ','
+  void value_starts(int depth);
+  void note_list(std::size_t end);  // a parameter begins in a list at `depth`: the one before must be closed by ','
   [[noreturn]] void fail_deep_chain(std::size_t k, const std::vector<std::uint32_t>& chain,
                                     const std::vector<std::uint32_t>& target) const;
   std::string here() const;
@@ -107,6 +131,14 @@ class StepStructureCheck {
   std::size_t run_ = 0;         // length of the string, binary value or comment text being read
   std::size_t run_line_ = 0;    // the line it starts on
   std::vector<StepLongString> long_strings_;
+  // The list of references being read as a parameter of the entity (at depth 2), if it may be a long one.
+  std::size_t long_list_ = 0;
+  std::vector<StepLongList> long_lists_;
+  std::size_t offset_ = 0;      // of the character being read, from the start of the text
+  std::size_t parameter_ = 0;   // of the entity's parameters (depth 1), the one being read
+  bool list_open_ = false;      // a list at depth 2 is being read...
+  bool list_plain_ = false;     // ... holding no list or typed value of its own
+  std::size_t list_begin_ = 0, list_commas_ = 0, list_first_ref_ = 0;
   std::string token_;
   std::string word_;            // a keyword waiting to see whether '(' follows
   int depth_ = 0;
@@ -132,7 +164,14 @@ class StepStructureCheck {
 /// True for the entity types whose lists may be empty (see StepStructureCheck).
 bool empty_list_allowed(std::string_view entity_type);
 
-/// Runs StepStructureCheck over the whole text; returns its long_strings().
-std::vector<StepLongString> check_step_structure(std::string_view text, const std::string& source);
+/// What StepStructureCheck found to rewrite in a text it let through.
+struct StepRewrites {
+  std::vector<StepLongString> long_strings;
+  std::vector<StepLongList> long_lists;
+};
+
+/// Runs StepStructureCheck over the whole text.
+StepRewrites check_step_structure(std::string_view text, const std::string& source,
+                                  std::size_t long_list = long_step_list);
 
 }  // namespace stepframe::geometry

@@ -1,0 +1,133 @@
+#include "step_long_lists.hpp"
+
+#include <StepData_StepModel.hxx>
+#include <StepRepr_HArray1OfRepresentationItem.hxx>
+#include <StepRepr_Representation.hxx>
+#include <StepRepr_RepresentationItem.hxx>
+#include <StepShape_GeometricSet.hxx>
+#include <StepShape_HArray1OfGeometricSetSelect.hxx>
+#include <StepVisual_HArray1OfLayeredItem.hxx>
+#include <StepVisual_PresentationLayerAssignment.hxx>
+#include <XSControl_WorkSession.hxx>
+
+#include <spdlog/spdlog.h>
+
+#include <algorithm>
+#include <unordered_map>
+
+namespace stepframe::geometry::detail {
+namespace {
+
+// The list's entity type and parameter: ISO 10303-43 representation (name, items, context_of_items),
+// ISO 10303-42 geometric_set (name, elements), ISO 10303-46 presentation_layer_assignment (name,
+// description, assigned_items); parameter numbers from the schemas, from memory, as OCCT reads them.
+enum class ListKind { representation_items, geometric_set_elements, layer_assigned_items, other };
+
+ListKind kind_of(const StepLongList& list) {
+  const std::string_view type = list.type;
+  constexpr std::string_view representation = "REPRESENTATION";
+  if (list.parameter == 1 && type.size() >= representation.size() &&
+      type.substr(type.size() - representation.size()) == representation)
+    return ListKind::representation_items;
+  if (list.parameter == 1 && (type == "GEOMETRIC_SET" || type == "GEOMETRIC_CURVE_SET"))
+    return ListKind::geometric_set_elements;
+  if (list.parameter == 2 && type == "PRESENTATION_LAYER_ASSIGNMENT") return ListKind::layer_assigned_items;
+  return ListKind::other;
+}
+
+// An array of select values (a layer's items, a set's elements) of the entities `items`; null when one
+// does not match the select type (OCCT's reader refuses such an item).
+template <class Array, class Select, class Find>
+Handle(Array) selects(const std::vector<std::uint64_t>& items, const Find& find) {
+  Handle(Array) array = new Array(1, static_cast<Standard_Integer>(items.size()));
+  Select select;
+  for (std::size_t k = 0; k < items.size(); ++k) {
+    const Handle(Standard_Transient) entity = find(items[k]);
+    if (entity.IsNull() || !select.Matches(entity)) return nullptr;
+    select.SetValue(entity);
+    array->SetValue(static_cast<Standard_Integer>(k) + 1, select);
+  }
+  return array;
+}
+
+}  // namespace
+
+std::vector<StepLongList> restorable_long_lists(std::vector<StepLongList> lists) {
+  std::erase_if(lists, [](const StepLongList& l) { return kind_of(l) == ListKind::other; });
+  return lists;
+}
+
+std::string cut_long_lists(std::string_view step_text, const std::vector<StepLongList>& lists) {
+  std::string out;
+  out.reserve(step_text.size());
+  std::size_t from = 0;
+  for (const StepLongList& list : lists) {
+    const std::string_view inside = step_text.substr(list.begin, list.end + 1 - list.begin);
+    out.append(step_text.substr(from, list.begin - from));
+    out.append("(#").append(std::to_string(list.items.front())).append(")");
+    out.append(static_cast<std::size_t>(std::count(inside.begin(), inside.end(), '\n')), '\n');
+    from = list.end + 1;
+  }
+  out.append(step_text.substr(from));
+  return out;
+}
+
+bool restore_long_lists(STEPCAFControl_Reader& reader, const std::vector<StepLongList>& lists) {
+  const Handle(XSControl_WorkSession) session = reader.ChangeReader().WS();
+  const Handle(StepData_StepModel) model = reader.Reader().StepModel();
+  if (session.IsNull() || model.IsNull()) return false;
+  std::unordered_map<std::uint64_t, Standard_Integer> number_of;  // entity id -> number in the model
+  number_of.reserve(static_cast<std::size_t>(model->NbEntities()));
+  for (Standard_Integer n = 1; n <= model->NbEntities(); ++n)
+    number_of.emplace(static_cast<std::uint64_t>(model->IdentLabel(model->Value(n))), n);
+  auto find = [&](std::uint64_t id) -> Handle(Standard_Transient) {
+    const auto it = number_of.find(id);
+    return it == number_of.end() ? Handle(Standard_Transient)() : model->Value(it->second);
+  };
+  for (const StepLongList& list : lists) {
+    const Handle(Standard_Transient) owner = find(list.entity);
+    bool done = false;
+    switch (kind_of(list)) {
+      case ListKind::representation_items:  // as RWStepRepr_RWRepresentation and its kin read `items`
+        if (const auto rep = Handle(StepRepr_Representation)::DownCast(owner); !rep.IsNull()) {
+          Handle(StepRepr_HArray1OfRepresentationItem) items =
+              new StepRepr_HArray1OfRepresentationItem(1, static_cast<Standard_Integer>(list.items.size()));
+          done = true;
+          for (std::size_t k = 0; k < list.items.size() && done; ++k) {
+            const auto item = Handle(StepRepr_RepresentationItem)::DownCast(find(list.items[k]));
+            done = !item.IsNull();
+            items->SetValue(static_cast<Standard_Integer>(k) + 1, item);
+          }
+          if (done) rep->SetItems(items);
+        }
+        break;
+      case ListKind::geometric_set_elements:
+        if (const auto set = Handle(StepShape_GeometricSet)::DownCast(owner); !set.IsNull()) {
+          const auto elements =
+              selects<StepShape_HArray1OfGeometricSetSelect, StepShape_GeometricSetSelect>(list.items, find);
+          if ((done = !elements.IsNull())) set->SetElements(elements);
+        }
+        break;
+      case ListKind::layer_assigned_items:
+        if (const auto layer = Handle(StepVisual_PresentationLayerAssignment)::DownCast(owner); !layer.IsNull()) {
+          const auto items = selects<StepVisual_HArray1OfLayeredItem, StepVisual_LayeredItem>(list.items, find);
+          if ((done = !items.IsNull())) layer->SetAssignedItems(items);
+        }
+        break;
+      case ListKind::other:
+        break;
+    }
+    if (!done) {
+      spdlog::debug("the list of #{} ({}, {} items) is not as OCCT reads it; OCCT parses the whole text", list.entity,
+                    list.type, list.items.size());
+      return false;
+    }
+  }
+  // As XSControl_Reader does after a parse: the session takes the model (and computes the graph of
+  // references anew, now with the whole lists) and its transfer reader begins afresh.
+  session->SetModel(model);
+  session->InitTransferReader(4);
+  return true;
+}
+
+}  // namespace stepframe::geometry::detail
