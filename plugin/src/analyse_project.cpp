@@ -70,26 +70,49 @@ Analysis analyse_project(const std::filesystem::path& project_file, const RunCon
   auto pictures = project.outputs.pictures ? std::make_shared<viz::PictureRenderer>() : nullptr;
 
   control.report("geometry", 0);
-  const auto step = geometry::read_step(project.model);
-  Analysis a = analyse_model(std::move(project), step, control);
+  geometry::StepModel step = geometry::read_step(project.model);
+  Analysis a = analyse_model(std::move(project), std::move(step), control);
   a.pictures = std::move(pictures);
   return a;
 }
 
-Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control) {
-  auto report = [&](std::string_view stage, double fraction) { control.report(stage, fraction); };
+namespace {
+
+// The first part of analyse_model: the wireframe of the file's edges.
+Analysis with_wireframe(Project project, const geometry::StepModel& step, const RunControl& control) {
   Analysis a;
   a.project = std::move(project);
   a.file_length_unit = step.length_unit;
-  report("wireframe", 0);
+  control.report("wireframe", 0);
   a.wireframe = geometry::build_wireframe(step, wireframe_options(a.project));
   spdlog::info("{}: {} members, {} nodes (file unit {})", a.project.model.string(), a.wireframe.members.size(),
                a.wireframe.nodes.size(), step.length_unit);
   log_diagnostics(a.project.model, a.wireframe.diagnostics);
   if (geometry::has_errors(a.wireframe.diagnostics))
     throw InputError(a.project.model.string() + ": the model has errors (listed above); fix them in the CAD model");
-  report("wireframe", 1);
+  control.report("wireframe", 1);
+  return a;
+}
 
+// The rest: the frame model, its solution and the checks.
+Analysis analyse_wireframe(Analysis a, const RunControl& control);
+
+}  // namespace
+
+Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control) {
+  return analyse_wireframe(with_wireframe(std::move(project), step, control), control);
+}
+
+Analysis analyse_model(Project project, geometry::StepModel&& step, const RunControl& control) {
+  Analysis a = with_wireframe(std::move(project), step, control);
+  step = geometry::StepModel();  // the wireframe holds what the analysis needs of it (some 60 MB at 100k members)
+  return analyse_wireframe(std::move(a), control);
+}
+
+namespace {
+
+Analysis analyse_wireframe(Analysis a, const RunControl& control) {
+  auto report = [&](std::string_view stage, double fraction) { control.report(stage, fraction); };
   report("model", 0);
   a.built = build_frame_model(a.project, a.wireframe);
   log_diagnostics(a.project.model, a.built.diagnostics);
@@ -165,5 +188,7 @@ Analysis analyse_model(Project project, const geometry::StepModel& step, const R
   report("checks", 1);
   return a;
 }
+
+}  // namespace
 
 }  // namespace stepframe

@@ -70,8 +70,8 @@ Results run_text(std::string_view project_text, const std::filesystem::path& bas
         options.control.report("project", 0);
         auto project = read_project_text(project_text, base_dir, name);
         options.control.report("geometry", 0);
-        const auto step = geometry::read_step(project.model);
-        return analyse_model(std::move(project), step, options.control);
+        auto step = geometry::read_step(project.model);
+        return analyse_model(std::move(project), std::move(step), options.control);
       },
       options.out_dir, options.control, name));
 }
@@ -84,9 +84,9 @@ Results run_text(std::string_view project_text, const std::filesystem::path& bas
         options.control.report("project", 0);
         auto project = read_project_text(project_text, base_dir, name);
         options.control.report("geometry", 0);
-        const auto step = read_model_source(model);
+        auto step = read_model_source(model);
         if (!std::holds_alternative<StepFile>(model)) project.model = describe(model);
-        return analyse_model(std::move(project), step, options.control);
+        return analyse_model(std::move(project), std::move(step), options.control);
       },
       options.out_dir, options.control, name));
 }
@@ -99,10 +99,10 @@ Results run(const Project& project, const ModelSource& model, const RunOptions& 
   return Results(run_guarded(
       [&] {
         options.control.report("geometry", 0);
-        const auto step = read_model_source(model);
+        auto step = read_model_source(model);
         Project p = project;
         if (!std::holds_alternative<StepFile>(model)) p.model = describe(model);
-        return analyse_model(std::move(p), step, options.control);
+        return analyse_model(std::move(p), std::move(step), options.control);
       },
       options.out_dir, options.control, project.file.string()));
 }

@@ -77,6 +77,8 @@ Analysis analyse_project(const std::filesystem::path& project_file, const RunCon
 /// The same for a project already in memory whose model is already read
 /// (from any source): builds the model, solves and checks.
 Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control = {});
+/// The same, letting go of `step` once its wireframe is built.
+Analysis analyse_model(Project project, geometry::StepModel&& step, const RunControl& control = {});
 
 /// Writes the results.json document (schema stepframe-results/1; README
 /// "results.json") as text, handing it to `sink` in pieces of about a
