@@ -95,22 +95,6 @@ Analysis with_wireframe(Project project, const geometry::StepModel& step, const 
 }
 
 // The rest: the frame model, its solution and the checks.
-Analysis analyse_wireframe(Analysis a, const RunControl& control);
-
-}  // namespace
-
-Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control) {
-  return analyse_wireframe(with_wireframe(std::move(project), step, control), control);
-}
-
-Analysis analyse_model(Project project, geometry::StepModel&& step, const RunControl& control) {
-  Analysis a = with_wireframe(std::move(project), step, control);
-  step = geometry::StepModel();  // the wireframe holds what the analysis needs of it (some 60 MB at 100k members)
-  return analyse_wireframe(std::move(a), control);
-}
-
-namespace {
-
 Analysis analyse_wireframe(Analysis a, const RunControl& control) {
   auto report = [&](std::string_view stage, double fraction) { control.report(stage, fraction); };
   report("model", 0);
@@ -190,5 +174,15 @@ Analysis analyse_wireframe(Analysis a, const RunControl& control) {
 }
 
 }  // namespace
+
+Analysis analyse_model(Project project, const geometry::StepModel& step, const RunControl& control) {
+  return analyse_wireframe(with_wireframe(std::move(project), step, control), control);
+}
+
+Analysis analyse_model(Project project, geometry::StepModel&& step, const RunControl& control) {
+  Analysis a = with_wireframe(std::move(project), step, control);
+  step = geometry::StepModel();  // the wireframe holds what the analysis needs of it (some 60 MB at 100k members)
+  return analyse_wireframe(std::move(a), control);
+}
 
 }  // namespace stepframe
