@@ -147,3 +147,28 @@ TEST_CASE("a long list with an item OCCT refuses is read by OCCT whole, with OCC
   CHECK_THAT(parsed_whole, Catch::Contains("OCCT could not read entity"));
   CHECK(cut == parsed_whole);
 }
+
+TEST_CASE("the structure check notes only plain lists of references standing as a parameter", "[step][lists]") {
+  const std::string text =
+      "#1 = SHAPE_REPRESENTATION('',(#10,#11,#12),#9);\n"     // noted: parameter 1, three references
+      "#2 = LAYERED('a',(#10,$,#11));\n"                      // an unset item: not only references
+      "#3 = NESTED('b',(#10,(#11,#12),#12));\n"               // a list inside the list
+      "#4 = TYPED('c',(#10,LABEL('x'),#11));\n"               // a typed value inside the list
+      "#5 = (GEOMETRIC_SET('',(#10,#11,#12)) NAMED(''));\n"   // a complex instance's records
+      "#6 = SHORT('',(#10,#11));\n"                           // fewer than three
+      "#7 = PRESENTATION_LAYER_ASSIGNMENT('L','',(#10,\n#11,\n#12));\n"  // noted: parameter 2, over three lines
+      "#9 = CONTEXT('');\n#10 = P(1.);\n#11 = P(2.);\n#12 = P(3.);\n";
+  const sg::StepRewrites found = sg::check_step_structure(text, "<test>", 3);
+  REQUIRE(found.long_lists.size() == 2);
+  const sg::StepLongList& rep = found.long_lists[0];
+  CHECK(rep.entity == 1);
+  CHECK(rep.type == "SHAPE_REPRESENTATION");
+  CHECK(rep.parameter == 1);
+  CHECK(rep.items == std::vector<std::uint64_t>{10, 11, 12});
+  CHECK(text.substr(rep.begin, rep.end + 1 - rep.begin) == "(#10,#11,#12)");
+  const sg::StepLongList& layer = found.long_lists[1];
+  CHECK(layer.entity == 7);
+  CHECK(layer.parameter == 2);
+  CHECK(layer.items == std::vector<std::uint64_t>{10, 11, 12});
+  CHECK(text.substr(layer.begin, layer.end + 1 - layer.begin) == "(#10,\n#11,\n#12)");
+}
