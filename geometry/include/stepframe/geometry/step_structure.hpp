@@ -115,8 +115,8 @@ class StepStructureCheck {
   [[noreturn]] void fail(const std::string& what) const;
   [[noreturn]] void fail_bare_word() const;
   [[noreturn]] void fail_form(const std::string& what) const;  // an entity instance not of the form #12 = A(...);
-  void value_starts(int depth);
-  void note_list(std::size_t end);  // a parameter begins in a list at `depth`: the one before must be closed by ','
+  void value_starts(int depth);  // a parameter begins in a list at `depth`: the one before must be closed by ','
+  void note_list(std::size_t end);  // the list of references being read ends at `end`
   [[noreturn]] void fail_deep_chain(std::size_t k, const std::vector<std::uint32_t>& chain,
                                     const std::vector<std::uint32_t>& target) const;
   std::string here() const;
