@@ -134,6 +134,9 @@ Analysis analyse_wireframe(Analysis a, const RunControl& control) {
     frequency_checks = detail::run_natural_frequencies(a, [&](double f) { report("natural frequencies", f); });
   }
 
+  a.shop = shop_data(a.project, a.built, a.results);
+  if (control.results_solved) control.results_solved(a);
+
   // The checks' results take memory of their own as they go, so beside a large factor they raise the
   // peak (the 100k bench frame: 4.3 GB against 3.8 GB): above this the checks wait for the buckling
   // analysis, which frees the factor when it ends.
@@ -167,7 +170,6 @@ Analysis analyse_wireframe(Analysis a, const RunControl& control) {
     add(analysis::check_frame_stability(pick(a.results, spec.stability->combinations), spec.stability->alpha_cr_min));
   add(std::move(frequency_checks));
   add(fabrication_checks(a.project, a.built));
-  a.shop = shop_data(a.project, a.built, a.results);
   detail::require_finite_checks(a.checks, a.project.model.string());
   report("checks", 1);
   return a;

@@ -59,19 +59,19 @@ std::string Results::summary() const {
 }
 
 Results run_file(const std::filesystem::path& project_file, const RunOptions& options) {
-  return Results(run_guarded([&] { return analyse_project(project_file, options.control); }, options.out_dir,
+  return Results(run_guarded([&](const RunControl& c) { return analyse_project(project_file, c); }, options.out_dir,
                              options.control, project_file.string()));
 }
 
 Results run_text(std::string_view project_text, const std::filesystem::path& base_dir, const RunOptions& options) {
   const std::string name = "<project text>";
   return Results(run_guarded(
-      [&] {
-        options.control.report("project", 0);
+      [&](const RunControl& c) {
+        c.report("project", 0);
         auto project = read_project_text(project_text, base_dir, name);
-        options.control.report("geometry", 0);
+        c.report("geometry", 0);
         auto step = geometry::read_step(project.model);
-        return analyse_model(std::move(project), std::move(step), options.control);
+        return analyse_model(std::move(project), std::move(step), c);
       },
       options.out_dir, options.control, name));
 }
@@ -80,13 +80,13 @@ Results run_text(std::string_view project_text, const std::filesystem::path& bas
                  const RunOptions& options) {
   const std::string name = "<project text>";
   return Results(run_guarded(
-      [&] {
-        options.control.report("project", 0);
+      [&](const RunControl& c) {
+        c.report("project", 0);
         auto project = read_project_text(project_text, base_dir, name);
-        options.control.report("geometry", 0);
+        c.report("geometry", 0);
         auto step = read_model_source(model);
         if (!std::holds_alternative<StepFile>(model)) project.model = describe(model);
-        return analyse_model(std::move(project), std::move(step), options.control);
+        return analyse_model(std::move(project), std::move(step), c);
       },
       options.out_dir, options.control, name));
 }
@@ -97,12 +97,12 @@ Results run(const Project& project, const RunOptions& options) {
 
 Results run(const Project& project, const ModelSource& model, const RunOptions& options) {
   return Results(run_guarded(
-      [&] {
-        options.control.report("geometry", 0);
+      [&](const RunControl& c) {
+        c.report("geometry", 0);
         auto step = read_model_source(model);
         Project p = project;
         if (!std::holds_alternative<StepFile>(model)) p.model = describe(model);
-        return analyse_model(std::move(p), std::move(step), options.control);
+        return analyse_model(std::move(p), std::move(step), c);
       },
       options.out_dir, options.control, project.file.string()));
 }

@@ -78,4 +78,19 @@ bool output_unwritable(const std::filesystem::path& folder);
 std::vector<std::filesystem::path> write_outputs_locked(const Analysis& analysis, const std::filesystem::path& out_dir,
                                                         const RunControl& control);
 
+/// The tables that need no check (all but checks.csv: takeoff, reactions, end
+/// forces, cut list, connections), written into `staging`; their names
+/// relative to it, in the order write_outputs lists them. Needs the
+/// analysis's results and shop data only (RunControl::results_solved).
+std::vector<std::filesystem::path> write_check_free_tables(const Analysis& analysis, const StagingFolder& staging,
+                                                           const std::filesystem::path& out_dir);
+
+/// As write_outputs_locked, into a staging folder the caller made (and
+/// commits through this), where write_check_free_tables may already have
+/// written `tables_written`.
+std::vector<std::filesystem::path> write_outputs_into(const Analysis& analysis, StagingFolder& staging,
+                                                      const std::filesystem::path& out_dir,
+                                                      std::vector<std::filesystem::path> tables_written,
+                                                      const RunControl& control);
+
 }  // namespace stepframe::detail

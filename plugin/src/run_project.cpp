@@ -10,22 +10,31 @@
 
 namespace stepframe {
 
-RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::filesystem::path& out_dir,
+RunOutcome run_guarded(const std::function<Analysis(const RunControl&)>& analyse, const std::filesystem::path& out_dir,
                        const RunControl& control, const std::string& context, std::optional<VtkSelection> vtk,
                        std::optional<VtkSelection> result_details) {
   const ScopedLogSink log_route(control.log_sink, control.log_level);
   RunOutcome outcome;
   try {
     // The output folder is taken first: a second run into it is refused before it analyses anything.
+    // Its staging folder takes the tables that need no check as soon as the results are solved.
     std::optional<detail::OutputFolderLock> lock;
-    if (!out_dir.empty()) lock.emplace(out_dir);
-    outcome.analysis = analyse();
+    std::optional<detail::StagingFolder> staging;
+    std::vector<std::filesystem::path> tables;
+    RunControl analysing = control;
+    if (!out_dir.empty()) {
+      lock.emplace(out_dir);
+      staging.emplace(out_dir);
+      analysing.results_solved = [&](const Analysis& a) {
+        if (control.results_solved) control.results_solved(a);
+        tables = detail::write_check_free_tables(a, *staging, out_dir);
+      };
+    }
+    outcome.analysis = analyse(analysing);
     auto& outputs = outcome.analysis->project.outputs;
     if (vtk) outputs.line_models = outputs.surfaces = outputs.buckling_modes = *vtk;
     if (result_details) outputs.result_details = *result_details;
-    if (!out_dir.empty()) {
-      outcome.files = detail::write_outputs_locked(*outcome.analysis, out_dir, control);
-    }
+    if (staging) outcome.files = detail::write_outputs_into(*outcome.analysis, *staging, out_dir, std::move(tables), control);
     outcome.status = outcome.analysis->status();
   } catch (const Cancelled& e) {
     outcome = {ExitStatus::cancelled, e.what(), std::nullopt, {}};
@@ -46,7 +55,7 @@ RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::file
 RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir,
                        const RunControl& control, std::optional<VtkSelection> vtk,
                        std::optional<VtkSelection> result_details) {
-  return run_guarded([&] { return analyse_project(project_file, control); },
+  return run_guarded([&](const RunControl& c) { return analyse_project(project_file, c); },
                      out_dir.empty() ? default_out_dir(project_file) : out_dir, control, project_file.string(), vtk,
                      result_details);
 }

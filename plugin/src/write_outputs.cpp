@@ -30,7 +30,32 @@ std::string file_stem(const std::string& name, std::set<std::string>& used) {
   return unique;
 }
 
+// Writes `text` whole as `name` in `dir` (out_dir's staging folder) and adds the name to `list`.
+void text_file(const std::filesystem::path& dir, const std::filesystem::path& out_dir,
+               std::vector<std::filesystem::path>& list, const std::string& name, const std::string& text) {
+  std::ofstream out(dir / name, std::ios::binary);
+  out << text;
+  if (!out.flush()) throw detail::output_failure(out_dir / name, errno);
+  list.push_back(name);
+}
+
 }  // namespace
+
+std::vector<std::filesystem::path> detail::write_check_free_tables(const Analysis& analysis,
+                                                                   const StagingFolder& staging,
+                                                                   const std::filesystem::path& out_dir) {
+  std::vector<std::filesystem::path> files;
+  auto table = [&](const std::string& name, const std::string& text) {
+    text_file(staging.path(), out_dir, files, name, text);
+  };
+  table("takeoff.csv", takeoff_csv(analysis));
+  table("takeoff_by_section.csv", takeoff_by_section_csv(analysis));
+  table("reactions.csv", reactions_csv(analysis));
+  table("end_forces.csv", end_forces_csv(analysis));
+  table("cutlist.csv", cutlist_csv(analysis));
+  table("connections.csv", connections_csv(analysis));
+  return files;
+}
 
 std::filesystem::path default_out_dir(const std::filesystem::path& project_file) {
   return project_file.parent_path() / (project_file.stem().string() + "-results");
@@ -47,15 +72,19 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
                                                                 const RunControl& control) {
   // Everything goes into a fresh staging folder that replaces out_dir whole at the end.
   StagingFolder staging(out_dir);
+  return write_outputs_into(analysis, staging, out_dir, {}, control);
+}
+
+std::vector<std::filesystem::path> detail::write_outputs_into(const Analysis& analysis, StagingFolder& staging,
+                                                              const std::filesystem::path& out_dir,
+                                                              std::vector<std::filesystem::path> tables_written,
+                                                              const RunControl& control) {
   const std::filesystem::path& dir = staging.path();
   const auto& model = analysis.built.model;
   const OutputsSpec& outputs = analysis.project.outputs;
   // A text file of the folder, written whole; its name relative to the folder is added to `list`.
   auto text_file = [&](std::vector<std::filesystem::path>& list, const std::string& name, const std::string& text) {
-    std::ofstream out(dir / name, std::ios::binary);
-    out << text;
-    if (!out.flush()) throw output_failure(out_dir / name, errno);
-    list.push_back(name);
+    stepframe::text_file(dir, out_dir, list, name, text);
   };
   // Governing utilisation per member, for colouring by verdict.
   std::vector<double> utilisation(model.members.size(), 0.0);
@@ -74,12 +103,8 @@ std::vector<std::filesystem::path> detail::write_outputs_locked(const Analysis& 
   auto tables = std::async(std::launch::async, [&] {
     std::vector<std::filesystem::path> files;
     text_file(files, "checks.csv", checks_csv(analysis));
-    text_file(files, "takeoff.csv", takeoff_csv(analysis));
-    text_file(files, "takeoff_by_section.csv", takeoff_by_section_csv(analysis));
-    text_file(files, "reactions.csv", reactions_csv(analysis));
-    text_file(files, "end_forces.csv", end_forces_csv(analysis));
-    text_file(files, "cutlist.csv", cutlist_csv(analysis));
-    text_file(files, "connections.csv", connections_csv(analysis));
+    if (tables_written.empty()) tables_written = write_check_free_tables(analysis, staging, out_dir);
+    files.insert(files.end(), tables_written.begin(), tables_written.end());
     return files;
   });
   auto json = std::async(std::launch::async, [&] {

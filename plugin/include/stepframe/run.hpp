@@ -151,11 +151,13 @@ RunOutcome run_project(const std::filesystem::path& project_file, const std::fil
                        const RunControl& control = {}, std::optional<VtkSelection> vtk = std::nullopt,
                        std::optional<VtkSelection> result_details = std::nullopt);
 
-/// Runs `analyse`, writes the outputs under `out_dir` unless it is empty, and
-/// maps every failure to its exit status and message (`context` names the
-/// input in messages that do not already). Routes the log to control.log_sink
-/// for the duration. run_project and the embedding API share it.
-RunOutcome run_guarded(const std::function<Analysis()>& analyse, const std::filesystem::path& out_dir,
+/// Runs `analyse` (with `control`, to which it adds the writing of the tables
+/// that need no check as soon as the results are solved), writes the outputs
+/// under `out_dir` unless it is empty, and maps every failure to its exit
+/// status and message (`context` names the input in messages that do not
+/// already). Routes the log to control.log_sink for the duration. run_project
+/// and the embedding API share it.
+RunOutcome run_guarded(const std::function<Analysis(const RunControl&)>& analyse, const std::filesystem::path& out_dir,
                        const RunControl& control, const std::string& context,
                        std::optional<VtkSelection> vtk = std::nullopt,
                        std::optional<VtkSelection> result_details = std::nullopt);

@@ -14,6 +14,8 @@
 
 namespace stepframe {
 
+struct Analysis;  // run.hpp
+
 /// Called as work goes on: a stage name and the fraction of that stage done,
 /// in [0, 1]. The stages, in order: "project", "geometry" (reading the
 /// STEP file), "wireframe" (members and nodes from it), "model",
@@ -55,6 +57,13 @@ struct RunControl {
   /// own meanwhile (several runs at once) leaves this off; the command line
   /// turns it on unless OPENBLAS_NUM_THREADS says otherwise.
   bool idle_cores_for_factorisation = false;
+  /// Called once on the analysing thread when the results are solved, before
+  /// the checks, with the analysis as far as it has come (results and shop
+  /// data; no checks; alpha_cr may still be on its way). The run writing an
+  /// output folder writes the tables that need no check then: a large frame's
+  /// analysis has a core to spare there, while it waits for the buckling
+  /// analysis.
+  std::function<void(const Analysis&)> results_solved;
 
   /// Throws Cancelled when either the callback or the flag asks for it.
   void throw_if_cancelled() const {
