@@ -5,6 +5,7 @@
 #include "stepframe/geometry/occt_sources.hpp"
 #include "stepframe/geometry/step_writer.hpp"
 #include "stepframe/stepframe.hpp"
+#include "stepframe/tables.hpp"
 #include "test_helpers.hpp"
 
 #include <BRepBuilderAPI_MakeEdge.hxx>
@@ -227,6 +228,47 @@ TEST_CASE("progress reports every stage in order, and cancelling stops the run b
     REQUIRE(seen.size() == 1);
     CHECK(seen[0].first == "project");
     CHECK_FALSE(std::filesystem::exists(dir / "flagged"));
+  }
+}
+
+TEST_CASE("results_solved sees the results before the checks; the tables written then are the final ones") {
+  test::ScratchDir dir;
+  write_beam(dir / "beam.stp");
+  test::write_text(dir / "beam.yaml", beam_yaml);
+  RunOptions options;
+  options.out_dir = dir / "out";
+  int calls = 0;
+  options.control.results_solved = [&](const Analysis& a) {
+    ++calls;
+    CHECK(a.checks.empty());
+    REQUIRE(a.results.size() == 1);
+    CHECK(a.results[0].name == "W");
+    CHECK(a.shop.marks.size() == 1);
+  };
+  const auto results = run_file(dir / "beam.yaml", options);
+  REQUIRE(results.status() == ExitStatus::pass);
+  CHECK(calls == 1);
+  // The run wrote these while the analysis went on (run_guarded's own results_solved, after the caller's):
+  // each as the finished analysis gives it.
+  const Analysis& a = results.analysis();
+  CHECK(test::read_text(dir / "out" / "takeoff.csv") == takeoff_csv(a));
+  CHECK(test::read_text(dir / "out" / "takeoff_by_section.csv") == takeoff_by_section_csv(a));
+  CHECK(test::read_text(dir / "out" / "reactions.csv") == reactions_csv(a));
+  CHECK(test::read_text(dir / "out" / "end_forces.csv") == end_forces_csv(a));
+  CHECK(test::read_text(dir / "out" / "cutlist.csv") == cutlist_csv(a));
+  CHECK(test::read_text(dir / "out" / "connections.csv") == connections_csv(a));
+  CHECK(test::read_text(dir / "out" / "checks.csv") == checks_csv(a));
+
+  SECTION("a run cancelled after those tables leaves no folder and no staging folder behind") {
+    bool solved = false;
+    options.out_dir = dir / "cancelled";
+    options.control.results_solved = [&](const Analysis&) { solved = true; };
+    options.control.cancel = [&] { return solved; };
+    CHECK(run_file(dir / "beam.yaml", options).status() == ExitStatus::cancelled);
+    CHECK(solved);
+    CHECK_FALSE(std::filesystem::exists(dir / "cancelled"));
+    for (const auto& entry : std::filesystem::directory_iterator(dir.path()))
+      CHECK(entry.path().filename().string().find("stepframe-tmp") == std::string::npos);
   }
 }
 
