@@ -49,9 +49,6 @@ void log_diagnostics(const std::filesystem::path& model, const std::vector<geome
                    n - shown_per_code, code);
 }
 
-// The most memory a pending buckling analysis may hold for the checks to run beside it (see analyse_model).
-constexpr double checks_beside_buckling_max_bytes = 1e9;
-
 }  // namespace
 
 ExitStatus Analysis::status() const {
@@ -135,12 +132,15 @@ Analysis analyse_wireframe(Analysis a, const RunControl& control) {
   }
 
   a.shop = shop_data(a.project, a.built, a.results);
-  if (control.results_solved) control.results_solved(a);
-
   // The checks' results take memory of their own as they go, so beside a large factor they raise the
-  // peak (the 100k bench frame: 4.3 GB against 3.8 GB): above this the checks wait for the buckling
-  // analysis, which frees the factor when it ends.
-  if (solved.solution.buckling.held_bytes() > checks_beside_buckling_max_bytes) attach_buckling();
+  // peak (the 100k bench frame: 4.3 GB against 3.8 GB): above control.checks_beside_buckling_bytes the
+  // checks wait for the buckling analysis, which frees the factor when it ends; the caller may use the
+  // core that waits (results_solved).
+  if (solved.solution.buckling.pending() &&
+      solved.solution.buckling.held_bytes() > control.checks_beside_buckling_bytes) {
+    if (control.results_solved) control.results_solved(a);
+    attach_buckling();
+  }
   report("checks", 0);
   const auto& spec = a.project.checks;
   const auto& model = a.built.model;

@@ -152,7 +152,8 @@ RunOutcome run_project(const std::filesystem::path& project_file, const std::fil
                        std::optional<VtkSelection> result_details = std::nullopt);
 
 /// Runs `analyse` (with `control`, to which it adds the writing of the tables
-/// that need no check as soon as the results are solved), writes the outputs
+/// that need no check while the checks wait for the buckling analysis:
+/// RunControl::results_solved), writes the outputs
 /// under `out_dir` unless it is empty, and maps every failure to its exit
 /// status and message (`context` names the input in messages that do not
 /// already). Routes the log to control.log_sink for the duration. run_project

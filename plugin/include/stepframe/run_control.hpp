@@ -25,8 +25,9 @@ struct Analysis;  // run.hpp
 /// buckling analysis (when asked for) runs on a thread of its own beside the
 /// recovery and the member checks; while the run waits for it, inside
 /// "checks", it reports "buckling", then "checks" again for the checks that
-/// need alpha_cr. A frame whose factorised stiffness takes more than about
-/// 1 GB (some 30,000 members) waits for it before "checks" instead, so that
+/// need alpha_cr. A frame whose factorised stiffness takes more than
+/// RunControl::checks_beside_buckling_bytes (1 GB by default: some 30,000
+/// members) waits for it before "checks" instead, so that
 /// the factor is freed before the checks' own memory grows.
 using ProgressCallback = std::function<void(std::string_view stage, double fraction)>;
 
@@ -57,12 +58,16 @@ struct RunControl {
   /// own meanwhile (several runs at once) leaves this off; the command line
   /// turns it on unless OPENBLAS_NUM_THREADS says otherwise.
   bool idle_cores_for_factorisation = false;
-  /// Called once on the analysing thread when the results are solved, before
-  /// the checks, with the analysis as far as it has come (results and shop
-  /// data; no checks; alpha_cr may still be on its way). The run writing an
-  /// output folder writes the tables that need no check then: a large frame's
-  /// analysis has a core to spare there, while it waits for the buckling
-  /// analysis.
+  /// The most memory [bytes] a pending buckling analysis (its factorised
+  /// stiffness) may hold for the checks to run beside it; above it the checks
+  /// wait for it, so that their memory and the factor's do not add up (some
+  /// 30,000 members and more). A host short of memory may lower it.
+  double checks_beside_buckling_bytes = 1e9;
+  /// Called on the analysing thread when the checks are about to wait for the
+  /// buckling analysis (see checks_beside_buckling_bytes; not called
+  /// otherwise), with the analysis as far as it has come: results and shop
+  /// data, no checks yet, alpha_cr still on its way. One core is idle then:
+  /// the run writing an output folder writes the tables that need no check.
   std::function<void(const Analysis&)> results_solved;
 
   /// Throws Cancelled when either the callback or the flag asks for it.
