@@ -13,6 +13,7 @@
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
+#include <optional>
 #include <unordered_map>
 
 namespace stepframe::geometry::detail {
@@ -35,19 +36,35 @@ ListKind kind_of(const StepLongList& list) {
   return ListKind::other;
 }
 
-// An array of select values (a layer's items, a set's elements) of the entities `items`; null when one
-// does not match the select type (OCCT's reader refuses such an item).
-template <class Array, class Select, class Find>
-Handle(Array) selects(const std::vector<std::uint64_t>& items, const Find& find) {
+// The array of the entities `items`, each made an element by `element` (nothing when it cannot be one:
+// OCCT's reader refuses such an item); null when an entity is missing or refused.
+template <class Array, class Find, class Element>
+Handle(Array) array_of(const std::vector<std::uint64_t>& items, const Find& find, const Element& element) {
   Handle(Array) array = new Array(1, static_cast<Standard_Integer>(items.size()));
-  Select select;
   for (std::size_t k = 0; k < items.size(); ++k) {
     const Handle(Standard_Transient) entity = find(items[k]);
-    if (entity.IsNull() || !select.Matches(entity)) return nullptr;
-    select.SetValue(entity);
-    array->SetValue(static_cast<Standard_Integer>(k) + 1, select);
+    if (entity.IsNull()) return nullptr;
+    const auto value = element(entity);
+    if (!value) return nullptr;
+    array->SetValue(static_cast<Standard_Integer>(k) + 1, *value);
   }
   return array;
+}
+
+// A select value (a layer's item, a set's element) of `entity`, as OCCT's reader makes one.
+template <class Select>
+std::optional<Select> select_of(const Handle(Standard_Transient)& entity) {
+  Select select;
+  if (!select.Matches(entity)) return std::nullopt;
+  select.SetValue(entity);
+  return select;
+}
+
+// A representation item of `entity` (the type OCCT's representation readers ask for).
+std::optional<Handle(StepRepr_RepresentationItem)> item_of(const Handle(Standard_Transient)& entity) {
+  auto item = Handle(StepRepr_RepresentationItem)::DownCast(entity);
+  if (item.IsNull()) return std::nullopt;
+  return item;
 }
 
 }  // namespace
@@ -90,27 +107,21 @@ bool restore_long_lists(STEPCAFControl_Reader& reader, const std::vector<StepLon
     switch (kind_of(list)) {
       case ListKind::representation_items:  // as RWStepRepr_RWRepresentation and its kin read `items`
         if (const auto rep = Handle(StepRepr_Representation)::DownCast(owner); !rep.IsNull()) {
-          Handle(StepRepr_HArray1OfRepresentationItem) items =
-              new StepRepr_HArray1OfRepresentationItem(1, static_cast<Standard_Integer>(list.items.size()));
-          done = true;
-          for (std::size_t k = 0; k < list.items.size() && done; ++k) {
-            const auto item = Handle(StepRepr_RepresentationItem)::DownCast(find(list.items[k]));
-            done = !item.IsNull();
-            items->SetValue(static_cast<Standard_Integer>(k) + 1, item);
-          }
-          if (done) rep->SetItems(items);
+          const auto items = array_of<StepRepr_HArray1OfRepresentationItem>(list.items, find, item_of);
+          if ((done = !items.IsNull())) rep->SetItems(items);
         }
         break;
       case ListKind::geometric_set_elements:
         if (const auto set = Handle(StepShape_GeometricSet)::DownCast(owner); !set.IsNull()) {
-          const auto elements =
-              selects<StepShape_HArray1OfGeometricSetSelect, StepShape_GeometricSetSelect>(list.items, find);
+          const auto elements = array_of<StepShape_HArray1OfGeometricSetSelect>(
+              list.items, find, select_of<StepShape_GeometricSetSelect>);
           if ((done = !elements.IsNull())) set->SetElements(elements);
         }
         break;
       case ListKind::layer_assigned_items:
         if (const auto layer = Handle(StepVisual_PresentationLayerAssignment)::DownCast(owner); !layer.IsNull()) {
-          const auto items = selects<StepVisual_HArray1OfLayeredItem, StepVisual_LayeredItem>(list.items, find);
+          const auto items =
+              array_of<StepVisual_HArray1OfLayeredItem>(list.items, find, select_of<StepVisual_LayeredItem>);
           if ((done = !items.IsNull())) layer->SetAssignedItems(items);
         }
         break;

@@ -303,8 +303,9 @@ std::optional<StepModel> parse_and_read(const std::string& source, Read read, co
 // back after the parse), doubled quotes encoded, strings longer than OCCT
 // takes cut (`long_strings`, each with a warning), shell-based wireframes
 // rewritten.
+// `rewrites.long_lists` holds only lists restore_long_lists puts back (restorable_long_lists).
 StepModel read_text(std::string_view text, const std::string& source, const StepRewrites& rewrites) {
-  const std::vector<StepLongList> lists = detail::restorable_long_lists(rewrites.long_lists);
+  const std::vector<StepLongList>& lists = rewrites.long_lists;
   auto parse = [&](std::string_view given, const std::vector<StepLongList>& cut) {
     const std::optional<std::string> quotes = detail::encode_doubled_quotes(given);
     if (quotes) given = *quotes;
@@ -409,7 +410,9 @@ StepModel read_step_text(std::string_view step_text, std::string display_name) {
   if (step_text.find("ISO-10303-21") == std::string_view::npos)
     fail(display_name, fmt::format("is not STEP (ISO 10303-21) text: it does not start with ISO-10303-21;. {}",
                                    export_advice));
-  return read_text(step_text, display_name, check_step_structure(step_text, display_name));
+  StepRewrites rewrites = check_step_structure(step_text, display_name);
+  rewrites.long_lists = detail::restorable_long_lists(std::move(rewrites.long_lists));
+  return read_text(step_text, display_name, rewrites);
 }
 
 }  // namespace stepframe::geometry
