@@ -80,7 +80,8 @@ void print_timings(stepframe::cli::ProgressDisplay& display) {
 
 int run_command(const std::filesystem::path& project, const std::filesystem::path& out, bool json, bool show_progress,
                 bool timings, std::optional<stepframe::VtkSelection> vtk,
-                std::optional<stepframe::VtkSelection> result_details, const std::filesystem::path& baseline_path,
+                std::optional<stepframe::VtkSelection> result_details,
+                std::optional<stepframe::CheckDetails> check_details, const std::filesystem::path& baseline_path,
                 double max_increase, bool suggest) {
   // The baseline is read first: a bad one stops the run before anything is written, and a baseline that
   // is the output folder itself (the previous run) is read before the run replaces it.
@@ -99,7 +100,7 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   control.cancel_flag = &stop_requested;
   control.idle_cores_for_factorisation = std::getenv("OPENBLAS_NUM_THREADS") == nullptr;
   catch_stop_signals();
-  const auto outcome = stepframe::run_project(project, out, control, vtk, result_details);
+  const auto outcome = stepframe::run_project(project, out, control, vtk, result_details, check_details);
   display.clear();
   finish_if_signalled(outcome.analysis.has_value());  // an analysis in the outcome: its files are written
   if (timings) print_timings(display);
@@ -221,6 +222,14 @@ int main(int argc, char** argv) {
                   "every case and combination with its governing sway variant (combinations), the governing "
                   "results (governing) or none, whatever the project's outputs: block says")
       ->transform(CLI::CheckedTransformer(selection_choices, CLI::ignore_case));
+  std::optional<stepframe::CheckDetails> run_check_details;
+  run->add_option("--check-details", run_check_details,
+                  "Clause texts and intermediate values in results.json for every check (all) or for each member's "
+                  "governing check and every failing one (governing), whatever the project's outputs: block says")
+      ->transform(CLI::CheckedTransformer(std::map<std::string, stepframe::CheckDetails>{
+                                              {"all", stepframe::CheckDetails::all},
+                                              {"governing", stepframe::CheckDetails::governing}},
+                                          CLI::ignore_case));
 
   std::filesystem::path run_baseline;
   double run_max_increase = stepframe::CompareOptions{}.max_increase;
@@ -279,7 +288,7 @@ int main(int argc, char** argv) {
   try {
     if (*run)
       return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk,
-                         run_result_details, run_baseline, run_max_increase, run_suggest);
+                         run_result_details, run_check_details, run_baseline, run_max_increase, run_suggest);
     if (*compare) return stepframe::cli::compare_command(compare_options);
     if (*suggest) return stepframe::cli::suggest_command(suggest_options);
     if (*sections) return stepframe::cli::sections_command(sections_options);

@@ -1,5 +1,5 @@
 // The `outputs:` block of a project file: which VTK files a run writes, and
-// which results carry their details in results.json.
+// which results and checks carry their details in results.json.
 
 #include "project_blocks.hpp"
 
@@ -24,13 +24,19 @@ VtkSelection read_selection(const Reader& r, const YAML::Node& node, const std::
 OutputsSpec read_outputs(const Reader& r, const YAML::Node& node) {
   OutputsSpec spec;
   if (!node) return spec;
-  r.check_keys(node, "outputs", {"line_models", "surfaces", "buckling_modes", "result_details", "compression",
+  r.check_keys(node, "outputs", {"line_models", "surfaces", "buckling_modes", "result_details", "check_details", "compression",
                                  "pictures", "line_model_points", "surface_sections", "browser_view",
                                  "calculation_sheets"});
   if (node["line_models"]) spec.line_models = read_selection(r, node["line_models"], "outputs.line_models");
   if (node["surfaces"]) spec.surfaces = read_selection(r, node["surfaces"], "outputs.surfaces");
   if (node["buckling_modes"]) spec.buckling_modes = read_selection(r, node["buckling_modes"], "outputs.buckling_modes");
   if (node["result_details"]) spec.result_details = read_selection(r, node["result_details"], "outputs.result_details");
+  if (const auto details = node["check_details"]) {
+    const std::string value = r.text(details, "outputs.check_details");
+    if (value == "all") spec.check_details = CheckDetails::all;
+    else if (value == "governing") spec.check_details = CheckDetails::governing;
+    else r.fail(details, "outputs.check_details", "expected all or governing, got '" + value + "'");
+  }
   if (node["compression"]) {
     const std::string value = r.text(node["compression"], "outputs.compression");
     if (value == "lz4") spec.compression = viz::VtkCompression::lz4;

@@ -96,13 +96,22 @@ std::string frame_checks(const Analysis& a) {
   return "<h2 id=\"frame\">Frame checks</h2>\n<table id=\"frame-checks\">" + std::string(check_header) + rows + "</table>\n";
 }
 
+// The report lists the `members_listed` most utilised members and every failing one; checks.csv lists
+// every member (a page of 100,000 rows is 27 MB that no one reads).
+constexpr std::size_t members_listed = 1000;
+
 std::string members_table(const Analysis& a) {
   const auto& model = a.built.model;
-  const auto governing = report::governing_per_member(a);
+  const auto governing = governing_checks(a);
   std::string h = "<h2 id=\"members\">Members by utilisation</h2>\n<table id=\"members-table\"><tr><th>member</th><th>entity</th>"
                   "<th>name</th><th>section</th><th>material</th><th>length m</th><th>governing check</th><th>result</th>"
                   "<th>x m</th><th>value</th><th>limit</th><th>utilisation</th></tr>\n";
-  for (std::size_t m : report::members_by_utilisation(a)) {
+  const std::vector<std::size_t> order = report::members_by_utilisation(a);
+  std::size_t listed = 0;
+  for (std::size_t k = 0; k < order.size(); ++k) {
+    const std::size_t m = order[k];
+    if (k >= members_listed && (!governing[m] || governing[m]->pass)) continue;
+    ++listed;
     const auto& el = model.elements[model.members[m].elements.front()];
     const auto& src = a.built.member_sources[m];
     const double length = report::member_length(model, model.members[m]);
@@ -118,7 +127,12 @@ std::string members_table(const Analysis& a) {
     else
       h += "<td colspan=\"6\">not checked</td></tr>\n";
   }
-  return h + "</table>\n";
+  h += "</table>\n";
+  if (listed < order.size())
+    h += fmt::format("<p>The {} most utilised and every failing one of {} members; checks.csv lists every member "
+                     "with its governing check.</p>\n",
+                     members_listed, order.size());
+  return h;
 }
 
 std::string diagnostics(const Analysis& a) {

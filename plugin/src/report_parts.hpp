@@ -29,10 +29,6 @@ std::string with_unit(double value, const std::string& si_unit, const Project& p
 /// A member's length along its elements [m].
 double member_length(const analysis::FrameModel& model, const analysis::Member& member);
 
-/// The governing (largest utilisation) check of every member, nullptr where
-/// none applies; index = member.
-std::vector<const analysis::CheckResult*> governing_per_member(const Analysis& analysis);
-
 /// Members ordered by their governing utilisation, largest first (unchecked last).
 std::vector<std::size_t> members_by_utilisation(const Analysis& analysis);
 

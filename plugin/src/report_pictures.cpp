@@ -74,7 +74,7 @@ const analysis::LoadResult* stress_result(const Analysis& a) {
 std::string pictures_section(const Analysis& a) {
   if (!a.project.outputs.pictures || a.results.empty()) return {};
   const auto& model = a.built.model;
-  const auto governing = governing_per_member(a);
+  const auto governing = governing_checks(a);
   // The pictures are drawn together (one OpenGL context for all); each figure is written once drawn.
   std::vector<viz::PictureRequest> requests;
   std::vector<std::function<std::string(const viz::Picture&)>> figures;

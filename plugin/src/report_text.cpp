@@ -52,17 +52,8 @@ double member_length(const analysis::FrameModel& model, const analysis::Member& 
   return length;
 }
 
-std::vector<const analysis::CheckResult*> governing_per_member(const Analysis& a) {
-  std::vector<const analysis::CheckResult*> governing(a.built.model.members.size(), nullptr);
-  for (const auto& c : a.checks)
-    if (c.member != analysis::whole_frame && c.member < governing.size() &&
-        (!governing[c.member] || c.utilisation > governing[c.member]->utilisation))
-      governing[c.member] = &c;
-  return governing;
-}
-
 std::vector<std::size_t> members_by_utilisation(const Analysis& a) {
-  const auto governing = governing_per_member(a);
+  const auto governing = governing_checks(a);
   std::vector<std::size_t> order(governing.size());
   std::iota(order.begin(), order.end(), std::size_t{0});
   auto util = [&](std::size_t m) { return governing[m] ? governing[m]->utilisation : -1.0; };
@@ -78,7 +69,7 @@ std::string member_label(const Analysis& a, std::size_t m) {
 }
 
 std::vector<std::size_t> sheet_members(const Analysis& a) {
-  const auto governing = governing_per_member(a);
+  const auto governing = governing_checks(a);
   const auto order = members_by_utilisation(a);
   std::vector<std::size_t> chosen;
   std::set<std::size_t> seen;

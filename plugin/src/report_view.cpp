@@ -37,7 +37,7 @@ std::string n5(double value) {
 std::string view_data(const Analysis& a) {
   const auto& model = a.built.model;
   const auto chains = analysis::member_chains(model);
-  const auto governing = governing_per_member(a);
+  const auto governing = governing_checks(a);
   const auto sheets = sheet_members(a);
   std::vector<bool> has_sheet(chains.size(), false);
   for (std::size_t m : sheets)

@@ -8,6 +8,8 @@
 #include "stepframe/analysis/local_axes.hpp"
 #include "stepframe/analysis/member_line.hpp"
 
+#include <functional>
+
 
 namespace stepframe {
 namespace {
@@ -21,22 +23,25 @@ void vec6(JsonWriter& w, const analysis::Vector6d& v) {
   w.numbers(std::array<double, 6>{v[0], v[1], v[2], v[3], v[4], v[5]});
 }
 
-void write_checks(JsonWriter& w, const std::vector<analysis::CheckResult>& checks) {
+// Every check; the clause text and intermediate values only where `detailed` (outputs.check_details).
+void write_checks(JsonWriter& w, const std::vector<analysis::CheckResult>& checks,
+                  const std::function<bool(const analysis::CheckResult&)>& detailed) {
   w.begin_array();
   for (const auto& c : checks) {
+    const bool details = detailed(c);
     w.newline();
     w.begin_object();
     if (c.member == analysis::whole_frame) w.key("member").null();
     else w.key("member").value(c.member);
     w.key("check").value(c.check);
-    w.key("clause").value(c.clause);
+    if (details) w.key("clause").value(c.clause);
     w.key("combination").value(c.combination);
     w.key("station").value(c.station);
     w.key("value").value(c.value);
     w.key("limit").value(c.limit);
     w.key("utilisation").value(c.utilisation);
     w.key("pass").value(c.pass);
-    if (!c.details.empty()) {
+    if (details && !c.details.empty()) {
       w.key("details").begin_object();
       for (const auto& [name, value] : c.details) w.key(name).value(value);
       w.end_object();
@@ -270,7 +275,14 @@ void write_results_json(const Analysis& a, const std::function<void(std::string_
   w.newline();
 
   w.key("checks");
-  write_checks(w, a.checks);
+  {
+    const auto governing = governing_checks(a);
+    const bool every = a.project.outputs.check_details == CheckDetails::all;
+    write_checks(w, a.checks, [&](const analysis::CheckResult& c) {
+      return every || !c.pass || c.member == analysis::whole_frame || c.member >= governing.size() ||
+             governing[c.member] == &c;
+    });
+  }
   w.newline();
 
   w.key("sway_imperfections").begin_array();
@@ -410,7 +422,7 @@ nlohmann::json checks_json(const std::vector<analysis::CheckResult>& checks) {
   std::string text;
   {
     JsonWriter w([&](std::string_view piece) { text.append(piece); });
-    write_checks(w, checks);
+    write_checks(w, checks, [](const analysis::CheckResult&) { return true; });
   }
   return nlohmann::json::parse(text);
 }

@@ -12,7 +12,7 @@ namespace stepframe {
 
 RunOutcome run_guarded(const std::function<Analysis(const RunControl&)>& analyse, const std::filesystem::path& out_dir,
                        const RunControl& control, const std::string& context, std::optional<VtkSelection> vtk,
-                       std::optional<VtkSelection> result_details) {
+                       std::optional<VtkSelection> result_details, std::optional<CheckDetails> check_details) {
   const ScopedLogSink log_route(control.log_sink, control.log_level);
   RunOutcome outcome;
   try {
@@ -34,6 +34,7 @@ RunOutcome run_guarded(const std::function<Analysis(const RunControl&)>& analyse
     auto& outputs = outcome.analysis->project.outputs;
     if (vtk) outputs.line_models = outputs.surfaces = outputs.buckling_modes = *vtk;
     if (result_details) outputs.result_details = *result_details;
+    if (check_details) outputs.check_details = *check_details;
     if (staging) outcome.files = detail::write_outputs_into(*outcome.analysis, *staging, out_dir, std::move(tables), control);
     outcome.status = outcome.analysis->status();
   } catch (const Cancelled& e) {
@@ -54,10 +55,10 @@ RunOutcome run_guarded(const std::function<Analysis(const RunControl&)>& analyse
 
 RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir,
                        const RunControl& control, std::optional<VtkSelection> vtk,
-                       std::optional<VtkSelection> result_details) {
+                       std::optional<VtkSelection> result_details, std::optional<CheckDetails> check_details) {
   return run_guarded([&](const RunControl& c) { return analyse_project(project_file, c); },
                      out_dir.empty() ? default_out_dir(project_file) : out_dir, control, project_file.string(), vtk,
-                     result_details);
+                     result_details, check_details);
 }
 
 }  // namespace stepframe

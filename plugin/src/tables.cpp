@@ -50,10 +50,7 @@ PeopleUnit people_unit(const std::string& si_unit, const Project& project) {
 
 std::string checks_csv(const Analysis& a) {
   const auto& model = a.built.model;
-  std::vector<const analysis::CheckResult*> governing(model.members.size(), nullptr);
-  for (const auto& c : a.checks)
-    if (c.member != analysis::whole_frame && (!governing[c.member] || c.utilisation > governing[c.member]->utilisation))
-      governing[c.member] = &c;
+  const auto governing = governing_checks(a);
 
   std::string out = "member,entity,name,section,utilisation,value,limit,unit,check,clause,combination,station_m,pass\n";
   for (std::size_t m = 0; m < model.members.size(); ++m) {

@@ -54,6 +54,7 @@ combinations:
   - {name: LRFD, kind: uls, factors: {D: 1.2, L: 1.6}}
   - {name: ASD, kind: uls, factors: {D: 1.0, L: 1.0}}
   - {name: LIVE, kind: sls, factors: {L: 1.0}}
+outputs: {check_details: all}  # every check with its clause and intermediate values
 checks:
   aisc360: {method: )" + method + ", combinations: [" + combination + R"(]}
   deflection: {span_ratio: 360, combinations: [LIVE]}

@@ -96,10 +96,18 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
       CHECK(std::filesystem::exists(out / "vtk" / (name + ".vtu")) == (!variant || name == governing_variant));
     }
   }
-  SECTION("the line model of each result carries the results.json numbers") {
+  SECTION("results.json details the governing result, whose line model carries its numbers") {
+    // By default results.json holds node displacements and member summaries of the governing results
+    // only: here ULS's governing sway variant (the largest utilisation, and ULS's alpha_cr).
+    std::vector<std::string> detailed;
     for (const auto& result : j["results"]) {
-      const auto file = out / "vtk" / (result["name"].get<std::string>() + ".vtu");
-      if (!std::filesystem::exists(file)) continue;  // a variant that does not govern (above)
+      const auto name = result["name"].get<std::string>();
+      if (!result.contains("members")) {
+        CHECK(result["left_out"] == nlohmann::json::array({"displacements", "members"}));
+        continue;
+      }
+      detailed.push_back(name);
+      const auto file = out / "vtk" / (name + ".vtu");
       const auto grid = read_vtu(file);
       REQUIRE(grid->GetNumberOfCells() == 3);
       auto* stress = grid->GetCellData()->GetArray("stress");
@@ -111,6 +119,7 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
       REQUIRE(grid->GetPointData()->GetArray("N"));
       REQUIRE(grid->GetCellData()->GetArray("utilisation"));
     }
+    CHECK(detailed == std::vector<std::string>{governing_variant});
   }
   SECTION("one surface model, of the governing result, and it shows the fibre stresses") {
     // The governing results: the largest member utilisation (ULS's governing sway variant here) and
@@ -253,4 +262,59 @@ TEST_CASE("run --result-details sets results.json's details whatever the project
   const auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\" --result-details some", dir);
   CHECK(r.status != 0);
   CHECK_THAT(r.err, Contains("--result-details"));
+}
+
+TEST_CASE("results.json: clause texts and intermediate values for the governing and failing checks, or every check") {
+  test::ScratchDir dir;
+  test::write_portal(dir);
+  const std::string project = test::read_text(dir / "portal.yaml");
+  auto checks = [&](const std::string& options) {
+    return nlohmann::json::parse(test::read_text(run_portal(dir, options) / "results.json"))["checks"];
+  };
+  const auto thin = checks("");
+  const auto every = checks(" --check-details all");
+  REQUIRE(thin.size() == every.size());
+  REQUIRE(thin.size() > 6);  // three members, several checks each, and the frame checks
+  // Each member's governing entry: its largest utilisation, the first of equals.
+  std::map<std::size_t, std::size_t> governing;
+  for (std::size_t i = 0; i < every.size(); ++i) {
+    if (every[i]["member"].is_null()) continue;
+    const auto m = every[i]["member"].get<std::size_t>();
+    if (!governing.count(m) || every[i]["utilisation"].get<double>() > every[governing[m]]["utilisation"].get<double>())
+      governing[m] = i;
+  }
+  REQUIRE(governing.size() == 3);
+  std::size_t without = 0;
+  for (std::size_t i = 0; i < every.size(); ++i) {
+    INFO(every[i].dump());
+    CHECK(every[i].contains("clause"));
+    const bool kept = every[i]["member"].is_null() || !every[i]["pass"].get<bool>() ||
+                      governing[every[i]["member"].get<std::size_t>()] == i;
+    if (kept) {
+      CHECK(thin[i] == every[i]);
+    } else {
+      ++without;
+      nlohmann::json bare = every[i];
+      bare.erase("clause");
+      bare.erase("details");
+      CHECK(thin[i] == bare);  // member, check, result, station, value, limit, utilisation and verdict stay
+    }
+  }
+  CHECK(without > 0);
+
+  SECTION("the project's outputs: block, and the command line over it") {
+    test::write_text(dir / "portal.yaml", project + "outputs: {check_details: all}\n");
+    CHECK(checks("") == every);
+    CHECK(checks(" --check-details governing") == thin);
+  }
+  SECTION("a bad value names the key or the option") {
+    test::write_text(dir / "portal.yaml", project + "outputs: {check_details: some}\n");
+    auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\"", dir);
+    CHECK(r.status == 2);
+    CHECK_THAT(r.err, Contains("outputs.check_details") && Contains("expected all or governing, got 'some'"));
+    test::write_text(dir / "portal.yaml", project);
+    r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\" --check-details some", dir);
+    CHECK(r.status != 0);
+    CHECK_THAT(r.err, Contains("--check-details"));
+  }
 }

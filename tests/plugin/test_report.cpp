@@ -5,6 +5,7 @@
 
 #include "portal_project.hpp"
 #include "stepframe/analysis/section.hpp"
+#include "stepframe/api.hpp"
 #include "stepframe/viz/colour_scale.hpp"
 
 #include <catch2/catch.hpp>
@@ -146,5 +147,46 @@ TEST_CASE("the report lists every failing check first, then the highest passing 
     const auto absolute = html.find(dir.path().string());
     INFO(html.substr(absolute == std::string::npos ? 0 : absolute - std::min<std::size_t>(absolute, 200), 300));
     CHECK(absolute == std::string::npos);  // no absolute paths
+  }
+}
+
+TEST_CASE("the members table lists the 1,000 most utilised members and every failing one; checks.csv every member") {
+  // A continuous beam of 1,100 spans of 1 m (invented test data), every node held: 1,100 members.
+  test::ScratchDir dir;
+  std::vector<geometry::LineToWrite> spans;
+  for (int i = 0; i < 1100; ++i) spans.push_back({{double(i), 0, 0}, {double(i + 1), 0, 0}, {}});
+  geometry::write_step_wireframe(dir / "beam.stp", spans, "mm");
+  auto report = [&](double load_kN_per_m) {
+    const std::string project = "model: beam.stp\n"
+                                "units: {length: m, force: kN, line_load: kN/m}\n"
+                                "rules: [{where: {}, section: IPE300, material: S355}]\n"
+                                "supports: [{where: {z: 0}, fix: [ux, uy, uz, rx]}]\n"
+                                "cases: [{name: G, member_loads: [{where: {}, w: [0, 0, -" +
+                                std::to_string(load_kN_per_m) + "]}]}]\n"
+                                "analysis: {buckling_modes: 0}\n"
+                                "checks: {stress: {}}\n";
+    RunOptions options;
+    options.out_dir = dir / "out";
+    std::filesystem::remove_all(options.out_dir);
+    const Results results = run_text(project, dir.path(), options);
+    INFO(results.message());
+    REQUIRE(results.analysed());
+    CHECK(test::read_text(dir / "out" / "checks.csv").find("\n1099,") != std::string::npos);  // every member
+    return test::read_text(dir / "out" / "report.html");
+  };
+  SECTION("all pass: the 1,000 most utilised, and where the rest are") {
+    const auto html = report(10);
+    const auto rows = table_rows(html, "members-table");
+    CHECK(rows.size() == 1000);
+    for (const auto& row : rows) CHECK_THAT(row, !Contains("class=\"failed\""));
+    CHECK_THAT(html, Contains("The 1000 most utilised and every failing one of 1100 members; checks.csv lists every member"));
+  }
+  SECTION("all fail: every failing member is listed") {
+    // 5,000 kN/m on 1 m spans: about wL^2/12 = 417 kN*m against fy Wel = 198 kN*m (IPE 300, S355).
+    const auto html = report(5000);
+    const auto rows = table_rows(html, "members-table");
+    CHECK(rows.size() == 1100);
+    for (const auto& row : rows) CHECK_THAT(row, Contains("class=\"failed\""));
+    CHECK_THAT(html, !Contains("most utilised and every failing one"));
   }
 }

@@ -192,6 +192,7 @@ supports:
 cases:
   - name: G
     self_weight: true
+outputs: {check_details: all}  # every check with its clause and intermediate values
 checks:
   stress: {combinations: [G]}
 fabrication:

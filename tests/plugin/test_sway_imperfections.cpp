@@ -44,7 +44,7 @@ std::string portal_project(const std::string& analysis, const std::string& push 
 TEST_CASE("ultimate combinations are solved with the sway imperfection both ways along X and Y") {
   test::ScratchDir dir;
   write_portal(dir);
-  const Results r = run_text(portal_project(""), dir.path());
+  const Results r = run_text(portal_project("outputs: {result_details: combinations}\n"), dir.path());
   INFO(r.message());
   REQUIRE(r.analysed());
   const auto& doc = r.json();
@@ -171,10 +171,10 @@ TEST_CASE("sway amplification 1/(1 - 1/alpha_cr) of EN 1993-1-1 5.2.2(5)") {
   CHECK(top_sway(amplified, "ULS.sway+X") > 1.1 * top_sway(amplified, "ULS"));
 }
 
-TEST_CASE("outputs.result_details: results.json details the sway variant that governs, or every result") {
-  // Every variant is solved, checked and keeps its reactions; by default only the variant with the
-  // largest member utilisation among a combination's variants keeps its node displacements and member
-  // summaries, the same rule as for the line models.
+TEST_CASE("outputs.result_details: results.json details the governing results, the sway variant that governs, or every result") {
+  // Every variant is solved, checked and keeps its reactions; with `combinations` only the variant with
+  // the largest member utilisation among a combination's variants keeps its node displacements and
+  // member summaries, the same rule as for the line models; by default only the governing results do.
   test::ScratchDir dir;
   write_portal(dir);
   auto detailed = [](const nlohmann::json& doc) {
@@ -188,7 +188,7 @@ TEST_CASE("outputs.result_details: results.json details the sway variant that go
     }
     return names;
   };
-  const Results r = run_text(portal_project(""), dir.path());
+  const Results r = run_text(portal_project("outputs: {result_details: combinations}\n"), dir.path());
   INFO(r.message());
   REQUIRE(r.analysed());
   // The variant whose member checks reach the largest utilisation, from the checks themselves.
@@ -214,13 +214,17 @@ TEST_CASE("outputs.result_details: results.json details the sway variant that go
     for (std::size_t i = 0; i < defaults.size(); ++i)
       if (defaults[i].contains("members")) CHECK(all.json()["results"][i] == defaults[i]);
   }
-  SECTION("governing and none") {
+  SECTION("governing (the default) and none") {
     const Results governing = run_text(portal_project("outputs: {result_details: governing}\n"), dir.path());
     INFO(governing.message());
     REQUIRE(governing.analysed());
     std::set<std::string> expected;
     for (std::size_t i : governing_results(governing.analysis())) expected.insert(governing.analysis().results[i].name);
+    CHECK(expected.count(worst) == 1);  // the variant of the largest utilisation
     CHECK(detailed(governing.json()) == expected);
+    const Results by_default = run_text(portal_project(""), dir.path());
+    REQUIRE(by_default.analysed());
+    CHECK(by_default.json()["results"] == governing.json()["results"]);
     const Results none = run_text(portal_project("outputs: {result_details: none}\n"), dir.path());
     REQUIRE(none.analysed());
     CHECK(detailed(none.json()).empty());

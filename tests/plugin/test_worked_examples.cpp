@@ -62,6 +62,7 @@ cases:
       - where: {x: 1.7}
         force: [-127, 0, 0]
         moment: [0, "356 kNm", 0]
+outputs: {check_details: all}  # every check with its clause and intermediate values
 checks:
   en1993: {ltb_method: rolled, f_modification: false}
 )");
@@ -126,6 +127,7 @@ cases:
     node_loads:
       - {where: {x: 0}, moment: [0, "-356 kNm", 0]}
       - {where: {x: 1.7}, force: [-127, 0, 0], moment: [0, "356 kNm", 0]}
+outputs: {check_details: all}  # every check with its clause and intermediate values
 checks: {en1993: {}}
 )",
                                    dir.path());

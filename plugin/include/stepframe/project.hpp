@@ -211,11 +211,21 @@ enum class VtkSelection {
   none,
 };
 
+/// Which checks carry their clause text and intermediate values (`details`)
+/// in results.json. Every check keeps its member, check, result, station,
+/// value, limit, utilisation and verdict whatever this says.
+enum class CheckDetails {
+  all,        ///< every check
+  governing,  ///< each member's governing check (its largest utilisation), every failing check and the frame checks
+};
+
 /// What a run writes (the `outputs:` block). The defaults keep a
-/// building-sized run's folder small: line models, and results.json's node
-/// displacements and member summaries, for every case and combination (of a
-/// combination's sway variants the governing one), surfaces and buckling
-/// modes for the governing combinations only.
+/// building-sized run's folder small (under 1 GB at 100,000 members): line
+/// models for every case and combination (of a combination's sway variants
+/// the governing one), seven points per element; surfaces, buckling modes and
+/// results.json's node displacements and member summaries for the governing
+/// results only; clause texts and intermediate values for each member's
+/// governing check and every failing one.
 struct OutputsSpec {
   VtkSelection line_models = VtkSelection::combinations;  ///< outputs.line_models
   VtkSelection surfaces = VtkSelection::governing;       ///< outputs.surfaces
@@ -223,9 +233,12 @@ struct OutputsSpec {
   /// outputs.result_details: the results whose node displacements and member
   /// summaries results.json holds (every result keeps its name, alpha_cr and
   /// reactions; every variant is solved and checked whatever this says).
-  VtkSelection result_details = VtkSelection::combinations;
+  VtkSelection result_details = VtkSelection::governing;
+  CheckDetails check_details = CheckDetails::governing;  ///< outputs.check_details
   viz::VtkCompression compression = viz::VtkCompression::lz4;  ///< outputs.compression
-  std::size_t line_model_points = 11;  ///< outputs.line_model_points: points per element in line models
+  /// outputs.line_model_points: points per element in line models (seven: six
+  /// parts, as the buckling modes; a parabola drawn within 3% of its peak).
+  std::size_t line_model_points = 7;
   std::size_t surface_sections = 3;    ///< outputs.surface_sections: outlines per element in surfaces
   bool pictures = true;                                  ///< outputs.pictures: the report's pictures
   /// outputs.browser_view: the report's interactive 3D view; unset: on up to

@@ -91,7 +91,8 @@ std::string results_json_text(const Analysis& analysis);
 /// The results.json document parsed (for embedding; large for large models).
 nlohmann::json results_json(const Analysis& analysis);
 
-/// The `checks` array of results.json.
+/// The `checks` array of results.json, every check with its clause and details
+/// (as outputs.check_details: all writes it).
 nlohmann::json checks_json(const std::vector<analysis::CheckResult>& checks);
 
 /// Writes results.json, the tables, the report and the VTK files the
@@ -101,6 +102,11 @@ nlohmann::json checks_json(const std::vector<analysis::CheckResult>& checks);
 /// to `control` ("report" 1 when every file is in place). Returns the files written.
 std::vector<std::filesystem::path> write_outputs(const Analysis& analysis, const std::filesystem::path& out_dir,
                                                  const RunControl& control = {});
+
+/// The governing check of every member (its largest utilisation, the first of
+/// equals), nullptr where no check applies; index = member. What checks.csv
+/// lists, the report ranks by, and results.json details by default.
+std::vector<const analysis::CheckResult*> governing_checks(const Analysis& analysis);
 
 /// The results the `governing` output selection writes, as indices into
 /// analysis.results: the combination (case, when there are no combinations)
@@ -145,11 +151,13 @@ struct RunOutcome {
 /// status and message (nothing is written unless the analysis completes).
 /// `out_dir` empty means default_out_dir(project_file). `vtk`, when given,
 /// sets every kind of VTK file (line models, surfaces, buckling modes) to
-/// that selection, and `result_details` results.json's details
-/// (outputs.result_details), whatever the project's `outputs` say.
+/// that selection, `result_details` results.json's details of results
+/// (outputs.result_details) and `check_details` of checks
+/// (outputs.check_details), whatever the project's `outputs` say.
 RunOutcome run_project(const std::filesystem::path& project_file, const std::filesystem::path& out_dir = {},
                        const RunControl& control = {}, std::optional<VtkSelection> vtk = std::nullopt,
-                       std::optional<VtkSelection> result_details = std::nullopt);
+                       std::optional<VtkSelection> result_details = std::nullopt,
+                       std::optional<CheckDetails> check_details = std::nullopt);
 
 /// Runs `analyse` (with `control`, to which it adds the writing of the tables
 /// that need no check while the checks wait for the buckling analysis:
@@ -161,7 +169,8 @@ RunOutcome run_project(const std::filesystem::path& project_file, const std::fil
 RunOutcome run_guarded(const std::function<Analysis(const RunControl&)>& analyse, const std::filesystem::path& out_dir,
                        const RunControl& control, const std::string& context,
                        std::optional<VtkSelection> vtk = std::nullopt,
-                       std::optional<VtkSelection> result_details = std::nullopt);
+                       std::optional<VtkSelection> result_details = std::nullopt,
+                       std::optional<CheckDetails> check_details = std::nullopt);
 
 /// A short human summary: status, governing member and check, per-result extremes.
 std::string summary_text(const Analysis& analysis);
