@@ -110,6 +110,7 @@ TEST_CASE("a run writes every output, and each reads back consistently") {
       const auto file = out / "vtk" / (name + ".vtu");
       const auto grid = read_vtu(file);
       REQUIRE(grid->GetNumberOfCells() == 3);
+      CHECK(grid->GetNumberOfPoints() == 3 * 7);  // seven points per element by default (outputs.line_model_points)
       auto* stress = grid->GetCellData()->GetArray("stress");
       REQUIRE(stress);
       CHECK(std::string(grid->GetCellData()->GetScalars()->GetName()) == "stress");
@@ -236,6 +237,9 @@ TEST_CASE("outputs.line_models: all writes every sway variant's line model; --vt
   CHECK(line_models("") == std::vector<std::string>{"G.vtu", "SLS.vtu", "ULS.sway+X.vtu", "ULS.sway+Y.vtu",
                                                     "ULS.sway-X.vtu", "ULS.sway-Y.vtu", "ULS.vtu", "W.vtu"});
   CHECK(line_models(" --vtk combinations").size() == 5);  // G, W, ULS, SLS and ULS's governing variant
+  CHECK(read_vtu(dir / "out" / "vtk" / "G.vtu")->GetNumberOfPoints() == 3 * 7);  // seven points per element
+  test::write_text(dir / "portal.yaml", project + "outputs: {line_model_points: 11}\n");
+  CHECK(read_vtu(run_portal(dir, "") / "vtk" / "G.vtu")->GetNumberOfPoints() == 3 * 11);
 
   test::write_text(dir / "portal.yaml", project + "outputs: {line_models: all, surfaces: each}\n");
   const auto r = test::run_stepframe("run \"" + (dir / "portal.yaml").string() + "\"", dir);
