@@ -24,8 +24,8 @@ VtkSelection read_selection(const Reader& r, const YAML::Node& node, const std::
 OutputsSpec read_outputs(const Reader& r, const YAML::Node& node) {
   OutputsSpec spec;
   if (!node) return spec;
-  r.check_keys(node, "outputs", {"line_models", "surfaces", "buckling_modes", "result_details", "check_details", "compression",
-                                 "pictures", "line_model_points", "surface_sections", "browser_view",
+  r.check_keys(node, "outputs", {"line_models", "surfaces", "buckling_modes", "result_details", "check_details",
+                                 "compression", "pictures", "line_model_points", "surface_sections", "browser_view",
                                  "calculation_sheets"});
   if (node["line_models"]) spec.line_models = read_selection(r, node["line_models"], "outputs.line_models");
   if (node["surfaces"]) spec.surfaces = read_selection(r, node["surfaces"], "outputs.surfaces");

@@ -97,8 +97,8 @@ std::vector<std::filesystem::path> detail::write_outputs_into(const Analysis& an
   // Four writers run side by side, each with files of its own: the report (its pictures on a thread of
   // their own), the tables, results.json, and the VTK files on this thread. They read the analysis only
   // and call no one back; progress is reported from this thread alone. results.json has a thread of its
-  // own because it is the longest single file (some 10 s of a 100,000-member run's writing): behind the
-  // tables it finished alone, seconds after every other writer.
+  // own because it is the longest single text file (when it still held every result's details, some 10 s
+  // of a 100,000-member run's writing): behind the tables it finished alone, after every other writer.
   auto report = std::async(std::launch::async, [&analysis] { return report_html(analysis); });
   auto tables = std::async(std::launch::async, [&] {
     std::vector<std::filesystem::path> files;
