@@ -322,3 +322,20 @@ TEST_CASE("results.json: clause texts and intermediate values for the governing 
     CHECK_THAT(r.err, Contains("--check-details"));
   }
 }
+
+TEST_CASE("results.json: every failing check keeps its clause text and intermediate values by default") {
+  test::ScratchDir dir;
+  test::write_portal(dir, 140);  // 140 kN/m on the 5 m IPE 300 beam: several of its checks fail
+  const auto j = nlohmann::json::parse(test::read_text(run_portal(dir, "") / "results.json"));
+  std::map<std::size_t, std::size_t> failing_per_member;
+  for (const auto& c : j["checks"]) {
+    if (c["pass"].get<bool>()) continue;
+    INFO(c.dump());
+    CHECK(c.contains("clause"));
+    if (c["member"].is_number()) ++failing_per_member[c["member"].get<std::size_t>()];
+  }
+  // At least one member fails more than one check: a failing check that does not govern its member.
+  REQUIRE(!failing_per_member.empty());
+  CHECK(std::max_element(failing_per_member.begin(), failing_per_member.end(),
+                         [](const auto& a, const auto& b) { return a.second < b.second; })->second > 1);
+}
