@@ -86,10 +86,11 @@ std::vector<std::filesystem::path> detail::write_outputs_into(const Analysis& an
   auto text_file = [&](std::vector<std::filesystem::path>& list, const std::string& name, const std::string& text) {
     stepframe::text_file(dir, out_dir, list, name, text);
   };
-  // Governing utilisation per member, for colouring by verdict.
+  // Governing utilisation per member (0 where no check applies), for colouring by verdict.
   std::vector<double> utilisation(model.members.size(), 0.0);
-  for (const auto& c : analysis.checks)
-    if (c.member != analysis::whole_frame) utilisation[c.member] = std::max(utilisation[c.member], c.utilisation);
+  const auto governing = governing_checks(analysis);
+  for (std::size_t m = 0; m < governing.size(); ++m)
+    if (governing[m]) utilisation[m] = governing[m]->utilisation;
   const ResultSelection selected(analysis);
   const std::vector<bool> line_models = selected(outputs.line_models);
   const std::vector<bool> surfaces = selected(outputs.surfaces);
