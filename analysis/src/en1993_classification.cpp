@@ -84,7 +84,7 @@ Classification classify(const Section& s, double fy, double N, double My) {
     const double class3 = in_tension ? 0.0 : part.ratio() / limits[2];
     if (cls > result.section_class || (cls == result.section_class && class3 > result.class3_utilisation)) {
       result.section_class = std::max(cls, result.section_class);
-      result.governing_part = part.name;
+      result.governing_part = part.name;  // a view: no copy per part and station
       result.class3_utilisation = class3;
     }
   }

@@ -18,6 +18,7 @@
 #include <functional>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 namespace stepframe::analysis::en1993 {
@@ -54,7 +55,9 @@ std::array<double, 3> part_limits(const SectionPart& part, double fy, double alp
 
 struct Classification {
   int section_class = 1;
-  std::string governing_part;       ///< the plate that sets the class
+  /// The plate that sets the class: its name in the section classified (valid while that section lives)
+  /// or a fixed text; a view, as a class is worked out at every station of every member and result.
+  std::string_view governing_part;
   double class3_utilisation = 0;    ///< that plate's c/t over its class 3 limit (> 1 means class 4)
 };
 
