@@ -155,15 +155,17 @@ ScaledProblem scaled_problem(const LateralTorsionalStiffness& k, const DiagramIn
     K(i) = k.E * k.Iz * w2 * w2 * L / 2;                                  // int sin^2 = L / 2
     K(n + i) = (k.G * k.It * w2 + k.E * k.Iw * w2 * w2) * L / 2;
   }
-  // Sums of the points' (or intervals') n x n blocks, each block contiguous: plain loops, p in order (on
-  // the stack: this runs for every member and result).
+  // Sums of the points' (or intervals') n x n blocks times their weights: the blocks side by side are a
+  // matrix (one column per point, each block contiguous), so a sum is one matrix-vector product (the sums
+  // on the stack: this runs for every member and result).
   std::array<double, (most / 2) * (most / 2)> c, d;
   auto sum_of = [&](std::array<double, (most / 2) * (most / 2)>& sum, auto weight_of, std::size_t count,
                     const double* blocks) {
-    std::fill_n(sum.begin(), block, 0.0);
-    for (std::size_t p = 0; p < count; ++p)
-      if (const double weight = weight_of(p); weight != 0)
-        for (std::size_t i = 0; i < block; ++i) sum[i] += weight * blocks[p * block + i];
+    Eigen::VectorXd weights(static_cast<Eigen::Index>(count));
+    for (std::size_t p = 0; p < count; ++p) weights(static_cast<Eigen::Index>(p)) = weight_of(p);
+    Eigen::Map<Eigen::VectorXd>(sum.data(), static_cast<Eigen::Index>(block)).noalias() =
+        Eigen::Map<const Eigen::MatrixXd>(blocks, static_cast<Eigen::Index>(block), static_cast<Eigen::Index>(count)) *
+        weights;
   };
   // G = [0 C; C^T D]. 1/2 x^T G x = sum a_i b_j c_ij, c_ij = int M (i pi / L)^2 sin_i sin_j dx = sum_p M_p
   // (the point's block).
