@@ -129,11 +129,10 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   if (detail == LineDetail::forces && !s.second_order) {
     // First order: the forces follow from the start actions and the loads alone (statics).
     for (std::size_t k = 0; k < stations; ++k) {
-      Station st;
+      Station& st = result.stations.emplace_back();
       st.x = station_x(k);
       st.position = s.origin + st.x * s.axes.row(0).transpose();
       st.forces = internal_forces_at(f0, s.loads, st.x);
-      result.stations.push_back(st);
     }
     result.start_forces = result.stations.front().forces;
     result.end_forces = result.stations.back().forces;
@@ -167,12 +166,31 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
     return forces_with(x, s.second_order ? displacement_local(x) : start_displacement);
   };
 
+  // Full detail: the distance of the deformed axis from the line through the deformed ends at each station,
+  // in local axes as the stations are recovered, keeping the two largest (refined below).
+  const bool full = detail == LineDetail::full;
+  const Eigen::Vector3d& a = start_displacement;
+  const Eigen::Vector3d chord =
+      full ? Eigen::Vector3d(Eigen::Vector3d(L, 0, 0) + displacement_local(L) - a) : Eigen::Vector3d::Zero();
+  const double chord_length = chord.norm();
+  auto offset_of = [&](double x, const Eigen::Vector3d& u) {
+    const Eigen::Vector3d p = Eigen::Vector3d(x, 0, 0) + u - a;
+    return chord_length > 0 ? chord.cross(p).norm() / chord_length : p.norm();
+  };
+  std::array<std::size_t, 2> peaks{0, 0};
+  std::array<double, 2> heights{-1, -1};
+
   for (std::size_t k = 0; k < stations; ++k) {
     const double x = station_x(k);
-    Station st;
+    Station& st = result.stations.emplace_back();
     st.x = x;
     st.position = s.origin + x * s.axes.row(0).transpose();
     const Vector6d state = state_local(x);
+    if (full) {
+      const double distance = offset_of(x, state.head<3>());
+      if (distance > heights[0]) peaks[1] = peaks[0], heights[1] = heights[0], peaks[0] = k, heights[0] = distance;
+      else if (distance > heights[1]) peaks[1] = k, heights[1] = distance;
+    }
     st.forces = forces_with(x, state.head<3>());
     st.displacement = s.axes.transpose() * state.head<3>();
     st.rotation = s.axes.transpose() * state.tail<3>();
@@ -182,11 +200,10 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
     st.von_mises = stress.von_mises;
     result.max_abs_stress = std::max(result.max_abs_stress, st.max_abs_stress);
     if (st.von_mises > result.max_von_mises) result.max_von_mises = st.von_mises, result.max_von_mises_at = x;
-    result.stations.push_back(st);
   }
   result.start_forces = result.stations.front().forces;
   result.end_forces = result.stations.back().forces;
-  if (detail != LineDetail::full) return result;  // stations, or forces in second order
+  if (!full) return result;  // stations, or forces in second order
 
   // Candidate points of the extremes: ends, load breakpoints, and the zero
   // crossings of the shears (for moments) and of the load intensity (for
@@ -234,22 +251,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   // for Minimization without Derivatives, 1973, ch. 5; Boost.Math's brent_find_minima) within one
   // station spacing either side of the two largest stations (the offset is smooth and unimodal there;
   // two, so that a second hump of nearly the same height is not missed).
-  const Eigen::Vector3d& a = start_displacement;
-  const Eigen::Vector3d chord = Eigen::Vector3d(L, 0, 0) + displacement_local(L) - a;
-  const double chord_length = chord.norm();
-  auto offset_of = [&](double x, const Eigen::Vector3d& u) {
-    const Eigen::Vector3d p = Eigen::Vector3d(x, 0, 0) + u - a;
-    return chord_length > 0 ? chord.cross(p).norm() / chord_length : p.norm();
-  };
   auto offset = [&](double x) { return offset_of(x, displacement_local(x)); };
-  std::array<std::size_t, 2> peaks{0, 0};
-  std::array<double, 2> heights{-1, -1};
-  for (std::size_t k = 0; k < result.stations.size(); ++k) {
-    const Station& st = result.stations[k];
-    const double distance = offset_of(st.x, s.axes * st.displacement);
-    if (distance > heights[0]) peaks[1] = peaks[0], heights[1] = heights[0], peaks[0] = k, heights[0] = distance;
-    else if (distance > heights[1]) peaks[1] = k, heights[1] = distance;
-  }
   result.max_local_deflection = heights[0];
   result.max_local_deflection_at = result.stations[peaks[0]].x;
   const double step = L / static_cast<double>(stations - 1);
