@@ -77,7 +77,7 @@ enum class LineDetail {
 /// least 2) with their stresses and, in full, the exact diagram extremes, the
 /// largest stresses (at the stations and at the extremes' candidate points)
 /// and the largest deflection from the deformed chord (the highest stations,
-/// refined by golden-section search).
+/// refined by Brent's method).
 LineResult recover_element(const ElementState& state, std::size_t stations, LineDetail detail = LineDetail::full);
 
 }  // namespace stepframe::analysis
