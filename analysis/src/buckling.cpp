@@ -208,7 +208,7 @@ Sparse negative_geometric_stiffness(const Mesh& mesh, const std::vector<double>&
 struct Eigenpairs {
   std::vector<double> alpha;
   Eigen::MatrixXd vectors;
-  Eigen::MatrixXd block;  // the converged subspace (Ritz vectors, largest mu first): a start for the next pattern
+  Eigen::MatrixXd block;  // the converged subspace (Ritz vectors, largest mu first), or the vectors alone: a start for the next pattern
 };
 
 // Columns to iterate with: the wanted modes and as many again, at least four,
@@ -238,33 +238,58 @@ Eigenpairs converged_pairs(const Eigen::VectorXd& mu, const Eigen::MatrixXd& rit
   return out;
 }
 
-// Block inverse (subspace) iteration with Rayleigh-Ritz (Bathe & Wilson,
-// Numerical Methods in Finite Element Analysis, 1976, ch. 10): W = K^-1 G V,
-// then the small pencil (W^T G W) y = mu (W^T K W) y, where K W = G V needs no
-// product with K; V = W Y. Each Ritz value mu_k rises towards its limit, its
-// error shrinking by about q_k = (mu_(m+1) / mu_k)^2 per iteration, so the
-// error left is about |change| q_k / (1 - q_k) (mu_(m+1) estimated by the
-// last Ritz value). Converged when that is below `tolerance` for the lowest
-// alpha (alpha_cr) and below 100 `tolerance` for the others (their factors
-// and mode shapes are for showing). Started from the modes of a similar
-// pattern it settles in a few block solves, each little dearer than one
-// single solve.
+// Rayleigh-Ritz on the subspace spanned by `basis`: the small pencil a y = mu b y
+// (a = basis^T G basis, b = basis^T K basis, both symmetrised against rounding), its
+// values mu largest first (lowest alpha first) and the Ritz vectors basis y.
+struct Ritz {
+  Eigen::VectorXd mu;
+  Eigen::MatrixXd vectors;
+};
+std::optional<Ritz> rayleigh_ritz(const Eigen::MatrixXd& a, const Eigen::MatrixXd& b, const Eigen::MatrixXd& basis) {
+  const Eigen::GeneralizedSelfAdjointEigenSolver<Eigen::MatrixXd> rr(0.5 * (a + a.transpose()), 0.5 * (b + b.transpose()));
+  if (rr.info() != Eigen::Success) return std::nullopt;  // the basis lost rank
+  return Ritz{rr.eigenvalues().reverse(), basis * rr.eigenvectors().rowwise().reverse()};
+}
+
+// Rayleigh-Ritz of a pattern on a given subspace V alone, with no solve:
+// a = V^T G V, b = V^T K V (Bathe & Wilson, Numerical Methods in Finite
+// Element Analysis, 1976, ch. 10). Its k-th largest mu is at most the
+// pattern's k-th largest (the minimax characterisation; Parlett, The
+// Symmetric Eigenvalue Problem, 1998, ch. 10 and 11), so each alpha = 1 / mu
+// is an upper bound of the pattern's k-th lowest alpha.
+template <class Op>
+std::optional<Ritz> ritz_on(const Op& op, const Sparse& g, const Eigen::MatrixXd& v) {
+  return rayleigh_ritz(v.transpose() * (g.selfadjointView<Eigen::Lower>() * v), v.transpose() * op.product(v), v);
+}
+
+// Block inverse (subspace) iteration with Rayleigh-Ritz (Bathe & Wilson
+// 1976, ch. 10): W = K^-1 G V, then the small pencil (W^T G W) y = mu
+// (W^T K W) y, where K W = G V needs no product with K; V = W Y. Each Ritz
+// value mu_k rises towards its limit, its error shrinking by about q_k =
+// (mu_(m+1) / mu_k)^2 per iteration, so the error left is about |change|
+// q_k / (1 - q_k) (mu_(m+1) estimated by the last Ritz value). Converged
+// when that is below `tolerance` for the lowest alpha (alpha_cr) and below
+// 100 `tolerance` for the others (their factors and mode shapes are for
+// showing). Started from the modes of a similar pattern it settles in a few
+// block solves, each little dearer than one single solve. When the start is
+// a whole converged block of another pattern (`block_start`), its own Ritz
+// values for this pattern count as the iteration before the first, so a
+// pattern that buckles alike settles after one block solve.
 template <class Op>
 std::optional<Eigenpairs> subspace_iteration(const Op& op, const Sparse& g, Eigen::MatrixXd v, std::size_t modes,
-                                             double tolerance) {
+                                             double tolerance, bool block_start) {
   const spdlog::stopwatch started;
   const Eigen::Index m = v.cols(), nev = std::min<Eigen::Index>(static_cast<Eigen::Index>(modes), m - 1);
   Eigen::VectorXd previous;
+  if (block_start)
+    if (const auto before = ritz_on(op, g, v)) previous = before->mu;
   for (int it = 1; it <= 60; ++it) {
     const Eigen::MatrixXd gv = g.selfadjointView<Eigen::Lower>() * v;
     const Eigen::MatrixXd w = op.solve(gv);
-    Eigen::MatrixXd a = w.transpose() * (g.selfadjointView<Eigen::Lower>() * w), b = w.transpose() * gv;
-    a = 0.5 * (a + a.transpose()).eval();
-    b = 0.5 * (b + b.transpose()).eval();
-    const Eigen::GeneralizedSelfAdjointEigenSolver<Eigen::MatrixXd> rr(a, b);
-    if (rr.info() != Eigen::Success) return std::nullopt;  // the block lost rank: let Lanczos do it
-    const Eigen::VectorXd mu = rr.eigenvalues().reverse();  // largest mu (lowest alpha) first
-    v = w * rr.eigenvectors().rowwise().reverse();
+    auto rr = rayleigh_ritz(w.transpose() * (g.selfadjointView<Eigen::Lower>() * w), w.transpose() * gv, w);
+    if (!rr) return std::nullopt;  // let Lanczos do it
+    const Eigen::VectorXd& mu = rr->mu;
+    v = std::move(rr->vectors);
     bool converged = previous.size() == m && mu(0) > 0;
     for (Eigen::Index k = 0; k < nev && converged; ++k) {
       const double q = std::pow(std::max(mu(m - 1), 0.0) / mu(k), 2);
@@ -411,17 +436,19 @@ std::optional<Eigenpairs> lowest_alphas(const Op& op, const Sparse& g_free, std:
     out.alpha.push_back(1.0 / mu(kept[k]));
     out.vectors.col(static_cast<Eigen::Index>(k)) = vectors.col(kept[k]);
   }
-  out.block = start_block(out.vectors, n, block_size(modes));
+  out.block = out.vectors;  // not a whole converged block: the next start pads it (start_block)
   return out;
 }
 
 // The lowest alphas of one pattern: by subspace iteration from `start` when
-// there is one, by Lanczos otherwise or when that does not settle.
+// there is one, by Lanczos otherwise or when that does not settle. A start
+// of a whole block's columns is another pattern's converged block (Eigenpairs::block).
 template <class Op>
 std::optional<Eigenpairs> solve_pattern(const Op& op, const Sparse& g, std::size_t modes, double tolerance,
                                         const Eigen::MatrixXd& start) {
   if (start.rows() == op.rows() && start.cols() > 0) {
-    if (auto pairs = subspace_iteration(op, g, start_block(start, op.rows(), block_size(modes)), modes, tolerance))
+    const Eigen::Index m = block_size(modes);
+    if (auto pairs = subspace_iteration(op, g, start_block(start, op.rows(), m), modes, tolerance, start.cols() == m))
       return pairs;
     spdlog::debug("buckling: subspace iteration did not settle; Lanczos instead");
   } else {
@@ -600,47 +627,67 @@ std::vector<std::vector<BucklingMode>> buckling_modes(const FrameModel& model, c
   std::vector<std::size_t> parts(model.elements.size(), 1);
   const double steps = 2.0 * static_cast<double>(patterns.size());
   const StiffnessOp own_op(k_free, factor);
-  Eigen::MatrixXd start;  // the previous pattern's subspace: combinations of one frame buckle alike
+  // The first compressed pattern is solved; every later one gets only Rayleigh-Ritz bounds on that
+  // pattern's subspace (combinations of one frame buckle alike), enough to divide the elements on the
+  // safe side (parts_needed grows with alpha) and to start pass 2, which solves it. Where the bounds
+  // fall short of the modes wanted, the pattern is solved here too.
+  Eigen::MatrixXd start;
   std::vector<Eigen::MatrixXd> coarse_vectors(patterns.size());
-  std::vector<bool> compressed(patterns.size(), false);
+  std::vector<bool> compressed(patterns.size(), false), bounded(patterns.size(), false);
   for (std::size_t p = 0; p < patterns.size(); ++p) {
     report(static_cast<double>(p) / steps);
     const std::vector<double> forces = part_forces(model, coarse, patterns[p]);
     compressed[p] = compresses(coarse, forces);
     if (!compressed[p]) continue;
-    const auto pairs = solve_pattern(own_op, negative_geometric_stiffness(coarse, forces, dofs), options.modes,
-                                     options.tolerance, start);
+    const Sparse g = negative_geometric_stiffness(coarse, forces, dofs);
+    std::optional<Eigenpairs> pairs;
+    if (start.cols() == block_size(options.modes))
+      if (const auto ritz = ritz_on(own_op, g, start)) {
+        pairs = converged_pairs(ritz->mu, ritz->vectors, static_cast<Eigen::Index>(options.modes));
+        bounded[p] = pairs->alpha.size() == options.modes;
+      }
+    if (!bounded[p]) pairs = solve_pattern(own_op, g, options.modes, options.tolerance, start);
     // Without modes on the undivided model (a member buckling between held nodes), every
     // compressed element is divided as for its own buckling (parts_needed's cap).
     const double alpha_top = pairs && !pairs->alpha.empty() ? *std::max_element(pairs->alpha.begin(), pairs->alpha.end())
                                                             : std::numeric_limits<double>::infinity();
     for (std::size_t e = 0; e < model.elements.size(); ++e)
       parts[e] = std::max(parts[e], parts_needed(model, e, patterns[p], alpha_top, options));
-    if (!pairs || pairs->alpha.empty()) continue;
-    start = pairs->block;
+    if (!pairs || pairs->alpha.empty() || bounded[p]) continue;
     coarse_vectors[p] = pairs->vectors;
+    start = pairs->block;
     result[p] = to_modes(model, coarse, dofs, *pairs);
   }
   const std::size_t divided = static_cast<std::size_t>(std::count_if(parts.begin(), parts.end(), [](std::size_t n) { return n > 1; }));
   if (divided == 0) {
     spdlog::debug("buckling: no element needs dividing; {} pattern(s) solved on the model's own elements", patterns.size());
+    for (std::size_t p = 0; p < patterns.size(); ++p) {
+      if (!bounded[p]) continue;
+      const Sparse g = negative_geometric_stiffness(coarse, part_forces(model, coarse, patterns[p]), dofs);
+      if (const auto pairs = solve_pattern(own_op, g, options.modes, options.tolerance, start))
+        result[p] = to_modes(model, coarse, dofs, *pairs);
+    }
     report(1.0);
     return result;
   }
 
-  // Pass 2: one refined model for every pattern, its stiffness through the model's own factor,
-  // each pattern started from its own pass-1 modes carried to the inner nodes.
+  // Pass 2: one refined model for every pattern, its stiffness through the model's own factor; the
+  // first pattern started from its pass-1 modes carried to the inner nodes, every later one from the
+  // block the pattern before converged to.
   const Mesh fine = detail::divide_elements(model, parts);
   const DofNumbering fine_dofs = number_dofs(fine.model);
   const CondensedStiffnessOp fine_op(k_free, factor, inner_blocks(fine, fine_dofs), fine_dofs.free_count());
   spdlog::debug("buckling: {} of {} elements divided, {} DOFs", divided, model.elements.size(), fine_dofs.free_count());
+  Eigen::MatrixXd fine_start;
   for (std::size_t p = 0; p < patterns.size(); ++p) {
     report(0.5 + static_cast<double>(p) / steps);
     if (!compressed[p]) continue;
     const std::vector<double> forces = part_forces(model, fine, patterns[p]);
-    const auto pairs = solve_pattern(fine_op, negative_geometric_stiffness(fine, forces, fine_dofs), options.modes,
-                                     options.tolerance, refined(model, fine, dofs, fine_dofs, coarse_vectors[p]));
+    const auto pairs =
+        solve_pattern(fine_op, negative_geometric_stiffness(fine, forces, fine_dofs), options.modes, options.tolerance,
+                      fine_start.size() > 0 ? fine_start : refined(model, fine, dofs, fine_dofs, coarse_vectors[p]));
     result[p] = pairs ? to_modes(model, fine, fine_dofs, *pairs) : std::vector<BucklingMode>{};
+    if (pairs) fine_start = pairs->block;
   }
   report(1.0);
   return result;

@@ -142,3 +142,55 @@ TEST_CASE("ten separate cantilever columns: a twentyfold lowest alpha, each mode
     CHECK(mode.alpha * N == Approx(euler).epsilon(0.01));
   }
 }
+
+TEST_CASE("later patterns, bounded on the first one's subspace and solved from the pattern before, find what each finds alone") {
+  // Three patterns of one frame, as combinations give them: the columns' compression as above (A), growing
+  // twofold across the plan in X (B), and doubled in the upper storeys (C). The analysis solves A, bounds B
+  // and C by Rayleigh-Ritz on A's subspace, then solves them from the pattern before (buckling.cpp). A
+  // consistency test: against the dense solver of each pattern's own pencil, and against each pattern
+  // analysed alone with the same division.
+  const FrameModel m = square_building();
+  const double width = bay * static_cast<double>(grid - 1);
+  const std::vector<std::function<double(std::size_t)>> forces{
+      [&](std::size_t e) { return column_force(m, e); },
+      [&](std::size_t e) { return column_force(m, e) * (1 + m.nodes[m.elements[e].nodes[0]].x() / width); },
+      [&](std::size_t e) { return column_force(m, e) * (m.nodes[m.elements[e].nodes[0]].z() > 0 ? 2.0 : 1.0); }};
+  std::vector<AxialForce> patterns;
+  for (const auto& force : forces) patterns.push_back([&force](std::size_t e, double) { return force(e); });
+  BucklingOptions options;
+  options.modes = 3;
+
+  SECTION("no element divided: every pattern against the dense pencil") {
+    options.part_load_ratio = 1e9;
+    const auto modes = buckling_modes(m, patterns, options);
+    REQUIRE(modes.size() == 3);
+    for (std::size_t p = 0; p < 3; ++p) {
+      const std::vector<double> reference = dense_alphas(m, forces[p]);
+      REQUIRE(modes[p].size() == 3);
+      // buckling.hpp: alpha_cr to `tolerance` (1e-5), the other modes to 100 times that.
+      CHECK(modes[p][0].alpha == Approx(reference[0]).epsilon(1e-5));
+      CHECK(modes[p][1].alpha == Approx(reference[1]).epsilon(1e-3));
+      CHECK(modes[p][2].alpha == Approx(reference[2]).epsilon(1e-3));
+    }
+    CHECK(modes[1][0].alpha < modes[0][0].alpha);  // B carries more than A everywhere
+  }
+
+  SECTION("every column divided alike: every pattern against itself analysed alone") {
+    options.part_load_ratio = 1e-6;  // every compressed element at max_parts, in every run
+    options.max_parts = 3;
+    const auto together = buckling_modes(m, patterns, options);
+    REQUIRE(together.size() == 3);
+    for (std::size_t p = 0; p < 3; ++p) {
+      const auto alone = buckling_modes(m, {patterns[p]}, options);
+      REQUIRE(alone.size() == 1);
+      REQUIRE(together[p].size() == 3);
+      REQUIRE(alone[0].size() == 3);
+      CHECK(together[p][0].alpha == Approx(alone[0][0].alpha).epsilon(2e-5));
+      CHECK(together[p][1].alpha == Approx(alone[0][1].alpha).epsilon(2e-3));
+      CHECK(together[p][2].alpha == Approx(alone[0][2].alpha).epsilon(2e-3));
+      // Divided, each column's own buckling is represented better: lower alphas than undivided (both
+      // are Ritz upper bounds of the exact ones: buckling.hpp).
+      CHECK(together[p][0].alpha < dense_alphas(m, forces[p])[0]);
+    }
+  }
+}

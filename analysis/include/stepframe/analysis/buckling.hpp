@@ -16,7 +16,11 @@
 // of the part length). The analysis is therefore adaptive, in two passes
 // that share the static analysis' factorisation:
 //  1. every pattern on the model's own elements; Rayleigh-Ritz on a coarser
-//     space, so each alpha found is an upper bound;
+//     space, so each alpha found is an upper bound. The first compressed
+//     pattern is solved; every later one is only bounded, by Rayleigh-Ritz on
+//     the first one's converged subspace (no solve; bounds from above again,
+//     so the division below stays on the safe side), and solved in pass 2,
+//     or here when no element needs dividing or the bounds miss a mode;
 //  2. where an element, at the highest alpha wanted, carries more than
 //     `part_load_ratio` of the Euler load of its parts (rho = alpha |N| l^2 /
 //     (pi^2 E I_min) per part of length l; at most rho = 4, its own
@@ -32,9 +36,10 @@
 // The first compressed pattern is solved by block Krylov iteration from a
 // deterministic pseudo-random block (each step one solve with a block of
 // vectors, which on a large frame costs little more than a single one);
-// every later one, and pass 2, by block subspace iteration started from the
-// modes of the pattern or pass before, which settles in two or three block
-// solves. Spectra's Lanczos solver (one vector per solve) takes over when
+// pass 2 by block subspace iteration, its first pattern started from its
+// pass-1 modes (two or three block solves), every later one from the block
+// the pattern before converged to, which usually settles after one block
+// solve. Spectra's Lanczos solver (one vector per solve) takes over when
 // either does not settle.
 
 #include "stepframe/analysis/assembly.hpp"
