@@ -630,10 +630,13 @@ std::vector<std::vector<BucklingMode>> buckling_modes(const FrameModel& model, c
   // The first compressed pattern is solved; every later one gets only Rayleigh-Ritz bounds on that
   // pattern's subspace (combinations of one frame buckle alike), enough to divide the elements on the
   // safe side (parts_needed grows with alpha) and to start pass 2, which solves it. Where the bounds
-  // fall short of the modes wanted, the pattern is solved here too.
+  // fall short of the modes wanted, the pattern is solved here too. Any Ritz alpha is an upper bound,
+  // so these solves need not be tight: 10 times looser than asked (a few block solves fewer); the
+  // results come from pass 2, or, when no element needs dividing, from solving again from here.
+  const double coarse_tolerance = 10 * options.tolerance;
   Eigen::MatrixXd start;
-  std::vector<Eigen::MatrixXd> coarse_vectors(patterns.size());
-  std::vector<bool> compressed(patterns.size(), false), bounded(patterns.size(), false);
+  std::vector<Eigen::MatrixXd> coarse_vectors(patterns.size()), coarse_blocks(patterns.size());
+  std::vector<bool> compressed(patterns.size(), false);
   for (std::size_t p = 0; p < patterns.size(); ++p) {
     report(static_cast<double>(p) / steps);
     const std::vector<double> forces = part_forces(model, coarse, patterns[p]);
@@ -641,30 +644,32 @@ std::vector<std::vector<BucklingMode>> buckling_modes(const FrameModel& model, c
     if (!compressed[p]) continue;
     const Sparse g = negative_geometric_stiffness(coarse, forces, dofs);
     std::optional<Eigenpairs> pairs;
+    bool bounded = false;
     if (start.cols() == block_size(options.modes))
       if (const auto ritz = ritz_on(own_op, g, start)) {
         pairs = converged_pairs(ritz->mu, ritz->vectors, static_cast<Eigen::Index>(options.modes));
-        bounded[p] = pairs->alpha.size() == options.modes;
+        bounded = pairs->alpha.size() == options.modes;
       }
-    if (!bounded[p]) pairs = solve_pattern(own_op, g, options.modes, options.tolerance, start);
+    if (!bounded) pairs = solve_pattern(own_op, g, options.modes, coarse_tolerance, start);
     // Without modes on the undivided model (a member buckling between held nodes), every
     // compressed element is divided as for its own buckling (parts_needed's cap).
     const double alpha_top = pairs && !pairs->alpha.empty() ? *std::max_element(pairs->alpha.begin(), pairs->alpha.end())
                                                             : std::numeric_limits<double>::infinity();
     for (std::size_t e = 0; e < model.elements.size(); ++e)
       parts[e] = std::max(parts[e], parts_needed(model, e, patterns[p], alpha_top, options));
-    if (!pairs || pairs->alpha.empty() || bounded[p]) continue;
+    if (!pairs || pairs->alpha.empty()) continue;
+    coarse_blocks[p] = pairs->block;
+    if (bounded) continue;
     coarse_vectors[p] = pairs->vectors;
     start = pairs->block;
-    result[p] = to_modes(model, coarse, dofs, *pairs);
   }
   const std::size_t divided = static_cast<std::size_t>(std::count_if(parts.begin(), parts.end(), [](std::size_t n) { return n > 1; }));
   if (divided == 0) {
     spdlog::debug("buckling: no element needs dividing; {} pattern(s) solved on the model's own elements", patterns.size());
     for (std::size_t p = 0; p < patterns.size(); ++p) {
-      if (!bounded[p]) continue;
+      if (coarse_blocks[p].size() == 0) continue;  // not compressed, or no modes found
       const Sparse g = negative_geometric_stiffness(coarse, part_forces(model, coarse, patterns[p]), dofs);
-      if (const auto pairs = solve_pattern(own_op, g, options.modes, options.tolerance, start))
+      if (const auto pairs = solve_pattern(own_op, g, options.modes, options.tolerance, coarse_blocks[p]))
         result[p] = to_modes(model, coarse, dofs, *pairs);
     }
     report(1.0);

@@ -19,8 +19,9 @@
 //     space, so each alpha found is an upper bound. The first compressed
 //     pattern is solved; every later one is only bounded, by Rayleigh-Ritz on
 //     the first one's converged subspace (no solve; bounds from above again,
-//     so the division below stays on the safe side), and solved in pass 2,
-//     or here when no element needs dividing or the bounds miss a mode;
+//     so the division below stays on the safe side). Bounds need no tight
+//     solve: pass 1 iterates to 10 `tolerance`. Each pattern is then solved
+//     to `tolerance` in pass 2, or here when no element needs dividing;
 //  2. where an element, at the highest alpha wanted, carries more than
 //     `part_load_ratio` of the Euler load of its parts (rho = alpha |N| l^2 /
 //     (pi^2 E I_min) per part of length l; at most rho = 4, its own
