@@ -184,7 +184,8 @@ std::string report_html(const Analysis& a) {
        "href=\"#reactions\">reactions</a> · <a href=\"#diagnostics\">diagnostics</a> · <a href=\"#inputs\">inputs</a></p>\n";
 
   h += failures_first(a);
-  std::string rest = report::browser_view_section(a);
+  std::string rest;  // everything after the pictures, while they are drawn
+  report::append_browser_view_section(a, rest);
   rest += frame_checks(a);
   rest += members_table(a);
   rest += report::sheets_section(a);
@@ -195,7 +196,9 @@ std::string report_html(const Analysis& a) {
   rest += diagnostics(a);
   rest += report::inputs_section(a);
   rest += "<p class=\"caution\">" + esc(std::string(caution)) + "</p>\n</body></html>\n";
-  return h + pictures.get() + rest;
+  h += pictures.get();
+  rest.insert(0, h);  // in place where rest has room: rest holds the 3D view, the bulk of a large report
+  return rest;
 }
 
 }  // namespace stepframe

@@ -47,7 +47,8 @@ std::string sheet_anchor(std::size_t member);
 std::string utilisation_legend(const std::string& title, bool show_not_checked);
 
 std::string pictures_section(const Analysis& analysis);
-std::string browser_view_section(const Analysis& analysis);
+/// Appends the 3D view (report_view.cpp) to `out`: its data is most of a large frame's report.
+void append_browser_view_section(const Analysis& analysis, std::string& out);
 std::string sheets_section(const Analysis& analysis);
 std::string reactions_section(const Analysis& analysis);
 /// Piece marks with their counts and the recommended precamber (report_shop.cpp).

@@ -12,6 +12,8 @@
 #include <nlohmann/json.hpp>
 #include <spdlog/spdlog.h>
 
+#include <string>
+#include <string_view>
 
 namespace stepframe::report {
 namespace {
@@ -33,8 +35,10 @@ std::string n5(double value) {
   return d;
 }
 
-/// The view's data; its shapes are what viz/web/frame_view.js reads.
-std::string view_data(const Analysis& a) {
+/// Appends the view's data to `d`; its shapes are what viz/web/frame_view.js reads. Appended in place:
+/// with every result's stresses and extremes it is the bulk of a large frame's report (some 60 MB for
+/// 10,000 members and 62 results), and each copy of it costs as much as a tenth of its formatting.
+void append_view_data(const Analysis& a, std::string& d) {
   const auto& model = a.built.model;
   const auto chains = analysis::member_chains(model);
   const auto governing = governing_checks(a);
@@ -43,7 +47,9 @@ std::string view_data(const Analysis& a) {
   for (std::size_t m : sheets)
     if (m < has_sheet.size()) has_sheet[m] = true;
 
-  std::string d = "{\"scales\":" + viz::colour_scales_json() + ",\"nodes\":[";
+  d += "{\"scales\":";
+  d += viz::colour_scales_json();
+  d += ",\"nodes\":[";
   auto out = std::back_inserter(d);
   for (std::size_t i = 0; i < model.nodes.size(); ++i)
     fmt::format_to(out, "{}{:.4f},{:.4f},{:.4f}", i ? "," : "", model.nodes[i].x(), model.nodes[i].y(),
@@ -102,18 +108,29 @@ std::string view_data(const Analysis& a) {
   const auto order = members_by_utilisation(a);
   const std::string initial = !order.empty() && governing[order.front()] ? governing[order.front()]->combination : "";
   d += "],\"initial_result\":" + quoted(initial) + "}";
-  return d;
 }
 
-/// Text inside <script>: "</" would end the element early (HTML 4.01 B.3.2 / the HTML standard's script data state).
-std::string script_safe(std::string text) {
-  for (std::size_t at = text.find("</"); at != std::string::npos; at = text.find("</", at + 3)) text.replace(at, 2, "<\\/");
-  return text;
+/// Text inside <script>, from `from` on: "</" would end the element early (HTML 4.01 B.3.2 / the HTML
+/// standard's script data state).
+void make_script_safe(std::string& text, std::size_t from) {
+  for (std::size_t at = text.find("</", from); at != std::string::npos; at = text.find("</", at + 3)) text.replace(at, 2, "<\\/");
+}
+
+/// Appends <script{attributes}>text</script> with the text made script-safe in place.
+template <class Write>
+void append_script(std::string& out, std::string_view attributes, Write write) {
+  out += "<script";
+  out += attributes;
+  out += '>';
+  const std::size_t from = out.size();
+  write(out);
+  make_script_safe(out, from);
+  out += "</script>\n";
 }
 
 }  // namespace
 
-std::string browser_view_section(const Analysis& a) {
+void append_browser_view_section(const Analysis& a, std::string& h) {
   const auto& outputs = a.project.outputs;
   const std::size_t members = a.built.model.members.size();
   const bool wanted = outputs.browser_view.value_or(members <= OutputsSpec::browser_view_members);
@@ -121,20 +138,18 @@ std::string browser_view_section(const Analysis& a) {
     if (!outputs.browser_view)
       spdlog::info("report: no 3D view for {} members (over {}; outputs.browser_view: true adds it)", members,
                    OutputsSpec::browser_view_members);
-    return {};
+    return;
   }
-  std::string h =
-      "<h2 id=\"view\">3D view</h2>\n<p class=\"hint\">Drag to orbit, wheel to zoom, right-drag to pan; click a member "
-      "for its checks and forces.</p>\n<div class=\"view-controls\"><label>Quantity <select id=\"sf-view-quantity\">"
-      "</select></label> <label>Result <select id=\"sf-view-result\"></select></label></div>\n"
-      "<div class=\"view-row\"><div id=\"sf-view\"></div><div id=\"sf-view-panel\"><p>Click a member.</p></div></div>\n"
-      "<div id=\"sf-view-legend\" class=\"legend\"></div>\n";
-  h += "<script type=\"application/json\" id=\"sf-view-data\">" + script_safe(view_data(a)) + "</script>\n";
-  h += "<script>" + script_safe(std::string(viz::three_js_bundle())) + "</script>\n";
-  h += "<script>" + script_safe(std::string(viz::frame_view_script())) + "</script>\n";
+  h += "<h2 id=\"view\">3D view</h2>\n<p class=\"hint\">Drag to orbit, wheel to zoom, right-drag to pan; click a member "
+       "for its checks and forces.</p>\n<div class=\"view-controls\"><label>Quantity <select id=\"sf-view-quantity\">"
+       "</select></label> <label>Result <select id=\"sf-view-result\"></select></label></div>\n"
+       "<div class=\"view-row\"><div id=\"sf-view\"></div><div id=\"sf-view-panel\"><p>Click a member.</p></div></div>\n"
+       "<div id=\"sf-view-legend\" class=\"legend\"></div>\n";
+  append_script(h, " type=\"application/json\" id=\"sf-view-data\"", [&](std::string& out) { append_view_data(a, out); });
+  append_script(h, "", [](std::string& out) { out += viz::three_js_bundle(); });
+  append_script(h, "", [](std::string& out) { out += viz::frame_view_script(); });
   h += "<details class=\"licence\"><summary>The 3D view is drawn with three.js (MIT licence)</summary><pre>" +
        esc(std::string(viz::three_js_licence())) + "</pre></details>\n";
-  return h;
 }
 
 }  // namespace stepframe::report

@@ -190,3 +190,33 @@ TEST_CASE("the members table lists the 1,000 most utilised members and every fai
     CHECK_THAT(html, !Contains("most utilised and every failing one"));
   }
 }
+
+TEST_CASE("text of the project in the browser view cannot end its script early") {
+  // A case named with "</script>" in it (invented test data): inside <script> the sequence "</" would end
+  // the element (HTML 4.01 B.3.2; the HTML standard's script data state), so it is written "<\/", which
+  // JSON reads back as "</".
+  test::ScratchDir dir;
+  geometry::write_step_wireframe(dir / "beam.stp", {{{0, 0, 0}, {4, 0, 0}, {}}}, "mm");
+  const std::string project = "model: beam.stp\n"
+                              "units: {length: m, force: kN, line_load: kN/m}\n"
+                              "rules: [{where: {}, section: IPE300, material: S355}]\n"
+                              "supports: [{where: {x: 0}, fix: fixed}]\n"
+                              "cases: [{name: \"G</script><b>x\", member_loads: [{where: {}, w: [0, 0, -5]}]}]\n"
+                              "analysis: {buckling_modes: 0}\n"
+                              "checks: {stress: {}}\n";
+  RunOptions options;
+  options.out_dir = dir / "out";
+  const Results results = run_text(project, dir.path(), options);
+  INFO(results.message());
+  REQUIRE(results.analysed());
+  const std::string html = test::read_text(dir / "out" / "report.html");
+  const std::string open = "<script type=\"application/json\" id=\"sf-view-data\">";
+  const auto start = html.find(open);
+  REQUIRE(start != std::string::npos);
+  const auto body = start + open.size();
+  const std::string data = html.substr(body, html.find("</script>", body) - body);
+  CHECK_THAT(data, Contains("G<\\/script><b>x"));
+  const auto view = nlohmann::json::parse(data);  // the whole data up to the script's real end
+  REQUIRE(view["results"].size() == 1);
+  CHECK(view["results"][0]["name"] == "G</script><b>x");
+}
