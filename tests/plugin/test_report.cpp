@@ -194,7 +194,7 @@ TEST_CASE("the members table lists the 1,000 most utilised members and every fai
 TEST_CASE("text of the project in the browser view cannot end its script early") {
   // A case named with "</script>" in it (invented test data): inside <script> the sequence "</" would end
   // the element (HTML 4.01 B.3.2; the HTML standard's script data state), so it is written "<\/", which
-  // JSON reads back as "</".
+  // JSON reads back as "</" (RFC 8259, section 7: a backslash before the solidus escapes it).
   test::ScratchDir dir;
   geometry::write_step_wireframe(dir / "beam.stp", {{{0, 0, 0}, {4, 0, 0}, {}}}, "mm");
   const std::string project = "model: beam.stp\n"
