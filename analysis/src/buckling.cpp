@@ -635,7 +635,7 @@ std::vector<std::vector<BucklingMode>> buckling_modes(const FrameModel& model, c
   // results come from pass 2, or, when no element needs dividing, from solving again from here.
   const double coarse_tolerance = 10 * options.tolerance;
   Eigen::MatrixXd start;
-  std::vector<Eigen::MatrixXd> coarse_vectors(patterns.size()), coarse_blocks(patterns.size());
+  std::vector<std::optional<Eigenpairs>> pass1(patterns.size());  // each pattern's pairs (or bounds) of pass 1
   std::vector<bool> compressed(patterns.size(), false);
   for (std::size_t p = 0; p < patterns.size(); ++p) {
     report(static_cast<double>(p) / steps);
@@ -658,18 +658,16 @@ std::vector<std::vector<BucklingMode>> buckling_modes(const FrameModel& model, c
     for (std::size_t e = 0; e < model.elements.size(); ++e)
       parts[e] = std::max(parts[e], parts_needed(model, e, patterns[p], alpha_top, options));
     if (!pairs || pairs->alpha.empty()) continue;
-    coarse_blocks[p] = pairs->block;
-    if (bounded) continue;
-    coarse_vectors[p] = pairs->vectors;
-    start = pairs->block;
+    if (!bounded) start = pairs->block;
+    pass1[p] = std::move(pairs);
   }
   const std::size_t divided = static_cast<std::size_t>(std::count_if(parts.begin(), parts.end(), [](std::size_t n) { return n > 1; }));
   if (divided == 0) {
     spdlog::debug("buckling: no element needs dividing; {} pattern(s) solved on the model's own elements", patterns.size());
     for (std::size_t p = 0; p < patterns.size(); ++p) {
-      if (coarse_blocks[p].size() == 0) continue;  // not compressed, or no modes found
+      if (!pass1[p]) continue;  // not compressed, or no modes found
       const Sparse g = negative_geometric_stiffness(coarse, part_forces(model, coarse, patterns[p]), dofs);
-      if (const auto pairs = solve_pattern(own_op, g, options.modes, options.tolerance, coarse_blocks[p]))
+      if (const auto pairs = solve_pattern(own_op, g, options.modes, options.tolerance, pass1[p]->block))
         result[p] = to_modes(model, coarse, dofs, *pairs);
     }
     report(1.0);
@@ -688,9 +686,11 @@ std::vector<std::vector<BucklingMode>> buckling_modes(const FrameModel& model, c
     report(0.5 + static_cast<double>(p) / steps);
     if (!compressed[p]) continue;
     const std::vector<double> forces = part_forces(model, fine, patterns[p]);
-    const auto pairs =
-        solve_pattern(fine_op, negative_geometric_stiffness(fine, forces, fine_dofs), options.modes, options.tolerance,
-                      fine_start.size() > 0 ? fine_start : refined(model, fine, dofs, fine_dofs, coarse_vectors[p]));
+    const Eigen::MatrixXd start_p = fine_start.size() > 0 ? fine_start
+                                    : pass1[p]             ? refined(model, fine, dofs, fine_dofs, pass1[p]->vectors)
+                                                           : Eigen::MatrixXd();
+    const auto pairs = solve_pattern(fine_op, negative_geometric_stiffness(fine, forces, fine_dofs), options.modes,
+                                     options.tolerance, start_p);
     result[p] = pairs ? to_modes(model, fine, fine_dofs, *pairs) : std::vector<BucklingMode>{};
     if (pairs) fine_start = pairs->block;
   }
