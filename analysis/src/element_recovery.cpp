@@ -122,7 +122,8 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   const Vector6d d0 = ends.u.head<6>();
   LineResult result;
   result.length = L;
-  result.stations.reserve(stations);
+  const bool keep_stations = detail != LineDetail::summary;
+  if (keep_stations) result.stations.reserve(stations);
   auto station_x = [&](std::size_t k) {  // the last station exactly at L (no rounding drift)
     return k + 1 == stations ? L : L * static_cast<double>(k) / static_cast<double>(stations - 1);
   };
@@ -168,7 +169,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
 
   // Full detail: the distance of the deformed axis from the line through the deformed ends at each station,
   // in local axes as the stations are recovered, keeping the two largest (refined below).
-  const bool full = detail == LineDetail::full;
+  const bool full = detail == LineDetail::full || detail == LineDetail::summary;
   const Eigen::Vector3d& a = start_displacement;
   const Eigen::Vector3d chord =
       full ? Eigen::Vector3d(Eigen::Vector3d(L, 0, 0) + displacement_local(L) - a) : Eigen::Vector3d::Zero();
@@ -182,27 +183,29 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
 
   for (std::size_t k = 0; k < stations; ++k) {
     const double x = station_x(k);
-    Station& st = result.stations.emplace_back();
-    st.x = x;
-    st.position = s.origin + x * s.axes.row(0).transpose();
     const Vector6d state = state_local(x);
     if (full) {
       const double distance = offset_of(x, state.head<3>());
       if (distance > heights[0]) peaks[1] = peaks[0], heights[1] = heights[0], peaks[0] = k, heights[0] = distance;
       else if (distance > heights[1]) peaks[1] = k, heights[1] = distance;
     }
-    st.forces = forces_with(x, state.head<3>());
+    const Vector6d forces = forces_with(x, state.head<3>());
+    const SectionStress stress = section_stress(*s.section, forces);
+    if (k == 0) result.start_forces = forces;
+    if (k + 1 == stations) result.end_forces = forces;
+    result.max_abs_stress = std::max(result.max_abs_stress, stress.max_abs_normal);
+    if (stress.von_mises > result.max_von_mises) result.max_von_mises = stress.von_mises, result.max_von_mises_at = x;
+    if (!keep_stations) continue;
+    Station& st = result.stations.emplace_back();
+    st.x = x;
+    st.position = s.origin + x * s.axes.row(0).transpose();
+    st.forces = forces;
     st.displacement = s.axes.transpose() * state.head<3>();
     st.rotation = s.axes.transpose() * state.tail<3>();
-    const SectionStress stress = section_stress(*s.section, st.forces);
     st.max_abs_stress = stress.max_abs_normal;
     st.max_shear_stress = stress.shear;
     st.von_mises = stress.von_mises;
-    result.max_abs_stress = std::max(result.max_abs_stress, st.max_abs_stress);
-    if (st.von_mises > result.max_von_mises) result.max_von_mises = st.von_mises, result.max_von_mises_at = x;
   }
-  result.start_forces = result.stations.front().forces;
-  result.end_forces = result.stations.back().forces;
   if (!full) return result;  // stations, or forces in second order
 
   // Candidate points of the extremes: ends, load breakpoints, and the zero
@@ -253,13 +256,13 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   // two, so that a second hump of nearly the same height is not missed).
   auto offset = [&](double x) { return offset_of(x, displacement_local(x)); };
   result.max_local_deflection = heights[0];
-  result.max_local_deflection_at = result.stations[peaks[0]].x;
+  result.max_local_deflection_at = station_x(peaks[0]);
   const double step = L / static_cast<double>(stations - 1);
   for (int which = 0; which < 2; ++which) {
     if (!(heights[static_cast<std::size_t>(which)] > 0)) continue;
     // A second station next to the first is on the same hump: the first bracket covers it.
     if (which == 1 && (peaks[1] + 1 == peaks[0] || peaks[0] + 1 == peaks[1])) continue;
-    const double centre = result.stations[peaks[static_cast<std::size_t>(which)]].x;
+    const double centre = station_x(peaks[static_cast<std::size_t>(which)]);
     const double lo = std::max(0.0, centre - step), hi = std::min(L, centre + step);
     // x to 2^-23 of itself: at a smooth maximum the value is then within about 1e-14 of the peak's.
     std::uintmax_t iterations = 60;

@@ -88,9 +88,11 @@ LineResult member_line(const FrameModel& model, const LoadResult& result, const 
                        std::size_t stations) {
   // One element (most members): its line is the member's, with no copy of its stations.
   if (member.elements.size() == 1) return element_line(model, result, member.elements.front(), stations, detail);
+  // Joining needs the elements' stations (the member's chord), so a summary is joined from full parts.
+  const LineDetail part_detail = detail == LineDetail::summary ? LineDetail::full : detail;
   std::vector<LineResult> parts;
   parts.reserve(member.elements.size());
-  for (std::size_t e : member.elements) parts.push_back(element_line(model, result, e, stations, detail));
+  for (std::size_t e : member.elements) parts.push_back(element_line(model, result, e, stations, part_detail));
   return join_elements(parts);
 }
 

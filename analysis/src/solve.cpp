@@ -86,7 +86,8 @@ Eigen::VectorXd reactions_of(const FrameModel& model, const Sparse& k_full, cons
 std::vector<LineSummary> summarise_members(const FrameModel& model, const std::vector<Member>& chains,
                                            const LoadResult& result) {
   std::vector<LineSummary> summaries(chains.size());
-  parallel_for(chains.size(), [&](std::size_t m) { summaries[m] = member_line(model, result, chains[m]); });
+  parallel_for(chains.size(),
+               [&](std::size_t m) { summaries[m] = member_line(model, result, chains[m], LineDetail::summary); });
   return summaries;
 }
 

@@ -1,7 +1,8 @@
 // The element constants a solve shares between its load results (geometry,
 // properties, cantilever flexibility) give the recovery the same numbers, bit
-// for bit, as working them out for each result: a consistency test of the
-// shortcut against the plain path, no outside reference.
+// for bit, as working them out for each result; a summary (no stations kept)
+// gives the full line's summary fields bit for bit: consistency tests of the
+// shortcuts against the plain path, no outside reference.
 
 #include "frame_fixtures.hpp"
 #include "stepframe/analysis/element_constants.hpp"
@@ -94,5 +95,61 @@ TEST_CASE("a solve's shared element constants recover every element as working t
     LoadResult plain = results.front();
     plain.element_constants.reset();
     same_line(element_line(model, r, 2, 5, LineDetail::full), element_line(model, plain, 2, 5, LineDetail::full));
+  }
+}
+
+namespace {
+
+// Every LineSummary field of a summary equals the full line's, bit for bit.
+void same_summary(const LineSummary& summary, const LineResult& full) {
+  CHECK(summary.length == full.length);
+  CHECK(summary.start_forces == full.start_forces);
+  CHECK(summary.end_forces == full.end_forces);
+  CHECK(summary.max_abs_stress == full.max_abs_stress);
+  CHECK(summary.max_von_mises == full.max_von_mises);
+  CHECK(summary.max_von_mises_at == full.max_von_mises_at);
+  CHECK(summary.max_local_deflection == full.max_local_deflection);
+  CHECK(summary.max_local_deflection_at == full.max_local_deflection_at);
+  for (std::size_t c = 0; c < 6; ++c) {
+    CHECK(summary.extremes[c].max == full.extremes[c].max);
+    CHECK(summary.extremes[c].x_max == full.extremes[c].x_max);
+    CHECK(summary.extremes[c].min == full.extremes[c].min);
+    CHECK(summary.extremes[c].x_min == full.extremes[c].x_min);
+  }
+}
+
+}  // namespace
+
+TEST_CASE("a summary is the full line without its stations, in first and second order", "[analysis][recovery]") {
+  for (const bool second_order : {false, true}) {
+    INFO((second_order ? "second order" : "first order"));
+    FrameModel model = braced_portal();
+    model.settings.second_order = second_order;
+    // The column and the beam one member of two elements, the rest members of their own.
+    model.members = {Member{{0, 1}}, Member{{2}}, Member{{3}}};
+    const std::vector<LoadResult> results = solve(model);
+    REQUIRE(results.size() == 3);
+    CHECK(results.back().second_order == second_order);
+    for (const LoadResult& r : results) {
+      INFO(r.name);
+      for (std::size_t e = 0; e < model.elements.size(); ++e) {
+        INFO("element " << e);
+        const LineResult summary = element_line(model, r, e, 11, LineDetail::summary);
+        const LineResult full = element_line(model, r, e, 11, LineDetail::full);
+        CHECK(summary.stations.empty());
+        REQUIRE(full.stations.size() == 11);
+        same_summary(summary, full);
+        CHECK(full.max_local_deflection > 0);
+      }
+      // What the solve keeps for each member is the full member line's summary.
+      const auto chains = member_chains(model);
+      REQUIRE(r.members.size() == chains.size());
+      for (std::size_t m = 0; m < chains.size(); ++m) {
+        INFO("member " << m);
+        same_summary(r.members[m], member_line(model, r, chains[m], LineDetail::full));
+        same_summary(member_line(model, r, chains[m], LineDetail::summary),
+                     member_line(model, r, chains[m], LineDetail::full));
+      }
+    }
   }
 }

@@ -66,6 +66,8 @@ Vector12d element_end_actions(const ElementState& state);
 /// How much of a line to recover.
 enum class LineDetail {
   full,      ///< stations, exact diagram extremes, stresses and local deflection (the summary)
+  summary,   ///< what full gives except the stations themselves (none are kept): the
+             ///< LineSummary every member of every result keeps (solve.hpp), same values
   stations,  ///< the stations only (forces, displacements, stresses at each; end forces and
              ///< length): what pictures and VTK files read. The extremes, the
              ///< largest stresses between stations and the local deflection are left at zero.

@@ -26,7 +26,9 @@ LineResult element_line(const FrameModel& model, const LoadResult& result, std::
                         std::size_t stations = 0, LineDetail detail = LineDetail::full);
 
 /// The member's results: its elements' lines joined (join_elements), each
-/// element with `stations` stations (0: result.stations).
+/// element with `stations` stations (0: result.stations). A summary of a
+/// member of several elements is joined from their full lines (the chord's
+/// distance needs their stations) and so keeps the stations.
 LineResult member_line(const FrameModel& model, const LoadResult& result, const Member& member,
                        LineDetail detail = LineDetail::full, std::size_t stations = 0);
 
