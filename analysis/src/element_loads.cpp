@@ -100,7 +100,10 @@ std::vector<double> load_breakpoints(const LocalLoads& loads, double length) {
   return xs;
 }
 
-Vector6d internal_forces_at(const Vector6d& f0, const LocalLoads& loads, double x) {
+namespace {
+
+// The internal forces at x from the loads' integrals Q1(x), Q2(x) (internal_forces_at).
+Vector6d forces_from(const Vector6d& f0, const Eigen::Vector3d& q1, const Eigen::Vector3d& q2, double x) {
   // Equilibrium of the free body [0, x] (statics, common practice). It carries
   // the start-node action (F0, M0), the loads on [0, x) and at the cut the
   // action (R, M) of the part beyond. Forces: F0 + Q1(x) + R = 0. Moments about
@@ -110,7 +113,6 @@ Vector6d internal_forces_at(const Vector6d& f0, const LocalLoads& loads, double 
   const Eigen::Vector3d ex = Eigen::Vector3d::UnitX();
   const Eigen::Vector3d force0 = f0.head<3>();
   const Eigen::Vector3d moment0 = f0.tail<3>();
-  const auto [q1, q2] = load_integrals<2>(loads, 1, x);
   const Eigen::Vector3d r = -force0 - q1;
   const Eigen::Vector3d m = -moment0 + x * ex.cross(force0) + ex.cross(q2);
   Vector6d forces;
@@ -118,15 +120,15 @@ Vector6d internal_forces_at(const Vector6d& f0, const LocalLoads& loads, double 
   return forces;
 }
 
-Vector6d element_state_at(const ElementProperties& p, const Vector6d& d0, const Vector6d& f0,
-                          const LocalLoads& loads, double x) {
-  // Moments of the free body [0, x] (internal_forces_at):
+// The state at x from the loads' integrals Q2(x), Q3(x), Q4(x) (element_state_at).
+Vector6d state_from(const ElementProperties& p, const Vector6d& d0, const Vector6d& f0, const Eigen::Vector3d& q2,
+                    const Eigen::Vector3d& q3, const Eigen::Vector3d& q4, double x) {
+  // Moments of the free body [0, x] (forces_from):
   //   Mz(x) = -m0z + x f0y + Q2y(x),   My(x) = -m0y - x f0z - Q2z(x),
   //   Vy(x) = -f0y - Q1y(x),           Vz(x) = -f0z - Q1z(x),   N(x) = -f0x - Q1x(x).
   // Integrated once for rotations and twice for deflections (the Q_j are the
   // load_integral functions), plus the shear strain V/(G As) for Timoshenko.
   const double fx = f0(0), fy = f0(1), fz = f0(2), mx = f0(3), my = f0(4), mz = f0(5);
-  const auto [q2, q3, q4] = load_integrals<3>(loads, 2, x);
   const double x2 = x * x, x3 = x2 * x;
   const double eiz = p.E * p.Iz, eiy = p.E * p.Iy;
   Vector6d d;
@@ -139,6 +141,27 @@ Vector6d element_state_at(const ElementProperties& p, const Vector6d& d0, const 
   if (p.Asy > 0) d(1) += (-fy * x - q2.y()) / (p.G * p.Asy);
   if (p.Asz > 0) d(2) += (-fz * x - q2.z()) / (p.G * p.Asz);
   return d;
+}
+
+}  // namespace
+
+Vector6d internal_forces_at(const Vector6d& f0, const LocalLoads& loads, double x) {
+  const auto [q1, q2] = load_integrals<2>(loads, 1, x);
+  return forces_from(f0, q1, q2, x);
+}
+
+Vector6d element_state_at(const ElementProperties& p, const Vector6d& d0, const Vector6d& f0,
+                          const LocalLoads& loads, double x) {
+  const auto [q2, q3, q4] = load_integrals<3>(loads, 2, x);
+  return state_from(p, d0, f0, q2, q3, q4, x);
+}
+
+ElementPoint element_point_at(const ElementProperties& p, const Vector6d& d0, const Vector6d& f0,
+                              const LocalLoads& loads, double x) {
+  // Q1 to Q4 in one pass: each Q_j is the same running product of Macaulay brackets, summed over the
+  // loads in the same order, as the two functions' own passes give it.
+  const auto [q1, q2, q3, q4] = load_integrals<4>(loads, 1, x);
+  return {state_from(p, d0, f0, q2, q3, q4, x), forces_from(f0, q1, q2, x)};
 }
 
 Vector12d end_actions_from_start(const ElementProperties& p, const Vector6d& f0, const LocalLoads& loads) {

@@ -151,9 +151,9 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   };
   auto displacement_local = [&](double x) -> Eigen::Vector3d { return state_local(x).head<3>(); };
   const Eigen::Vector3d start_displacement = displacement_local(0);
-  // The forces at x, where the axis has the displacement u (used in second order only).
-  auto forces_with = [&](double x, const Eigen::Vector3d& u) -> Vector6d {
-    Vector6d f = internal_forces_at(f0, s.loads, x);
+  // The forces at x, from the first-order forces there (internal_forces_at), where the axis has the
+  // displacement u (used in second order only).
+  auto with_p_delta = [&](Vector6d f, const Eigen::Vector3d& u) -> Vector6d {
     if (s.second_order) {
       // Moments about the displaced cut point: (x e_x + dd) x F0 adds dd x F0,
       // dd = lateral displacement of the axis from the start (P-delta).
@@ -164,7 +164,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
     return f;
   };
   auto forces_at = [&](double x) -> Vector6d {
-    return forces_with(x, s.second_order ? displacement_local(x) : start_displacement);
+    return with_p_delta(internal_forces_at(f0, s.loads, x), s.second_order ? displacement_local(x) : start_displacement);
   };
 
   // Full detail: the distance of the deformed axis from the line through the deformed ends at each station,
@@ -183,13 +183,14 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
 
   for (std::size_t k = 0; k < stations; ++k) {
     const double x = station_x(k);
-    const Vector6d state = state_local(x);
+    const ElementPoint point = element_point_at(s.properties, d0, f0, s.loads, x);  // one pass over the loads
+    const Vector6d state = point.state + (x / L) * closure;  // state_local(x)
     if (full) {
       const double distance = offset_of(x, state.head<3>());
       if (distance > heights[0]) peaks[1] = peaks[0], heights[1] = heights[0], peaks[0] = k, heights[0] = distance;
       else if (distance > heights[1]) peaks[1] = k, heights[1] = distance;
     }
-    const Vector6d forces = forces_with(x, state.head<3>());
+    const Vector6d forces = with_p_delta(point.forces, state.head<3>());
     const SectionStress stress = section_stress(*s.section, forces);
     if (k == 0) result.start_forces = forces;
     if (k + 1 == stations) result.end_forces = forces;

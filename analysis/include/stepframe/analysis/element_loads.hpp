@@ -58,6 +58,17 @@ Vector6d element_state_at(const ElementProperties& p, const Vector6d& d0, const 
 /// the start actions f0 and the loads: statics of the free body [0, x].
 Vector6d internal_forces_at(const Vector6d& f0, const LocalLoads& loads, double x);
 
+/// The state and the internal forces at one point of an element.
+struct ElementPoint {
+  Vector6d state;   ///< element_state_at
+  Vector6d forces;  ///< internal_forces_at
+};
+
+/// element_state_at and internal_forces_at at x with one pass over the loads
+/// (the values are theirs, bit for bit).
+ElementPoint element_point_at(const ElementProperties& p, const Vector6d& d0, const Vector6d& f0,
+                              const LocalLoads& loads, double x);
+
 /// Fixed-end actions: the forces the two (fully fixed) nodes exert on the
 /// element under the loads, local axes, start then end. Exact for any load
 /// here: the start actions make the cantilever's end state vanish (the
