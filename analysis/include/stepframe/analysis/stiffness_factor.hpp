@@ -21,10 +21,9 @@ inline constexpr double pivot_tolerance = 1e-9;
 
 /// Floating-point operations (CHOLMOD's count) above which a factorisation
 /// may widen OpenBLAS to the threads its caller offers: below it the
-/// supernodes are too small for a second thread to pay. Measured on the
-/// 10,000-member bench frame (8.3e9 flops), 14 alternating pairs of runs:
-/// factorisation 0.62 -> 0.55 s (medians), faster in 10 of the 14 pairs.
-inline constexpr double wide_factorisation_flops = 4e9;
+/// supernodes are too small for a second thread to pay (measured: the
+/// 10,000-member bench frame, 7.9e9 flops, gained nothing).
+inline constexpr double wide_factorisation_flops = 2e10;
 
 /// Factorises the free-free stiffness once (CHOLMOD supernodal L L^T, ordered
 /// by CHOLMOD's nested dissection (METIS separators) of the graph of the
