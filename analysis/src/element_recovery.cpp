@@ -145,9 +145,10 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   // linearly so the deformed axis meets both nodes.
   const Vector6d closure = ends.u.tail<6>() - element_state_at(s.properties, d0, f0, s.loads, L);
 
-  // (u, v, w, rx, ry, rz) at x, local axes.
+  // (u, v, w, rx, ry, rz) at x, local axes, from the beam equations' state there.
+  auto closed = [&](const Vector6d& state, double x) -> Vector6d { return state + (x / L) * closure; };
   auto state_local = [&](double x) -> Vector6d {
-    return element_state_at(s.properties, d0, f0, s.loads, x) + (x / L) * closure;
+    return closed(element_state_at(s.properties, d0, f0, s.loads, x), x);
   };
   auto displacement_local = [&](double x) -> Eigen::Vector3d { return state_local(x).head<3>(); };
   const Eigen::Vector3d start_displacement = displacement_local(0);
@@ -184,7 +185,7 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   for (std::size_t k = 0; k < stations; ++k) {
     const double x = station_x(k);
     const ElementPoint point = element_point_at(s.properties, d0, f0, s.loads, x);  // one pass over the loads
-    const Vector6d state = point.state + (x / L) * closure;  // state_local(x)
+    const Vector6d state = closed(point.state, x);
     if (full) {
       const double distance = offset_of(x, state.head<3>());
       if (distance > heights[0]) peaks[1] = peaks[0], heights[1] = heights[0], peaks[0] = k, heights[0] = distance;

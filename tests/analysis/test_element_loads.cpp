@@ -78,24 +78,39 @@ TEST_CASE("a condensed release leaves a zero end action and keeps equilibrium", 
   CHECK(std::abs(u.fixed_end(4)) == Approx(6e3 * 16.0 / 8).epsilon(1e-12));
 }
 
-TEST_CASE("fixed-end actions from a flexibility worked out once are the same numbers, bit for bit",
-          "[analysis][element]") {
-  // The recovery works each element's cantilever flexibility out once for every load result.
+namespace {
+
+// The test section with shear areas (so that Timoshenko terms take part).
+Section section_with_shear_areas() {
   Section s = test::test_section();
   s.Avz = 2.5e-3;
   s.Avy = 1.5e-3;
+  return s;
+}
+
+// Loads of every kind on an element of length 4.3 m: uniform, a partial trapezoid, a point force
+// inside, a point force at the start with a partial load to the end, and none.
+std::vector<LocalLoads> load_kinds() {
+  return {
+      {uniform_local_load(4.3, V(1e3, -2e3, -3e3))},
+      {{false, 0.7, 3.1, V(0, 1e3, -2e3), V(5e2, 4e3, -8e3)}},
+      {{true, 1.9, 1.9, V(-4e3, 2e3, -6e4), V::Zero()}},
+      {{true, 0.0, 0.0, V(0, 0, -1e4), V::Zero()}, {false, 2.0, 4.3, V(0, 0, -3e3), V(0, 0, -1e3)}},
+      {},
+  };
+}
+
+}  // namespace
+
+TEST_CASE("fixed-end actions from a flexibility worked out once are the same numbers, bit for bit",
+          "[analysis][element]") {
+  // The recovery works each element's cantilever flexibility out once for every load result.
+  const Section s = section_with_shear_areas();
   for (bool shear : {false, true}) {
     INFO("shear deformation " << shear);
     const ElementProperties p = element_properties(s, test::test_steel(), 4.3, shear);
     const CantileverFlexibility flexibility = cantilever_flexibility(p);
-    const std::vector<LocalLoads> cases{
-        {uniform_local_load(p.length, V(1e3, -2e3, -3e3))},
-        {{false, 0.7, 3.1, V(0, 1e3, -2e3), V(5e2, 4e3, -8e3)}},
-        {{true, 1.9, 1.9, V(-4e3, 2e3, -6e4), V::Zero()}},
-        {{true, 0.0, 0.0, V(0, 0, -1e4), V::Zero()}, {false, 2.0, 4.3, V(0, 0, -3e3), V(0, 0, -1e3)}},
-        {},
-    };
-    for (const LocalLoads& loads : cases) {
+    for (const LocalLoads& loads : load_kinds()) {
       const Vector12d once = fixed_end_actions(p, loads, flexibility), afresh = fixed_end_actions(p, loads);
       CHECK(once == afresh);  // operator== compares every entry exactly
       if (!loads.empty()) CHECK(afresh.norm() > 0);
@@ -106,21 +121,13 @@ TEST_CASE("fixed-end actions from a flexibility worked out once are the same num
 TEST_CASE("the state and forces at a point in one pass are the two functions' own, bit for bit",
           "[analysis][element]") {
   // The recovery evaluates both at every station with one pass over the loads (element_point_at).
-  Section s = test::test_section();
-  s.Avz = 2.5e-3;
-  s.Avy = 1.5e-3;
+  const Section s = section_with_shear_areas();
   for (bool shear : {false, true}) {
     INFO("shear deformation " << shear);
     const ElementProperties p = element_properties(s, test::test_steel(), 4.3, shear);
     const Vector6d d0 = (Vector6d() << 1e-3, -2e-3, 3e-4, 1e-4, -5e-4, 2e-4).finished();
     const Vector6d f0 = (Vector6d() << -2e5, 3e4, -1e4, 2e2, 4e4, -3e4).finished();
-    const std::vector<LocalLoads> cases{
-        {uniform_local_load(p.length, V(1e3, -2e3, -3e3))},
-        {{false, 0.7, 3.1, V(0, 1e3, -2e3), V(5e2, 4e3, -8e3)}},
-        {{true, 1.9, 1.9, V(-4e3, 2e3, -6e4), V::Zero()}},
-        {{true, 0.0, 0.0, V(0, 0, -1e4), V::Zero()}, {false, 2.0, 4.3, V(0, 0, -3e3), V(0, 0, -1e3)}},
-        {},
-    };
+    const std::vector<LocalLoads> cases = load_kinds();
     for (std::size_t c = 0; c < cases.size(); ++c)
       for (double x : {0.0, 0.3, 0.7, 1.9, 2.0, 2.5, 3.1, 4.3}) {
         INFO("loads " << c << ", x = " << x);
