@@ -4,6 +4,7 @@
 
 #include <Eigen/Cholesky>
 #include <algorithm>
+#include <array>
 #include <cmath>
 #include <Eigen/Eigenvalues>
 
@@ -89,15 +90,27 @@ CondensedElement condense_releases(const Matrix12d& k, const Vector12d& fixed_en
 
 Vector12d element_end_displacements(const Matrix12d& k, const Vector12d& fixed_end, const EndReleases& releases,
                                     const Vector12d& node_displacements) {
+  if (!any_release(releases)) return node_displacements;
+  // At most 12 entries each: on the stack (this runs for every released element of every recovery).
+  using Small = Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, 0, 12, 12>;
+  using SmallVector = Eigen::Matrix<double, Eigen::Dynamic, 1, 0, 12, 1>;
+  std::array<int, 12> r{}, c{};
+  Eigen::Index nr = 0, nc = 0;
+  for (int i = 0; i < 12; ++i) {
+    if (releases[static_cast<std::size_t>(i / 6)][static_cast<std::size_t>(i % 6)]) r[static_cast<std::size_t>(nr++)] = i;
+    else c[static_cast<std::size_t>(nc++)] = i;
+  }
+  Small krr(nr, nr), krc(nr, nc);
+  SmallVector uc(nc), fr(nr);
+  for (Eigen::Index i = 0; i < nr; ++i) {
+    for (Eigen::Index j = 0; j < nr; ++j) krr(i, j) = k(r[static_cast<std::size_t>(i)], r[static_cast<std::size_t>(j)]);
+    for (Eigen::Index j = 0; j < nc; ++j) krc(i, j) = k(r[static_cast<std::size_t>(i)], c[static_cast<std::size_t>(j)]);
+    fr(i) = fixed_end(r[static_cast<std::size_t>(i)]);
+  }
+  for (Eigen::Index j = 0; j < nc; ++j) uc(j) = node_displacements(c[static_cast<std::size_t>(j)]);
+  const SmallVector ur = -krr.ldlt().solve(krc * uc + fr);
   Vector12d u = node_displacements;
-  const std::vector<int> r = released_dofs(releases);
-  if (r.empty()) return u;
-  const std::vector<int> c = complement(r);
-  Eigen::VectorXd uc(static_cast<Eigen::Index>(c.size())), fr(static_cast<Eigen::Index>(r.size()));
-  for (std::size_t i = 0; i < c.size(); ++i) uc(static_cast<Eigen::Index>(i)) = node_displacements(c[i]);
-  for (std::size_t i = 0; i < r.size(); ++i) fr(static_cast<Eigen::Index>(i)) = fixed_end(r[i]);
-  const Eigen::VectorXd ur = -pick(k, r, r).ldlt().solve(pick(k, r, c) * uc + fr);
-  for (std::size_t i = 0; i < r.size(); ++i) u(r[i]) = ur(static_cast<Eigen::Index>(i));
+  for (Eigen::Index i = 0; i < nr; ++i) u(r[static_cast<std::size_t>(i)]) = ur(i);
   return u;
 }
 

@@ -1,7 +1,7 @@
 // The element's load functions and stiffness agree with each other: the
 // stiffness is the inverse of the cantilever flexibility the load functions
-// integrate (Euler-Bernoulli and Timoshenko alike), and fixed-end actions
-// superpose (linear elasticity; common practice).
+// integrate (Euler-Bernoulli and Timoshenko alike), fixed-end actions
+// superpose (linear elasticity; common practice), and released end actions vanish.
 
 #include "frame_fixtures.hpp"
 #include "stepframe/analysis/element_loads.hpp"
@@ -101,6 +101,33 @@ std::vector<LocalLoads> load_kinds() {
 }
 
 }  // namespace
+
+TEST_CASE("an element's own end displacements leave its released end actions zero and keep the rest",
+          "[analysis][element]") {
+  // k u + fixed_end vanishes at the released DOFs; the retained ones keep the nodes' values (the
+  // definition in element_releases.hpp; a consistency test).
+  const ElementProperties p = element_properties(test::test_section(), test::test_steel(), 4.0);
+  const Matrix12d k = local_stiffness(p);
+  const LocalLoads loads{{false, 0.5, 3.0, V(0, 0, -5e3), V(0, 0, -1e3)}, {true, 2.0, 2.0, V(0, 3e3, 0), V::Zero()}};
+  const Vector12d fixed_end = fixed_end_actions(p, loads);
+  Vector12d nodes;
+  nodes << 1e-3, -2e-3, 4e-3, 1e-3, -3e-3, 2e-3, 2e-3, 1e-3, -1e-3, -2e-3, 1e-3, 3e-3;
+  EndReleases pinned_end{}, pinned_both{}, torsion_and_end{};
+  pinned_end[1][ry] = pinned_end[1][rz] = true;
+  pinned_both[0][ry] = pinned_both[0][rz] = pinned_both[1][ry] = pinned_both[1][rz] = true;
+  torsion_and_end[0][rx] = torsion_and_end[1][rz] = true;
+  for (const EndReleases& releases : {EndReleases{}, pinned_end, pinned_both, torsion_and_end}) {
+    const Vector12d u = element_end_displacements(k, fixed_end, releases, nodes);
+    const Vector12d actions = k * u + fixed_end;
+    for (int i = 0; i < 12; ++i) {
+      INFO("DOF " << i);
+      if (releases[static_cast<std::size_t>(i / 6)][static_cast<std::size_t>(i % 6)])
+        CHECK(std::abs(actions(i)) <= 1e-9 * k.norm() * nodes.norm());
+      else
+        CHECK(u(i) == nodes(i));
+    }
+  }
+}
 
 TEST_CASE("fixed-end actions from a flexibility worked out once are the same numbers, bit for bit",
           "[analysis][element]") {
