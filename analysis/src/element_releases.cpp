@@ -8,29 +8,46 @@
 #include <cmath>
 #include <Eigen/Eigenvalues>
 
-#include <vector>
 
 namespace stepframe::analysis {
 namespace {
 
-std::vector<int> released_dofs(const EndReleases& r) {
-  std::vector<int> out;
+// Some of an element's DOFs (0-11, start then end), in order, on the stack: the recovery asks for them
+// for every released element of every result.
+class DofList {
+ public:
+  void push_back(int dof) { dofs_[size_++] = dof; }
+  std::size_t size() const { return size_; }
+  bool empty() const { return size_ == 0; }
+  int operator[](std::size_t i) const { return dofs_[i]; }
+  const int* begin() const { return dofs_.data(); }
+  const int* end() const { return dofs_.data() + size_; }
+
+ private:
+  std::array<int, 12> dofs_{};
+  std::size_t size_ = 0;
+};
+
+DofList released_dofs(const EndReleases& r) {
+  DofList out;
   for (int e = 0; e < 2; ++e)
     for (int d = 0; d < 6; ++d)
       if (r[static_cast<std::size_t>(e)][static_cast<std::size_t>(d)]) out.push_back(6 * e + d);
   return out;
 }
 
-Eigen::MatrixXd pick(const Matrix12d& k, const std::vector<int>& rows, const std::vector<int>& cols) {
-  Eigen::MatrixXd out(static_cast<Eigen::Index>(rows.size()), static_cast<Eigen::Index>(cols.size()));
+// The rows and columns of k that the lists name, as a matrix of type M.
+template <class M = Eigen::MatrixXd>
+M pick(const Matrix12d& k, const DofList& rows, const DofList& cols) {
+  M out(static_cast<Eigen::Index>(rows.size()), static_cast<Eigen::Index>(cols.size()));
   for (std::size_t i = 0; i < rows.size(); ++i)
     for (std::size_t j = 0; j < cols.size(); ++j)
       out(static_cast<Eigen::Index>(i), static_cast<Eigen::Index>(j)) = k(rows[i], cols[j]);
   return out;
 }
 
-std::vector<int> complement(const std::vector<int>& r) {
-  std::vector<int> c;
+DofList complement(const DofList& r) {
+  DofList c;
   for (int i = 0; i < 12; ++i)
     if (std::find(r.begin(), r.end(), i) == r.end()) c.push_back(i);
   return c;
@@ -46,7 +63,7 @@ bool any_release(const EndReleases& releases) {
 }
 
 std::optional<std::string> release_mechanism(const EndReleases& releases) {
-  const std::vector<int> r = released_dofs(releases);
+  const DofList r = released_dofs(releases);
   if (r.empty()) return std::nullopt;
   // A unit element (all properties 1, length 1) shares the singular pattern
   // of every real one: k_rr is singular exactly when the released directions
@@ -69,9 +86,9 @@ std::optional<std::string> release_mechanism(const EndReleases& releases) {
 
 CondensedElement condense_releases(const Matrix12d& k, const Vector12d& fixed_end, const EndReleases& releases) {
   CondensedElement out{k, fixed_end};
-  const std::vector<int> r = released_dofs(releases);
+  const DofList r = released_dofs(releases);
   if (r.empty()) return out;
-  const std::vector<int> c = complement(r);
+  const DofList c = complement(r);
   const Eigen::LDLT<Eigen::MatrixXd> krr(pick(k, r, r));
   const Eigen::MatrixXd kcr = pick(k, c, r);
   Eigen::VectorXd fr(static_cast<Eigen::Index>(r.size()));
@@ -90,27 +107,18 @@ CondensedElement condense_releases(const Matrix12d& k, const Vector12d& fixed_en
 
 Vector12d element_end_displacements(const Matrix12d& k, const Vector12d& fixed_end, const EndReleases& releases,
                                     const Vector12d& node_displacements) {
-  if (!any_release(releases)) return node_displacements;
-  // At most 12 entries each: on the stack (this runs for every released element of every recovery).
+  Vector12d u = node_displacements;
+  const DofList r = released_dofs(releases);
+  if (r.empty()) return u;
+  const DofList c = complement(r);
+  // At most 12 x 12: on the stack (this runs for every released element of every recovery).
   using Small = Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, 0, 12, 12>;
   using SmallVector = Eigen::Matrix<double, Eigen::Dynamic, 1, 0, 12, 1>;
-  std::array<int, 12> r{}, c{};
-  Eigen::Index nr = 0, nc = 0;
-  for (int i = 0; i < 12; ++i) {
-    if (releases[static_cast<std::size_t>(i / 6)][static_cast<std::size_t>(i % 6)]) r[static_cast<std::size_t>(nr++)] = i;
-    else c[static_cast<std::size_t>(nc++)] = i;
-  }
-  Small krr(nr, nr), krc(nr, nc);
-  SmallVector uc(nc), fr(nr);
-  for (Eigen::Index i = 0; i < nr; ++i) {
-    for (Eigen::Index j = 0; j < nr; ++j) krr(i, j) = k(r[static_cast<std::size_t>(i)], r[static_cast<std::size_t>(j)]);
-    for (Eigen::Index j = 0; j < nc; ++j) krc(i, j) = k(r[static_cast<std::size_t>(i)], c[static_cast<std::size_t>(j)]);
-    fr(i) = fixed_end(r[static_cast<std::size_t>(i)]);
-  }
-  for (Eigen::Index j = 0; j < nc; ++j) uc(j) = node_displacements(c[static_cast<std::size_t>(j)]);
-  const SmallVector ur = -krr.ldlt().solve(krc * uc + fr);
-  Vector12d u = node_displacements;
-  for (Eigen::Index i = 0; i < nr; ++i) u(r[static_cast<std::size_t>(i)]) = ur(i);
+  SmallVector uc(static_cast<Eigen::Index>(c.size())), fr(static_cast<Eigen::Index>(r.size()));
+  for (std::size_t i = 0; i < c.size(); ++i) uc(static_cast<Eigen::Index>(i)) = node_displacements(c[i]);
+  for (std::size_t i = 0; i < r.size(); ++i) fr(static_cast<Eigen::Index>(i)) = fixed_end(r[i]);
+  const SmallVector ur = -pick<Small>(k, r, r).ldlt().solve(pick<Small>(k, r, c) * uc + fr);
+  for (std::size_t i = 0; i < r.size(); ++i) u(r[i]) = ur(static_cast<Eigen::Index>(i));
   return u;
 }
 
