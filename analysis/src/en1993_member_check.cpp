@@ -6,6 +6,7 @@
 #include "stepframe/analysis/parallel.hpp"
 #include "stepframe/analysis/worst_checks.hpp"
 
+#include <fmt/compile.h>
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -183,15 +184,16 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     }
   }
   if (class_station && wanted("5.5 classification", worst_class, 1.0))
-    out.push_back(result("5.5 classification",
-                         fmt::format("EN 1993-1-1 5.5, Table 5.2: class {} ({}); class 4 needs effective properties "
-                                     "(EN 1993-1-5), not covered",
-                                     class_worst.section_class, class_worst.governing_part),
-                         class_station->x, worst_class, 1.0));
+    out.push_back(
+        result("5.5 classification",
+               fmt::format(FMT_COMPILE("EN 1993-1-1 5.5, Table 5.2: class {} ({}); class 4 needs effective properties "
+                                       "(EN 1993-1-5), not covered"),
+                           class_worst.section_class, class_worst.governing_part),
+               class_station->x, worst_class, 1.0));
   if (wanted("6.2 cross-section", worst_section, 1.0)) {
     const auto& w = section_worst.at;
     CheckResult section_check = result("6.2 cross-section",
-                                       fmt::format("EN 1993-1-1 {}, with 6.2.8 shear; class {} ({})",
+                                       fmt::format(FMT_COMPILE("EN 1993-1-1 {}, with 6.2.8 shear; class {} ({})"),
                                                    section_worst.plastic ? "6.2.9.1 (6.36)-(6.41), plastic N + My + Mz"
                                                                          : "6.2.1(7) eq. (6.2), N + My + Mz",
                                                    section_worst.cls.section_class, section_worst.cls.governing_part),
@@ -232,11 +234,12 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
 
   if (const double NbRd = std::min(chi_y, chi_z) * NRk / f.gamma_M1;  // (6.47)
       NEd > 0 && wanted("6.3.1 flexural buckling", NEd, NbRd)) {
-    CheckResult r = result("6.3.1 flexural buckling",
-                           fmt::format("EN 1993-1-1 6.3.1, curves {}/{} (y/z), chi_y = {:.3f}, chi_z = {:.3f}, "
-                                       "Lcr = {:.3g}/{:.3g} m",
-                                       curve_name(curves.y), curve_name(curves.z), chi_y, chi_z, Ly, Lz),
-                           line.stations[n_station].x, NEd, NbRd, "N");
+    CheckResult r =
+        result("6.3.1 flexural buckling",
+               fmt::format(FMT_COMPILE("EN 1993-1-1 6.3.1, curves {}/{} (y/z), chi_y = {:.3f}, chi_z = {:.3f}, "
+                                       "Lcr = {:.3g}/{:.3g} m"),
+                           curve_name(curves.y), curve_name(curves.z), chi_y, chi_z, Ly, Lz),
+               line.stations[n_station].x, NEd, NbRd, "N");
     r.details = {{"L_cr_y", Ly},     {"L_cr_z", Lz},        {"lambda_y", lambda_y},
                  {"lambda_z", lambda_z}, {"alpha_y", imperfection_factor(curves.y)},
                  {"alpha_z", imperfection_factor(curves.z)}, {"chi_y", chi_y}, {"chi_z", chi_z},
@@ -253,12 +256,13 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
     const double lambda_t = std::sqrt(NRk / Ncr);  // (6.52)
     chi_t = reduction_factor(lambda_t, curves.z);
     if (wanted("6.3.1.4 torsional buckling", NEd, chi_t * NRk / f.gamma_M1))
-      out.push_back(result("6.3.1.4 torsional buckling",
-                           fmt::format("EN 1993-1-1 6.3.1.4, {} buckling, Ncr = {:.4g} kN (EN 1993-1-3 6.2.3), "
-                                       "curve {}, chi = {:.3f}, lT = {:.3g} m",
-                                       shear_centre_off_centroid(s) ? "torsional-flexural" : "torsional", Ncr / 1e3, curve_name(curves.z),
-                                       chi_t, lT),
-                           line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1, "N"));
+      out.push_back(
+          result("6.3.1.4 torsional buckling",
+                 fmt::format(FMT_COMPILE("EN 1993-1-1 6.3.1.4, {} buckling, Ncr = {:.4g} kN (EN 1993-1-3 6.2.3), "
+                                         "curve {}, chi = {:.3f}, lT = {:.3g} m"),
+                             shear_centre_off_centroid(s) ? "torsional-flexural" : "torsional", Ncr / 1e3,
+                             curve_name(curves.z), chi_t, lT),
+                 line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1, "N"));
   }
 
   const int cls_member = classify(s, fy, -NEd, my.peak).section_class;
@@ -368,20 +372,25 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
         if (modified) details.insert(details.end(), {{"kc", (*modified)[0]}, {"f", (*modified)[1]}, {"chi_LT_mod", chi_lt}});
         details.insert(details.end(), {{"M_Ed", my.peak}, {"M_b_Rd", MbRd}});
         const std::string basis =
-            ends_only ? fmt::format("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and "
-                                    "no restraint between{}",
-                                    lT, my.linear ? "" : "; span loads on the top flange (conservative default)")
-                      : fmt::format("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}", lT,
-                                    my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
+            ends_only
+                ? fmt::format(
+                      FMT_COMPILE("Mcr of the member's moment diagram, fork supports at its ends {:.3g} m apart and "
+                                  "no restraint between{}"),
+                      lT, my.linear ? "" : "; span loads on the top flange (conservative default)")
+                : fmt::format(FMT_COMPILE("conservative default over the unrestrained length {:.3g} m: C1 = 1.0{}"), lT,
+                              my.linear ? "" : ", span loads on the top flange (C2 = 0.454)");
         const std::string modification =
-            modified ? fmt::format(", f = {:.3f} (kc = {:.3f}, 6.58)", (*modified)[1], (*modified)[0]) : std::string();
-        CheckResult r = result(
-            "6.3.2 lateral-torsional buckling",
-            fmt::format("EN 1993-1-1 {}{}, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}{}; {}", method_name(method),
-                        ltb.method == LateralTorsionalMethod::rolled && !rolled_curve ? " (6.3.2.3 covers I sections only)"
-                                                                                      : "",
-                        curve_name(curve), Mcr / 1e3, chi_lt, modification, basis),
-            line.stations[my.peak_station].x, my.peak, MbRd, "N*m");
+            modified ? fmt::format(FMT_COMPILE(", f = {:.3f} (kc = {:.3f}, 6.58)"), (*modified)[1], (*modified)[0])
+                     : std::string();
+        CheckResult r =
+            result("6.3.2 lateral-torsional buckling",
+                   fmt::format(FMT_COMPILE("EN 1993-1-1 {}{}, curve {}, Mcr = {:.4g} kN*m, chi_LT = {:.3f}{}; {}"),
+                               method_name(method),
+                               ltb.method == LateralTorsionalMethod::rolled && !rolled_curve
+                                   ? " (6.3.2.3 covers I sections only)"
+                                   : "",
+                               curve_name(curve), Mcr / 1e3, chi_lt, modification, basis),
+                   line.stations[my.peak_station].x, my.peak, MbRd, "N*m");
         r.details = std::move(details);
         out.push_back(std::move(r));
       }
@@ -391,11 +400,12 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   if (NEd > 0 && !lateral_torsional_bounded) {
     const auto [u61, u62] = interaction(chi_lt);
     if (wanted("6.3.3 interaction", std::max(u61, u62), 1.0)) {
-      CheckResult r = result("6.3.3 interaction",
-                             fmt::format("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
-                                         "kzz = {:.3f}, Cmy = {:.2f}, Cmz = {:.2f}",
-                                         u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy, Cmz),
-                             line.stations[my.peak_station].x, std::max(u61, u62), 1.0);
+      CheckResult r = result(
+          "6.3.3 interaction",
+          fmt::format(FMT_COMPILE("EN 1993-1-1 6.3.3 eq. ({}), Annex B: kyy = {:.3f}, kyz = {:.3f}, kzy = {:.3f}, "
+                                  "kzz = {:.3f}, Cmy = {:.2f}, Cmz = {:.2f}"),
+                      u61 >= u62 ? "6.61" : "6.62", kyy, kyz, kzy, kzz, Cmy, Cmz),
+          line.stations[my.peak_station].x, std::max(u61, u62), 1.0);
       r.details = {{"N_Ed", NEd},
                    {"M_y_Ed", my.peak},
                    {"M_z_Ed", mz.peak},

@@ -14,11 +14,78 @@
 #include <cmath>
 #include <cstddef>
 #include <functional>
+#include <iterator>
 #include <string>
 #include <string_view>
 #include <vector>
 
 namespace stepframe::detail {
+
+/// Length of the valid UTF-8 sequence starting at s[i] (RFC 3629 section 4), or 0.
+inline std::size_t utf8_length(std::string_view s, std::size_t i) {
+  const auto b = [&](std::size_t k) { return static_cast<unsigned char>(s[k]); };
+  const unsigned char c = b(i);
+  std::size_t n = 0;
+  unsigned lo = 0x80, hi = 0xBF;
+  if (c >= 0xC2 && c <= 0xDF) n = 2;
+  else if (c >= 0xE0 && c <= 0xEF) n = 3, lo = c == 0xE0 ? 0xA0 : 0x80, hi = c == 0xED ? 0x9F : 0xBF;
+  else if (c >= 0xF0 && c <= 0xF4) n = 4, lo = c == 0xF0 ? 0x90 : 0x80, hi = c == 0xF4 ? 0x8F : 0xBF;
+  else return 0;
+  if (i + n > s.size() || b(i + 1) < lo || b(i + 1) > hi) return 0;
+  for (std::size_t k = 2; k < n; ++k)
+    if (b(i + k) < 0x80 || b(i + k) > 0xBF) return 0;
+  return n;
+}
+
+/// Appends `s` to `out` (a std::string or an fmt::memory_buffer) as a JSON string, RFC 8259 section 7:
+/// quotation mark, reverse solidus and control characters escaped; a byte that does not start valid
+/// UTF-8 becomes U+FFFD (names from CAD files are not always UTF-8).
+template <class Buffer>
+void append_json_string(Buffer& out, std::string_view s) {
+  auto append = [&](std::string_view text) { out.append(text.data(), text.data() + text.size()); };
+  out.push_back('"');
+  // Plain ASCII (keys, names, clause texts: nearly everything) goes over in runs.
+  auto plain = [](char c) {
+    const auto u = static_cast<unsigned char>(c);
+    return u >= 0x20 && u < 0x80 && c != '"' && c != '\\';
+  };
+  for (std::size_t i = 0; i < s.size(); ++i) {
+    if (plain(s[i])) {
+      std::size_t end = i + 1;
+      while (end < s.size() && plain(s[end])) ++end;
+      append(s.substr(i, end - i));
+      i = end - 1;
+      continue;
+    }
+    const char c = s[i];
+    if (static_cast<unsigned char>(c) >= 0x80) {
+      const std::size_t n = utf8_length(s, i);
+      if (n == 0) append("\ufffd");
+      else append(s.substr(i, n)), i += n - 1;
+      continue;
+    }
+    switch (c) {
+      case '"': append("\\\""); break;
+      case '\\': append("\\\\"); break;
+      case '\n': append("\\n"); break;
+      case '\r': append("\\r"); break;
+      case '\t': append("\\t"); break;
+      default:
+        if (static_cast<unsigned char>(c) < 0x20)
+          fmt::format_to(std::back_inserter(out), "\\u{:04x}", static_cast<int>(c));
+        else out.push_back(c);
+    }
+  }
+  out.push_back('"');
+}
+
+/// `s` as a JSON string (append_json_string).
+inline std::string json_string(std::string_view s) {
+  std::string out;
+  out.reserve(s.size() + 2);
+  append_json_string(out, s);
+  return out;
+}
 
 class JsonWriter {
  public:
@@ -126,59 +193,7 @@ class JsonWriter {
     char text[24];
     out_.append(text, std::to_chars(text, text + sizeof text, v).ptr);
   }
-  // Length of the valid UTF-8 sequence starting at s[i] (RFC 3629 section 4), or 0.
-  static std::size_t utf8_length(std::string_view s, std::size_t i) {
-    const auto b = [&](std::size_t k) { return static_cast<unsigned char>(s[k]); };
-    const unsigned char c = b(i);
-    std::size_t n = 0;
-    unsigned lo = 0x80, hi = 0xBF;
-    if (c >= 0xC2 && c <= 0xDF) n = 2;
-    else if (c >= 0xE0 && c <= 0xEF) n = 3, lo = c == 0xE0 ? 0xA0 : 0x80, hi = c == 0xED ? 0x9F : 0xBF;
-    else if (c >= 0xF0 && c <= 0xF4) n = 4, lo = c == 0xF0 ? 0x90 : 0x80, hi = c == 0xF4 ? 0x8F : 0xBF;
-    else return 0;
-    if (i + n > s.size() || b(i + 1) < lo || b(i + 1) > hi) return 0;
-    for (std::size_t k = 2; k < n; ++k)
-      if (b(i + k) < 0x80 || b(i + k) > 0xBF) return 0;
-    return n;
-  }
-
-  // RFC 8259 section 7: quotation mark, reverse solidus and control characters escaped; a byte
-  // that does not start valid UTF-8 becomes U+FFFD (names from CAD files are not always UTF-8).
-  void string_text(std::string_view s) {
-    out_.push_back('"');
-    // Plain ASCII (keys, names, clause texts: nearly everything) goes over in runs.
-    auto plain = [](char c) {
-      const auto u = static_cast<unsigned char>(c);
-      return u >= 0x20 && u < 0x80 && c != '"' && c != '\\';
-    };
-    for (std::size_t i = 0; i < s.size(); ++i) {
-      if (plain(s[i])) {
-        std::size_t end = i + 1;
-        while (end < s.size() && plain(s[end])) ++end;
-        append(s.substr(i, end - i));
-        i = end - 1;
-        continue;
-      }
-      const char c = s[i];
-      if (static_cast<unsigned char>(c) >= 0x80) {
-        const std::size_t n = utf8_length(s, i);
-        if (n == 0) append("\ufffd");
-        else append(s.substr(i, n)), i += n - 1;
-        continue;
-      }
-      switch (c) {
-        case '"': append("\\\""); break;
-        case '\\': append("\\\\"); break;
-        case '\n': append("\\n"); break;
-        case '\r': append("\\r"); break;
-        case '\t': append("\\t"); break;
-        default:
-          if (static_cast<unsigned char>(c) < 0x20) fmt::format_to(std::back_inserter(out_), "\\u{:04x}", static_cast<int>(c));
-          else out_.push_back(c);
-      }
-    }
-    out_.push_back('"');
-  }
+  void string_text(std::string_view s) { append_json_string(out_, s); }
 
   Sink sink_;
   fmt::memory_buffer out_;

@@ -2,14 +2,15 @@
 // around viz's scripts. The data is the model's members as node paths, each
 // result's forces and stress ratio per member, and each member's checks.
 
+#include "json_writer.hpp"
 #include "report_parts.hpp"
 #include "significant_digits.hpp"
 
 #include "stepframe/analysis/member_line.hpp"
 #include "stepframe/viz/browser_view.hpp"
 
+#include <fmt/compile.h>
 #include <fmt/format.h>
-#include <nlohmann/json.hpp>
 #include <spdlog/spdlog.h>
 
 #include <string>
@@ -17,8 +18,6 @@
 
 namespace stepframe::report {
 namespace {
-
-std::string quoted(const std::string& text) { return nlohmann::json(text).dump(); }
 
 /// JSON numbers: 5 significant digits (a view, not a result file), as printf's %.5g, appended to `d`.
 void n5(std::string& d, double value) {
@@ -52,7 +51,7 @@ void append_view_data(const Analysis& a, std::string& d) {
   d += ",\"nodes\":[";
   auto out = std::back_inserter(d);
   for (std::size_t i = 0; i < model.nodes.size(); ++i)
-    fmt::format_to(out, "{}{:.4f},{:.4f},{:.4f}", i ? "," : "", model.nodes[i].x(), model.nodes[i].y(),
+    fmt::format_to(out, FMT_COMPILE("{}{:.4f},{:.4f},{:.4f}"), i ? "," : "", model.nodes[i].x(), model.nodes[i].y(),
                    model.nodes[i].z());
   d += "],\"members\":[";
   const std::vector<double> fy = analysis::member_yield_strengths(model, chains);
@@ -63,16 +62,18 @@ void append_view_data(const Analysis& a, std::string& d) {
     const double length = member_length(model, chains[m]);
     const auto* g = m < governing.size() ? governing[m] : nullptr;
     fmt::format_to(out,
-                   "{}{{\"id\":{},\"label\":{},\"section\":{},\"material\":{},\"length\":{},\"path\":[{}],\"u\":{}{}}}",
-                   m ? "," : "", m, quoted(m < a.built.member_sources.size() ? member_label(a, m) : ""),
-                   quoted(model.sections[el.section].designation), quoted(model.materials[el.material].name),
+                   FMT_COMPILE("{}{{\"id\":{},\"label\":{},\"section\":{},\"material\":{},\"length\":{},\"path\":[{}],"
+                               "\"u\":{}{}}}"),
+                   m ? "," : "", m, detail::json_string(m < a.built.member_sources.size() ? member_label(a, m) : ""),
+                   detail::json_string(model.sections[el.section].designation),
+                   detail::json_string(model.materials[el.material].name),
                    n5(length), path, g ? n5(g->utilisation) : "null",
-                   has_sheet[m] ? ",\"sheet\":" + quoted(sheet_anchor(m)) : "");
+                   has_sheet[m] ? ",\"sheet\":" + detail::json_string(sheet_anchor(m)) : "");
   }
   d += "],\"results\":[";
   for (std::size_t r = 0; r < a.results.size(); ++r) {
     const auto& result = a.results[r];
-    fmt::format_to(out, "{}{{\"name\":{},\"kind\":\"{}\",\"stress\":[", r ? "," : "", quoted(result.name),
+    fmt::format_to(out, "{}{{\"name\":{},\"kind\":\"{}\",\"stress\":[", r ? "," : "", detail::json_string(result.name),
                    result.is_combination ? "combination" : "case");
     for (std::size_t m = 0; m < result.members.size(); ++m) {
       if (m) d += ',';
@@ -95,9 +96,10 @@ void append_view_data(const Analysis& a, std::string& d) {
   std::vector<std::string> checks(chains.size());
   for (const auto& c : a.checks)
     if (c.member < checks.size())
-      fmt::format_to(std::back_inserter(checks[c.member]), "{}[{},{},{},{},{},{}]",
-                     checks[c.member].empty() ? "" : ",", quoted(c.check), quoted(c.combination),
-                     quoted(with_unit(c.value, c.unit, a.project)), quoted(with_unit(c.limit, c.unit, a.project)),
+      fmt::format_to(std::back_inserter(checks[c.member]), FMT_COMPILE("{}[{},{},{},{},{},{}]"),
+                     checks[c.member].empty() ? "" : ",", detail::json_string(c.check),
+                     detail::json_string(c.combination), detail::json_string(with_unit(c.value, c.unit, a.project)),
+                     detail::json_string(with_unit(c.limit, c.unit, a.project)),
                      n5(c.utilisation), c.pass ? "true" : "false");
   d += "],\"checks\":[";
   for (std::size_t m = 0; m < checks.size(); ++m) {
@@ -107,7 +109,7 @@ void append_view_data(const Analysis& a, std::string& d) {
   }
   const auto order = members_by_utilisation(a);
   const std::string initial = !order.empty() && governing[order.front()] ? governing[order.front()]->combination : "";
-  d += "],\"initial_result\":" + quoted(initial) + "}";
+  d += "],\"initial_result\":" + detail::json_string(initial) + "}";
 }
 
 /// Text inside <script>, from `from` on: "</" would end the element early (HTML 4.01 B.3.2 / the HTML

@@ -4,6 +4,7 @@
 
 #include "table_helpers.hpp"
 
+#include <fmt/compile.h>
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -47,7 +48,8 @@ std::string cutlist_csv(const Analysis& a) {
   std::vector<std::pair<std::string, const Row*>> order;
   for (const auto& [mark, row] : rows) order.emplace_back(mark, &row);
   std::sort(order.begin(), order.end(), [](const auto& x, const auto& y) {
-    return std::tie(x.second->section, x.second->length, x.first) < std::tie(y.second->section, y.second->length, y.first);
+    return std::tie(x.second->section, x.second->length, x.first) <
+           std::tie(y.second->section, y.second->length, y.first);
   });
   std::string out = "mark,section,material,length_mm,count,kg_per_m,kg_each,kg_total,camber_mm,members\n";
   std::size_t pieces = 0;
@@ -83,16 +85,16 @@ std::string connections_csv(const Analysis& a) {
     const auto& p = model.nodes[node];
     for (const auto& [m, end] : list) {
       const auto& src = a.built.member_sources[m];
-      fmt::format_to(std::back_inserter(out), "{},{:.1f},{:.1f},{:.1f},{},{},{},{},{},{},{}", node, p.x() * 1e3,
-                     p.y() * 1e3, p.z() * 1e3, list.size(), m, csv_field(src.entity), csv_field(src.name),
+      fmt::format_to(std::back_inserter(out), FMT_COMPILE("{},{:.1f},{:.1f},{:.1f},{},{},{},{},{},{},{}"), node,
+                     p.x() * 1e3, p.y() * 1e3, p.z() * 1e3, list.size(), m, csv_field(src.entity), csv_field(src.name),
                      csv_field(mark_of(a, m)),
                      csv_field(model.sections[model.elements[model.members[m].elements.front()].section].designation),
                      end == 0 ? "start" : "end");
       for (int c = 0; c < 6; ++c) {
         const EndForceEnvelope e = end_force_envelope(pool, m, end, c);
         // Internal forces at the member end (results.hpp convention), kN and kN*m for people.
-        fmt::format_to(std::back_inserter(out), ",{:.3f},{},{:.3f},{}", e.high / 1e3, csv_name(e.high_by), e.low / 1e3,
-                       csv_name(e.low_by));
+        fmt::format_to(std::back_inserter(out), FMT_COMPILE(",{:.3f},{},{:.3f},{}"), e.high / 1e3, csv_name(e.high_by),
+                       e.low / 1e3, csv_name(e.low_by));
       }
       out += "\n";
     }

@@ -2,6 +2,7 @@
 
 #include "table_helpers.hpp"
 
+#include <fmt/compile.h>
 #include <fmt/format.h>
 
 #include <algorithm>
@@ -58,13 +59,13 @@ std::string checks_csv(const Analysis& a) {
     const auto& section = model.sections[first_element(model, m).section].designation;
     if (const auto* c = governing[m]) {
       const auto unit = people_unit(c->unit, a.project);
-      out += fmt::format("{},{},{},{},{:.4f},{:.6g},{:.6g},{},{},{},{},{:.4f},{}\n", m, csv_field(src.entity),
-                         csv_field(src.name), csv_field(section), c->utilisation, c->value * unit.factor,
-                         c->limit * unit.factor, unit.name, c->check, csv_field(c->clause), csv_field(c->combination),
-                         c->station, c->pass ? "pass" : "FAIL");
+      fmt::format_to(std::back_inserter(out), FMT_COMPILE("{},{},{},{},{:.4f},{:.6g},{:.6g},{},{},{},{},{:.4f},{}\n"),
+                     m, csv_field(src.entity), csv_field(src.name), csv_field(section), c->utilisation,
+                     c->value * unit.factor, c->limit * unit.factor, unit.name, c->check, csv_field(c->clause),
+                     csv_field(c->combination), c->station, c->pass ? "pass" : "FAIL");
     } else {
-      out += fmt::format("{},{},{},{},,,,,,,,,not checked\n", m, csv_field(src.entity), csv_field(src.name),
-                         csv_field(section));
+      fmt::format_to(std::back_inserter(out), FMT_COMPILE("{},{},{},{},,,,,,,,,not checked\n"), m,
+                     csv_field(src.entity), csv_field(src.name), csv_field(section));
     }
   }
   return out;
@@ -80,9 +81,9 @@ std::string takeoff_csv(const Analysis& a) {
     const double length = member_length(model, m);
     const double per_metre = section.A * material.density;  // kg/m = A [m^2] x density [kg/m^3]
     const auto& src = a.built.member_sources[m];
-    out += fmt::format("{},{},{},{},{},{:.1f},{:.2f},{:.2f}\n", m, csv_field(src.entity), csv_field(src.name),
-                       csv_field(section.designation), csv_field(material.name), length * 1e3, per_metre,
-                       per_metre * length);
+    fmt::format_to(std::back_inserter(out), FMT_COMPILE("{},{},{},{},{},{:.1f},{:.2f},{:.2f}\n"), m,
+                   csv_field(src.entity), csv_field(src.name), csv_field(section.designation), csv_field(material.name),
+                   length * 1e3, per_metre, per_metre * length);
   }
   return out;
 }
@@ -122,9 +123,11 @@ std::string reactions_csv(const Analysis& a) {
     for (const auto& r : a.results) {
       const auto f = r.reactions.segment<6>(static_cast<Eigen::Index>(6 * n));
       // Forces of the supports on the frame, global axes; kN and kN*m for people.
-      out += fmt::format("{},{:.1f},{:.1f},{:.1f},{},{},{:.3f},{:.3f},{:.3f},{:.3f},{:.3f},{:.3f}\n", n, p.x() * 1e3,
-                         p.y() * 1e3, p.z() * 1e3, csv_field(r.name), r.is_combination ? "combination" : "case",
-                         f(0) / 1e3, f(1) / 1e3, f(2) / 1e3, f(3) / 1e3, f(4) / 1e3, f(5) / 1e3);
+      fmt::format_to(std::back_inserter(out),
+                     FMT_COMPILE("{},{:.1f},{:.1f},{:.1f},{},{},{:.3f},{:.3f},{:.3f},{:.3f},{:.3f},{:.3f}\n"), n,
+                     p.x() * 1e3, p.y() * 1e3, p.z() * 1e3, csv_field(r.name),
+                     r.is_combination ? "combination" : "case", f(0) / 1e3, f(1) / 1e3, f(2) / 1e3, f(3) / 1e3,
+                     f(4) / 1e3, f(5) / 1e3);
     }
   }
   return out;
@@ -141,7 +144,7 @@ std::string end_forces_csv(const Analysis& a) {
       for (int c = 0; c < 6; ++c) {
         const EndForceEnvelope e = end_force_envelope(pool, m, end, c);
         // kN and kN*m for people: internal forces are N and N*m inside.
-        fmt::format_to(std::back_inserter(out), "{},{},{},{},{:.3f},{},{:.3f},{}\n", m,
+        fmt::format_to(std::back_inserter(out), FMT_COMPILE("{},{},{},{},{:.3f},{},{:.3f},{}\n"), m,
                        csv_field(a.built.member_sources[m].entity), end == 0 ? "start" : "end", names[c], e.high / 1e3,
                        csv_name(e.high_by), e.low / 1e3, csv_name(e.low_by));
       }
