@@ -23,8 +23,10 @@ bool is_web(const SectionPart& part) { return part.name.find("web") != std::stri
 
 double epsilon(double fy) { return std::sqrt(235e6 / fy); }  // Table 5.2, fy in Pa
 
-std::array<double, 3> part_limits(const SectionPart& part, double fy, double alpha, double psi) {
-  const double eps = epsilon(fy);
+namespace {
+
+// part_limits with epsilon worked out by the caller (once per section, not once per part).
+std::array<double, 3> limits_for(const SectionPart& part, double eps, double alpha, double psi) {
   switch (part.kind) {
     case PartKind::internal: {
       const double a = std::clamp(alpha, 1e-9, 1.0), p = std::min(psi, 1.0);
@@ -40,20 +42,23 @@ std::array<double, 3> part_limits(const SectionPart& part, double fy, double alp
   return {0.0, 0.0, 0.0};
 }
 
-namespace {
-
-// The class of a part in compression whose limits are given (Table 5.2: the first class whose limit c/t meets).
-int class_within(const SectionPart& part, const std::array<double, 3>& limits) {
+// The class of a part in compression of slenderness c/t = `ratio` whose limits are given (Table 5.2: the
+// first class whose limit c/t meets).
+int class_within(double ratio, const std::array<double, 3>& limits) {
   for (int cls = 1; cls <= 3; ++cls)
-    if (part.ratio() <= limits[static_cast<std::size_t>(cls - 1)]) return cls;
+    if (ratio <= limits[static_cast<std::size_t>(cls - 1)]) return cls;
   return 4;
 }
 
 }  // namespace
 
+std::array<double, 3> part_limits(const SectionPart& part, double fy, double alpha, double psi) {
+  return limits_for(part, epsilon(fy), alpha, psi);
+}
+
 int part_class(const SectionPart& part, double fy, double alpha, double psi) {
   if (part.kind == PartKind::internal && alpha <= 0) return 1;  // the part is not in compression
-  return class_within(part, part_limits(part, fy, alpha, psi));
+  return class_within(part.ratio(), part_limits(part, fy, alpha, psi));
 }
 
 Classification classify(const Section& s, double fy, double N, double My) {
@@ -64,6 +69,7 @@ Classification classify(const Section& s, double fy, double N, double My) {
     return result;
   }
   const double compression = -N;  // compression positive from here on
+  const double eps = epsilon(fy);
   for (const SectionPart& part : s.parts) {
     double alpha = 1.0, psi = 1.0;
     if (part.kind == PartKind::internal && is_web(part)) {
@@ -79,9 +85,10 @@ Classification classify(const Section& s, double fy, double N, double My) {
     }
     // As part_class, with the limits worked out once for the class and the class 3 margin (per station).
     const bool in_tension = part.kind == PartKind::internal && alpha <= 0;
-    const auto limits = in_tension ? std::array<double, 3>{} : part_limits(part, fy, alpha, psi);
-    const int cls = in_tension ? 1 : class_within(part, limits);
-    const double class3 = in_tension ? 0.0 : part.ratio() / limits[2];
+    const double ratio = part.ratio();
+    const auto limits = in_tension ? std::array<double, 3>{} : limits_for(part, eps, alpha, psi);
+    const int cls = in_tension ? 1 : class_within(ratio, limits);
+    const double class3 = in_tension ? 0.0 : ratio / limits[2];
     if (cls > result.section_class || (cls == result.section_class && class3 > result.class3_utilisation)) {
       result.section_class = std::max(cls, result.section_class);
       result.governing_part = part.name;  // a view: no copy per part and station
