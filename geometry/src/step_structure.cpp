@@ -17,9 +17,10 @@ namespace {
 constexpr const char* damaged =
     "the file is damaged or was not written by a STEP (ISO 10303-21) exporter; export the model again";
 
+// ASCII letters and digits, as OCCT's lexer reads them whatever the host's locale.
 bool token_char(char c) {
-  return std::isalnum(static_cast<unsigned char>(c)) != 0 || c == '_' || c == '#' || c == '.' || c == '+' ||
-         c == '-' || c == '!';
+  return (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || (c >= '0' && c <= '9') || c == '_' || c == '#' ||
+         c == '.' || c == '+' || c == '-' || c == '!';
 }
 
 // A character for a message: named by its code when not printable ASCII, so
@@ -101,7 +102,31 @@ void StepStructureCheck::fail_form(const std::string& what) const {
 }
 
 void StepStructureCheck::feed(std::string_view piece) {
-  for (char c : piece) character(c);
+  const char* p = piece.data();
+  const char* const end = p + piece.size();
+  while (p < end) {
+    character(*p++);
+    // The long runs that change nothing but counters go past in a tight loop, each stopping before the
+    // first character character() would treat otherwise: the rest of a string's text, the rest of a
+    // keyword, number or reference (up to OCCT's token length, whose excess character() reports), and
+    // blanks between tokens. The state after a run is what one character() call per character leaves.
+    const char* q = p;
+    if (mode_ == Mode::string && !quote_) {
+      std::size_t lines = 0;
+      while (q < end && *q != '\'' && !control(*q)) lines += *q++ == '\n';
+      line_ += lines;
+      run_ += static_cast<std::size_t>(q - p);
+    } else if (mode_ == Mode::normal && !slash_ && !token_.empty()) {
+      while (q < end && token_char(*q) && token_.size() + static_cast<std::size_t>(q - p) < max_step_token) ++q;
+      token_.append(p, q);
+    } else if (mode_ == Mode::normal && !slash_ && (p[-1] == ' ' || p[-1] == '\n' || p[-1] == '\r' || p[-1] == '\t')) {
+      std::size_t lines = 0;
+      while (q < end && (*q == ' ' || *q == '\n' || *q == '\r' || *q == '\t')) lines += *q++ == '\n';
+      line_ += lines;
+    }
+    offset_ += static_cast<std::size_t>(q - p);
+    p = q;
+  }
 }
 
 void StepStructureCheck::character(char c) {
@@ -301,7 +326,8 @@ void StepStructureCheck::end_token() {
   if (first == '#') {
     if (t.size() < 2 || !std::all_of(t.begin() + 1, t.end(), digit) || t.size() > 19)
       fail(fmt::format("{}: '{}' is not an entity reference (# and a number); {}", here(), t, damaged));
-    const std::uint64_t id = std::strtoull(t.c_str() + 1, nullptr, 10);
+    std::uint64_t id = 0;  // at most 18 digits (checked above): no overflow
+    for (auto c = t.begin() + 1; c != t.end(); ++c) id = 10 * id + static_cast<std::uint64_t>(*c - '0');
     if (depth_ == 0) {  // an entity instance begins: #12 = ...
       if (current_ != 0) fail_form(fmt::format("{} begins before a ';' ends #{}", t, current_));
       current_ = id;
@@ -324,7 +350,11 @@ void StepStructureCheck::end_token() {
                        here(), t, damaged));
     if (depth_ == 0 && current_ != 0) fail_form(fmt::format("the number {} outside any parameter list", t));
     value_done_ = depth_ > 0;
-    if (t.find('.') != std::string::npos) {
+    // A real below 10^300 (no exponent, at most 300 digits before the point) is finite for sure; only
+    // the others are converted to see whether they are.
+    const std::size_t point = t.find('.');
+    const std::size_t integer_digits = point == std::string::npos ? 0 : point - (digit(first) ? 0 : 1);
+    if (point != std::string::npos && (t.find('E') != std::string::npos || integer_digits > 300)) {
       const double value = std::strtod(t.c_str(), nullptr);
       if (!std::isfinite(value))
         fail(fmt::format("{}: the number {} is beyond the range of numbers (about 1.8E308); a coordinate or "

@@ -13,6 +13,7 @@
 #include <fstream>
 #include <sstream>
 #include <string>
+#include <vector>
 
 namespace sg = stepframe::geometry;
 
@@ -234,6 +235,14 @@ TEST_CASE("fuzz finding: numbers and enumerations are read as ISO 10303-21 write
   for (const char* bad : {".t.", "..", ".0.5", ".A-B."})
     CHECK_THAT(check(bad), Catch::Contains("is neither a number nor an enumeration"));
   CHECK_THAT(check("SI.UNIT(1.)"), Catch::Contains("'SI.UNIT' is not a keyword"));
+  // Reals beyond the largest double (about 1.8E308, IEEE 754 binary64) are refused, with or without an
+  // exponent; up to it they pass.
+  for (const std::string& bad :
+       std::vector<std::string>{"1.E400", "-2.5E+308", std::string(309, '9') + ".", "-" + std::string(310, '1') + ".5"})
+    CHECK_THAT(check(bad), Catch::Contains("is beyond the range of numbers"));
+  for (const std::string& good :
+       std::vector<std::string>{"1.7E308", std::string(300, '9') + ".", "-" + std::string(308, '1') + ".", "1.E-400"})
+    CHECK(check(good).empty());
 }
 
 TEST_CASE("fuzz finding: parameters are separated by single commas, or the file is refused", "[step][hostile]") {
