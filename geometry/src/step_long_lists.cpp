@@ -1,5 +1,10 @@
 #include "step_long_lists.hpp"
 
+#include <IFSelect_WorkLibrary.hxx>
+#include <Interface_InterfaceModel.hxx>
+#include <Interface_Protocol.hxx>
+#include <Standard_ErrorHandler.hxx>
+#include <Standard_Failure.hxx>
 #include <StepData_StepModel.hxx>
 #include <StepRepr_HArray1OfRepresentationItem.hxx>
 #include <StepRepr_Representation.hxx>
@@ -89,9 +94,32 @@ std::string cut_long_lists(std::string_view step_text, const std::vector<StepLon
   return out;
 }
 
-bool restore_long_lists(STEPCAFControl_Reader& reader, const std::vector<StepLongList>& lists) {
+IFSelect_ReturnStatus parse_unlinked(STEPCAFControl_Reader& reader, const char* name, std::istream& stream,
+                                     Handle(StepData_StepModel)& parsed) {
+  // As IFSelect_WorkSession::ReadStream, less its SetModel; then XSControl_Reader::ReadStream's
+  // InitTransferReader(4).
   const Handle(XSControl_WorkSession) session = reader.ChangeReader().WS();
-  const Handle(StepData_StepModel) model = reader.Reader().StepModel();
+  if (session.IsNull() || session->WorkLibrary().IsNull() || session->Protocol().IsNull()) return IFSelect_RetVoid;
+  Handle(Interface_InterfaceModel) model;
+  IFSelect_ReturnStatus status = IFSelect_RetVoid;
+  try {
+    OCC_CATCH_SIGNALS
+    const Standard_Integer read = session->WorkLibrary()->ReadStream(name, stream, model, session->Protocol());
+    status = read == 0 ? IFSelect_RetDone : read < 0 ? IFSelect_RetError : IFSelect_RetFail;
+  } catch (const Standard_Failure& failure) {
+    spdlog::debug("OCCT's parser stopped on an exception: {}", failure.GetMessageString());
+    status = IFSelect_RetFail;
+  }
+  session->InitTransferReader(4);
+  if (status != IFSelect_RetDone) return status;
+  parsed = Handle(StepData_StepModel)::DownCast(model);
+  return parsed.IsNull() ? IFSelect_RetVoid : status;
+}
+
+bool restore_long_lists(STEPCAFControl_Reader& reader, const Handle(StepData_StepModel)& parsed, const char* name,
+                        const std::vector<StepLongList>& lists) {
+  const Handle(XSControl_WorkSession) session = reader.ChangeReader().WS();
+  const Handle(StepData_StepModel)& model = parsed;
   if (session.IsNull() || model.IsNull()) return false;
   std::unordered_map<std::uint64_t, Standard_Integer> number_of;  // entity id -> number in the model
   number_of.reserve(static_cast<std::size_t>(model->NbEntities()));
@@ -134,9 +162,10 @@ bool restore_long_lists(STEPCAFControl_Reader& reader, const std::vector<StepLon
       return false;
     }
   }
-  // As XSControl_Reader does after a parse: the session takes the model (and computes the graph of
-  // references anew, now with the whole lists) and its transfer reader begins afresh.
+  // What ReadStream would have done with the whole model: the session takes it (and computes the graph of
+  // references, with the whole lists), its transfer reader begins afresh.
   session->SetModel(model);
+  session->SetLoadedFile(name);
   session->InitTransferReader(4);
   return true;
 }

@@ -8,7 +8,11 @@
 
 #include "stepframe/geometry/step_structure.hpp"
 
+#include <IFSelect_ReturnStatus.hxx>
 #include <STEPCAFControl_Reader.hxx>
+#include <StepData_StepModel.hxx>
+
+#include <istream>
 
 #include <string>
 #include <string_view>
@@ -24,13 +28,22 @@ std::vector<StepLongList> restorable_long_lists(std::vector<StepLongList> lists)
 /// so that the lines after it keep their numbers.
 std::string cut_long_lists(std::string_view step_text, const std::vector<StepLongList>& lists);
 
-/// After OCCT parsed the cut text into `reader`'s model: sets each list's
-/// entity's list to all its items, as OCCT's reader of that entity type
-/// would have set it, and has the work session take the model afresh (its
-/// graph of references, on which the transfer finds its roots). False, with
-/// the model left as it may be, when an entity or an item is not of the type
-/// the list wants: the caller then has OCCT parse the whole text, so that the
-/// file's faults are reported as OCCT reports them.
-bool restore_long_lists(STEPCAFControl_Reader& reader, const std::vector<StepLongList>& lists);
+/// Parses the (cut) text in `stream` into `parsed` as XSControl_Reader::ReadStream
+/// does, the same status for the same text, but does not hand the model to the
+/// reader's work session: a session that takes a model computes the graph of
+/// its references (IFSelect_WorkSession::SetModel), and the cut model's graph
+/// would only be thrown away when restore_long_lists hands it the whole one.
+IFSelect_ReturnStatus parse_unlinked(STEPCAFControl_Reader& reader, const char* name, std::istream& stream,
+                                     Handle(StepData_StepModel)& parsed);
+
+/// After parse_unlinked: sets each list's entity's list in `parsed` to all its
+/// items, as OCCT's reader of that entity type would have set it, and hands
+/// the model to the reader's work session (which computes its graph of
+/// references, on which the transfer finds its roots), as ReadStream would
+/// have. False, with the session left without a model, when an entity or an
+/// item is not of the type the list wants: the caller then has OCCT parse the
+/// whole text, so that the file's faults are reported as OCCT reports them.
+bool restore_long_lists(STEPCAFControl_Reader& reader, const Handle(StepData_StepModel)& parsed, const char* name,
+                        const std::vector<StepLongList>& lists);
 
 }  // namespace stepframe::geometry::detail

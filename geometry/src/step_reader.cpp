@@ -258,12 +258,14 @@ void configure(STEPCAFControl_Reader& reader) {
   reader.SetViewMode(Standard_False);
 }
 
-// Parses with OCCT (`read` calls the reader's ReadFile or ReadStream), puts back the lists `cut` from
-// the text (nothing when that fails: see restore_long_lists) and reads the parsed model; an unparsable
-// input is a StepReadError naming `source`.
-template <class Read>
-std::optional<StepModel> parse_and_read_with_occt(const std::string& source, Read read,
-                                                  const std::vector<StepLongList>& cut) {
+// After a parse: nothing to put back.
+bool nothing_cut(STEPCAFControl_Reader&) { return true; }
+
+// Parses with OCCT (`read` calls the reader's ReadFile or ReadStream, or parse_unlinked), has `restore`
+// put back what was cut from the text (nothing when that fails: see restore_long_lists) and reads the
+// parsed model; an unparsable input is a StepReadError naming `source`.
+template <class Read, class Restore>
+std::optional<StepModel> parse_and_read_with_occt(const std::string& source, Read read, Restore restore) {
   const std::lock_guard<std::mutex> one_at_a_time(detail::occt_exchange_lock());
   detail::route_occt_messages_to_spdlog();
   STEPCAFControl_Controller::Init();
@@ -281,7 +283,7 @@ std::optional<StepModel> parse_and_read_with_occt(const std::string& source, Rea
     fail(source, fmt::format("is not a readable STEP (ISO 10303-21) file: OCCT could not parse it{}. {}",
                              said.empty() ? std::string() : " (" + said + ")", export_advice));
   }
-  if (!cut.empty() && !detail::restore_long_lists(reader, cut)) return std::nullopt;
+  if (!restore(reader)) return std::nullopt;
   return read_parsed(reader, source);
 }
 
@@ -289,9 +291,9 @@ std::optional<StepModel> parse_and_read_with_occt(const std::string& source, Rea
 // many small objects leave the heap fragmented, and glibc keeps what lies below the top of the
 // heap (the 100k bench frame: 370 MiB of a 720 MiB resident set after the read), so the
 // factorisation that follows would add its gigabytes on top of it.
-template <class Read>
-std::optional<StepModel> parse_and_read(const std::string& source, Read read, const std::vector<StepLongList>& cut = {}) {
-  std::optional<StepModel> model = parse_and_read_with_occt(source, read, cut);
+template <class Read, class Restore = decltype(&nothing_cut)>
+std::optional<StepModel> parse_and_read(const std::string& source, Read read, Restore restore = &nothing_cut) {
+  std::optional<StepModel> model = parse_and_read_with_occt(source, read, restore);
 #if defined(__GLIBC__)
   malloc_trim(0);
 #endif
@@ -314,9 +316,15 @@ StepModel read_text(std::string_view text, const std::string& source, const Step
     if (shortened) given = *shortened;
     const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(given);
     std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : given)};
+    if (cut.empty())
+      return parse_and_read(source, [&](STEPCAFControl_Reader& reader) {
+        return reader.ChangeReader().ReadStream(source.c_str(), stream);
+      });
+    Handle(StepData_StepModel) parsed;
     return parse_and_read(
-        source, [&](STEPCAFControl_Reader& reader) { return reader.ChangeReader().ReadStream(source.c_str(), stream); },
-        cut);
+        source,
+        [&](STEPCAFControl_Reader& reader) { return detail::parse_unlinked(reader, source.c_str(), stream, parsed); },
+        [&](STEPCAFControl_Reader& reader) { return detail::restore_long_lists(reader, parsed, source.c_str(), cut); });
   };
   std::optional<StepModel> model = lists.empty() ? std::nullopt : parse(detail::cut_long_lists(text, lists), lists);
   if (!model) model = parse(text, {});
