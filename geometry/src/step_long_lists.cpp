@@ -116,10 +116,9 @@ IFSelect_ReturnStatus parse_unlinked(STEPCAFControl_Reader& reader, const char* 
   return parsed.IsNull() ? IFSelect_RetVoid : status;
 }
 
-bool restore_long_lists(STEPCAFControl_Reader& reader, const Handle(StepData_StepModel)& parsed, const char* name,
+bool restore_long_lists(STEPCAFControl_Reader& reader, const Handle(StepData_StepModel)& model, const char* name,
                         const std::vector<StepLongList>& lists) {
   const Handle(XSControl_WorkSession) session = reader.ChangeReader().WS();
-  const Handle(StepData_StepModel)& model = parsed;
   if (session.IsNull() || model.IsNull()) return false;
   std::unordered_map<std::uint64_t, Standard_Integer> number_of;  // entity id -> number in the model
   number_of.reserve(static_cast<std::size_t>(model->NbEntities()));

@@ -36,14 +36,14 @@ std::string cut_long_lists(std::string_view step_text, const std::vector<StepLon
 IFSelect_ReturnStatus parse_unlinked(STEPCAFControl_Reader& reader, const char* name, std::istream& stream,
                                      Handle(StepData_StepModel)& parsed);
 
-/// After parse_unlinked: sets each list's entity's list in `parsed` to all its
+/// After parse_unlinked: sets each list's entity's list in `model` to all its
 /// items, as OCCT's reader of that entity type would have set it, and hands
 /// the model to the reader's work session (which computes its graph of
 /// references, on which the transfer finds its roots), as ReadStream would
 /// have. False, with the session left without a model, when an entity or an
 /// item is not of the type the list wants: the caller then has OCCT parse the
 /// whole text, so that the file's faults are reported as OCCT reports them.
-bool restore_long_lists(STEPCAFControl_Reader& reader, const Handle(StepData_StepModel)& parsed, const char* name,
+bool restore_long_lists(STEPCAFControl_Reader& reader, const Handle(StepData_StepModel)& model, const char* name,
                         const std::vector<StepLongList>& lists);
 
 }  // namespace stepframe::geometry::detail
