@@ -65,7 +65,6 @@
 #include <cstring>
 #include <fstream>
 #include <mutex>
-#include <sstream>
 #include <optional>
 #include <system_error>
 #include <unordered_set>
@@ -149,6 +148,32 @@ void report_untranslated(const Handle(StepData_StepModel) & model, const detail:
   }
 }
 
+
+// An input stream over text held elsewhere, read in place: OCCT's parser takes a std::istream, and an
+// istringstream would hold a copy of the text (some 50 MB for a 100,000-member frame).
+class TextStream : public std::istream {
+ public:
+  explicit TextStream(std::string_view text) : std::istream(nullptr), buffer_(text) { rdbuf(&buffer_); }
+
+ private:
+  struct Buffer : std::streambuf {
+    explicit Buffer(std::string_view text) {
+      char* begin = const_cast<char*>(text.data());  // the get area is only read
+      setg(begin, begin, begin + text.size());
+    }
+  } buffer_;
+};
+
+// The whole file as text, in one block of its size (a stream read into an ostringstream grows its
+// buffer by doubling, and str() copies it once more).
+std::string file_text(const std::filesystem::path& file, const std::string& source) {
+  std::ifstream in(file, std::ios::binary | std::ios::ate);
+  const std::streamoff size = in ? static_cast<std::streamoff>(in.tellg()) : -1;
+  std::string text(size > 0 ? static_cast<std::size_t>(size) : 0, '\0');
+  if (size < 0 || !in.seekg(0) || !in.read(text.data(), size))
+    fail(source, "could not be read to its end; check the file");
+  return text;
+}
 
 // Everything after the parse: transfer into an XDE document, units,
 // attributes, the walk over the assembly tree and the findings.
@@ -315,7 +340,7 @@ StepModel read_text(std::string_view text, const std::string& source, const Step
         rewrites.long_strings.empty() ? std::nullopt : detail::shorten_long_strings(given, max_step_token);
     if (shortened) given = *shortened;
     const std::optional<std::string> rewritten = detail::rewrite_shell_wireframes(given);
-    std::istringstream stream{std::string(rewritten ? std::string_view(*rewritten) : given)};
+    TextStream stream(rewritten ? std::string_view(*rewritten) : given);
     if (cut.empty())
       return parse_and_read(source, [&](STEPCAFControl_Reader& reader) {
         return reader.ChangeReader().ReadStream(source.c_str(), stream);
@@ -402,12 +427,8 @@ StepModel read_step(const std::filesystem::path& file, std::size_t long_list) {
     fail(source, "is not a regular file (a folder?). Give the path of a STEP file.");
   spdlog::info("reading STEP file {}", source);
 
-  if (const FileScan scan = scan_file(file, source, long_list); scan.rewrite) {
-    std::ifstream in(file, std::ios::binary);
-    std::ostringstream text;
-    text << in.rdbuf();
-    return read_text(text.str(), source, scan.rewrites);
-  }
+  if (const FileScan scan = scan_file(file, source, long_list); scan.rewrite)
+    return read_text(file_text(file, source), source, scan.rewrites);
 
   return *parse_and_read(source, [&](STEPCAFControl_Reader& reader) { return reader.ReadFile(source.c_str()); });
 }
