@@ -9,6 +9,7 @@
 
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
 #include <random>
@@ -29,7 +30,8 @@ std::string findings(std::string_view text, std::size_t piece, std::size_t long_
     for (std::size_t at = 0; at < text.size(); at += piece) check.feed(text.substr(at, piece));
     check.finish();
     out << "entities " << check.entities() << " doubled quotes " << check.doubled_quotes() << '\n';
-    for (const auto& s : check.long_strings()) out << "long string #" << s.entity << " line " << s.line << " length " << s.length << '\n';
+    for (const auto& s : check.long_strings())
+      out << "long string #" << s.entity << " line " << s.line << " length " << s.length << '\n';
     for (const auto& l : check.long_lists()) {
       out << "long list #" << l.entity << ' ' << l.type << " parameter " << l.parameter << " at " << l.begin << '-'
           << l.end << ':';
@@ -42,14 +44,19 @@ std::string findings(std::string_view text, std::size_t piece, std::size_t long_
   return out.str();
 }
 
+// The test files' texts, in name order (so that the damaged variants below are the same on every machine).
 std::vector<std::string> test_files() {
-  std::vector<std::string> texts;
-  for (const auto& folder : {std::filesystem::path(STEPFRAME_TEST_DATA), std::filesystem::path(STEPFRAME_TEST_DATA) / "fuzz"})
+  const std::filesystem::path data = STEPFRAME_TEST_DATA;
+  std::vector<std::filesystem::path> files;
+  for (const auto& folder : {data, data / "fuzz"})
     for (const auto& entry : std::filesystem::directory_iterator(folder))
-      if (entry.path().extension() == ".stp") {
-        std::ifstream in(entry.path(), std::ios::binary);
-        texts.emplace_back(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
-      }
+      if (entry.path().extension() == ".stp") files.push_back(entry.path());
+  std::sort(files.begin(), files.end());
+  std::vector<std::string> texts;
+  for (const auto& file : files) {
+    std::ifstream in(file, std::ios::binary);
+    texts.emplace_back(std::istreambuf_iterator<char>(in), std::istreambuf_iterator<char>());
+  }
   return texts;
 }
 
@@ -86,7 +93,8 @@ TEST_CASE("the structure check finds the same whatever the pieces, on damaged te
       const std::string reference = findings(text, 1, 3);
       refused += reference.rfind("refused", 0) == 0;
       ++variants;
-      for (std::size_t piece : {std::size_t(3), std::size_t(100), text.size()}) CHECK(findings(text, piece, 3) == reference);
+      for (std::size_t piece : {std::size_t(3), std::size_t(100), text.size()})
+        CHECK(findings(text, piece, 3) == reference);
     }
   // Both outcomes were exercised.
   CHECK(refused > variants / 4);
