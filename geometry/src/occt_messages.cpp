@@ -82,4 +82,8 @@ std::string OcctFailureLog::summary(std::size_t limit) const {
   return joined;
 }
 
+std::vector<std::string> OcctFailureLog::all() const {
+  return static_cast<const CollectingPrinter&>(*printer_).messages();
+}
+
 }  // namespace stepframe::geometry::detail

@@ -36,6 +36,8 @@ class OcctFailureLog {
 
   /// The first `limit` messages joined with "; ", or empty when there were none.
   std::string summary(std::size_t limit = 3) const;
+  /// Every message kept, in the order OCCT sent them.
+  std::vector<std::string> all() const;
 
  private:
   Handle(Message_Printer) printer_;

@@ -10,6 +10,7 @@
 #include "step_long_lists.hpp"
 #include "step_long_strings.hpp"
 #include "step_quotes.hpp"
+#include "step_two_processes.hpp"
 #include "step_attributes.hpp"
 #include "step_kind.hpp"
 #include "step_origins.hpp"
@@ -369,12 +370,21 @@ StepModel read_text(std::string_view text, const std::string& source, const Step
   return std::move(*model);
 }
 
+// read_text after the structure check of the whole text (which throws for a broken one).
+StepModel read_checked_text(std::string_view text, const std::string& source, std::size_t long_list) {
+  StepRewrites rewrites = check_step_structure(text, source, long_list);
+  rewrites.long_lists = detail::restorable_long_lists(std::move(rewrites.long_lists));
+  return read_text(text, source, rewrites);
+}
+
 // What scan_file found: whether OCCT must be given rewritten text (the file
 // mentions a shell-based wireframe, a string holds a doubled quote or is
 // longer than OCCT takes, a list of references is long) and what to rewrite.
 struct FileScan {
-  bool rewrite = false;
+  bool other_rewrites = false;  // anything to rewrite but long lists
   StepRewrites rewrites;
+
+  bool rewrite() const { return other_rewrites || !rewrites.long_lists.empty(); }
 };
 
 // One pass over the file in blocks: checks its exchange structure before OCCT
@@ -408,16 +418,20 @@ FileScan scan_file(const std::filesystem::path& file, const std::string& source,
   if (in.bad()) fail(source, "could not be read to its end; check the file");
   structure.finish();
   StepRewrites rewrites{structure.long_strings(), detail::restorable_long_lists(structure.long_lists())};
-  const bool rewrite =
-      mentions || structure.doubled_quotes() || !rewrites.long_strings.empty() || !rewrites.long_lists.empty();
-  return {rewrite, std::move(rewrites)};
+  return {mentions || structure.doubled_quotes() || !rewrites.long_strings.empty(), std::move(rewrites)};
 }
 
 }  // namespace
 
-StepModel read_step(const std::filesystem::path& file) { return read_step(file, long_step_list); }
+StepModel read_step(const std::filesystem::path& file) { return read_step(file, StepReadOptions{}); }
 
 StepModel read_step(const std::filesystem::path& file, std::size_t long_list) {
+  StepReadOptions options;
+  options.long_list = long_list;
+  return read_step(file, options);
+}
+
+StepModel read_step(const std::filesystem::path& file, const StepReadOptions& options) {
   const std::string source = file.string();
   std::error_code status_error;
   const auto status = std::filesystem::status(file, status_error);
@@ -427,8 +441,16 @@ StepModel read_step(const std::filesystem::path& file, std::size_t long_list) {
     fail(source, "is not a regular file (a folder?). Give the path of a STEP file.");
   spdlog::info("reading STEP file {}", source);
 
-  if (const FileScan scan = scan_file(file, source, long_list); scan.rewrite)
-    return read_text(file_text(file, source), source, scan.rewrites);
+  const FileScan scan = scan_file(file, source, options.long_list);
+  // Every large wireframe has long lists (its representation's items); a small file is read whole.
+  if (options.two_processes_from != 0 && !scan.other_rewrites && !scan.rewrites.long_lists.empty()) {
+    const std::string text = file_text(file, source);
+    const auto read_part = [&](std::string_view part) { return read_checked_text(part, source, options.long_list); };
+    if (std::optional<StepModel> model = detail::read_in_two_processes(text, options.two_processes_from, read_part))
+      return std::move(*model);
+    return read_text(text, source, scan.rewrites);
+  }
+  if (scan.rewrite()) return read_text(file_text(file, source), source, scan.rewrites);
 
   return *parse_and_read(source, [&](STEPCAFControl_Reader& reader) { return reader.ReadFile(source.c_str()); });
 }
@@ -439,9 +461,7 @@ StepModel read_step_text(std::string_view step_text, std::string display_name) {
   if (step_text.find("ISO-10303-21") == std::string_view::npos)
     fail(display_name, fmt::format("is not STEP (ISO 10303-21) text: it does not start with ISO-10303-21;. {}",
                                    export_advice));
-  StepRewrites rewrites = check_step_structure(step_text, display_name);
-  rewrites.long_lists = detail::restorable_long_lists(std::move(rewrites.long_lists));
-  return read_text(step_text, display_name, rewrites);
+  return read_checked_text(step_text, display_name, long_step_list);
 }
 
 }  // namespace stepframe::geometry

@@ -55,28 +55,6 @@ std::string text_of(const std::filesystem::path& file) {
   return text.str();
 }
 
-void require_same(const sg::StepModel& a, const sg::StepModel& b) {
-  REQUIRE(a.edges.size() == b.edges.size());
-  for (std::size_t k = 0; k < a.edges.size(); ++k) {
-    CAPTURE(k);
-    REQUIRE(a.edges[k].start == b.edges[k].start);
-    REQUIRE(a.edges[k].end == b.edges[k].end);
-    REQUIRE(a.edges[k].source.entity == b.edges[k].source.entity);
-    REQUIRE(a.edges[k].source.name == b.edges[k].source.name);
-    REQUIRE(a.edges[k].source.layers == b.edges[k].source.layers);
-    REQUIRE(a.edges[k].source.product == b.edges[k].source.product);
-    REQUIRE(a.edges[k].source.assembly_path == b.edges[k].source.assembly_path);
-    REQUIRE(a.edges[k].curve.size() == b.edges[k].curve.size());
-  }
-  REQUIRE(a.points.size() == b.points.size());
-  REQUIRE(a.length_unit == b.length_unit);
-  REQUIRE(a.diagnostics.size() == b.diagnostics.size());
-  for (std::size_t k = 0; k < a.diagnostics.size(); ++k) {
-    REQUIRE(a.diagnostics[k].code == b.diagnostics[k].code);
-    REQUIRE(a.diagnostics[k].message == b.diagnostics[k].message);
-  }
-}
-
 std::string refusal(const std::filesystem::path& file, std::size_t long_list) {
   try {
     sg::read_step(file, long_list);
@@ -112,7 +90,7 @@ TEST_CASE("a file with long lists of references reads the same with the lists cu
 
   const sg::StepModel cut = sg::read_step(file, 100);
   const sg::StepModel parsed_whole = sg::read_step(file, whole);
-  require_same(cut, parsed_whole);
+  sg::test::require_same_model(cut, parsed_whole);
   REQUIRE(cut.edges.size() == lines.size());
   // And what was written comes back: every edge its line's name and layer.
   std::size_t beams = 0;

@@ -7,6 +7,7 @@
 #include "stepframe/geometry/wireframe.hpp"
 
 #include <Eigen/Core>
+#include <catch2/catch.hpp>
 
 #include <algorithm>
 #include <filesystem>
@@ -53,6 +54,46 @@ inline const WireMember& member(const Wireframe& frame, const std::string& entit
                                [&](const WireMember& m) { return m.source.entity == entity; });
   if (it == frame.members.end()) throw std::runtime_error("no member made from " + entity);
   return *it;
+}
+
+/// Fails the running Catch2 test unless the two models are the same, bit for bit: edges in order with
+/// their attributes and curve samples, labelled points, findings, units.
+inline void require_same_model(const StepModel& a, const StepModel& b) {
+  REQUIRE(a.file == b.file);
+  REQUIRE(a.length_unit == b.length_unit);
+  REQUIRE(a.metres_per_unit == b.metres_per_unit);
+  const auto same_source = [](const SourceInfo& x, const SourceInfo& y) {
+    return x.entity == y.entity && x.name == y.name && x.layers == y.layers && x.product == y.product &&
+           x.colour == y.colour && x.assembly_path == y.assembly_path;
+  };
+  REQUIRE(a.edges.size() == b.edges.size());
+  for (std::size_t k = 0; k < a.edges.size(); ++k) {
+    CAPTURE(k, a.edges[k].source.entity, b.edges[k].source.entity);
+    REQUIRE(a.edges[k].start == b.edges[k].start);
+    REQUIRE(a.edges[k].end == b.edges[k].end);
+    REQUIRE(same_source(a.edges[k].source, b.edges[k].source));
+    REQUIRE(a.edges[k].curve.size() == b.edges[k].curve.size());
+    for (std::size_t i = 0; i < a.edges[k].curve.size(); ++i) {
+      REQUIRE(a.edges[k].curve[i].point == b.edges[k].curve[i].point);
+      REQUIRE(a.edges[k].curve[i].turn == b.edges[k].curve[i].turn);
+    }
+  }
+  REQUIRE(a.points.size() == b.points.size());
+  for (std::size_t k = 0; k < a.points.size(); ++k) {
+    CAPTURE(k);
+    REQUIRE(a.points[k].at == b.points[k].at);
+    REQUIRE(same_source(a.points[k].source, b.points[k].source));
+  }
+  REQUIRE(a.diagnostics.size() == b.diagnostics.size());
+  for (std::size_t k = 0; k < a.diagnostics.size(); ++k) {
+    CAPTURE(k, a.diagnostics[k].message);
+    REQUIRE(a.diagnostics[k].severity == b.diagnostics[k].severity);
+    REQUIRE(a.diagnostics[k].code == b.diagnostics[k].code);
+    REQUIRE(a.diagnostics[k].message == b.diagnostics[k].message);
+    REQUIRE(a.diagnostics[k].entities == b.diagnostics[k].entities);
+    REQUIRE(a.diagnostics[k].at.has_value() == b.diagnostics[k].at.has_value());
+    if (a.diagnostics[k].at) REQUIRE(*a.diagnostics[k].at == *b.diagnostics[k].at);
+  }
 }
 
 /// A fresh folder under the system temporary folder, removed afterwards.

@@ -4,6 +4,7 @@
 
 #include "stepframe/geometry/diagnostic.hpp"
 #include "stepframe/geometry/source_info.hpp"
+#include "stepframe/geometry/step_structure.hpp"
 
 #include <Eigen/Core>
 
@@ -93,9 +94,25 @@ class StepReadError : public std::runtime_error {
 /// usable edge. OCCT's STEP translator keeps process-wide settings and
 /// messages: do not read or write STEP files from several threads at once.
 StepModel read_step(const std::filesystem::path& file);
-/// As read_step, with the lists of references of `long_list` items or more
-/// cut before OCCT parses the file and put back after (long_step_list in
-/// step_structure.hpp; SIZE_MAX: none cut). The result is the same either way.
+/// How read_step goes about a file; the model read is the same whatever they say.
+struct StepReadOptions {
+  /// Lists of references of this many items or more are cut before OCCT parses the file and put back
+  /// after (step_structure.hpp; SIZE_MAX: none cut).
+  std::size_t long_list = long_step_list;
+  /// When not 0: a file whose members (curve sets or curves of one representation) number at least
+  /// this many is read in two processes at once, this one and a child made with fork(), each reading
+  /// about half the members (a 10,000-member file in about two thirds of the time). The file's
+  /// structure must let the halves be read apart and joined exactly (one representation lists the
+  /// members, placed once; members share no entity; no findings about single members); otherwise,
+  /// and whenever the child fails, the file is read whole in this process. Only for a process that
+  /// runs no other thread which could hold a lock the child needs (the command line sets it); 0 (the
+  /// default) reads in this process only.
+  std::size_t two_processes_from = 0;
+};
+
+/// As read_step, the way `options` say.
+StepModel read_step(const std::filesystem::path& file, const StepReadOptions& options);
+/// As read_step with only `long_list` set in the options (SIZE_MAX: no list cut).
 StepModel read_step(const std::filesystem::path& file, std::size_t long_list);
 
 /// The same for the text of a STEP file held in memory (ISO 10303-21).
