@@ -67,7 +67,9 @@ Analysis analyse_project(const std::filesystem::path& project_file, const RunCon
   auto pictures = project.outputs.pictures ? std::make_shared<viz::PictureRenderer>() : nullptr;
 
   control.report("geometry", 0);
-  geometry::StepModel step = geometry::read_step(project.model);
+  geometry::StepReadOptions read;
+  read.two_processes_from = control.two_process_read_from;
+  geometry::StepModel step = geometry::read_step(project.model, read);
   Analysis a = analyse_model(std::move(project), std::move(step), control);
   a.pictures = std::move(pictures);
   return a;

@@ -6,6 +6,7 @@
 #include <spdlog/logger.h>
 
 #include <atomic>
+#include <cstddef>
 #include <functional>
 #include <memory>
 #include <stdexcept>
@@ -58,6 +59,11 @@ struct RunControl {
   /// own meanwhile (several runs at once) leaves this off; the command line
   /// turns it on unless OPENBLAS_NUM_THREADS says otherwise.
   bool idle_cores_for_factorisation = false;
+  /// When not 0, a STEP file of this many members or more may be read in two processes at once (this
+  /// one and a child made with fork(); geometry::StepReadOptions::two_processes_from), which needs a
+  /// process with no other thread that could hold a lock the child takes: the command line sets it,
+  /// a host leaves it at 0.
+  std::size_t two_process_read_from = 0;
   /// The most memory [bytes] a pending buckling analysis (its factorised
   /// stiffness) may hold for the checks to run beside it; above it the checks
   /// wait for it, so that their memory and the factor's do not add up (some
