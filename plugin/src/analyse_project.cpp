@@ -62,14 +62,15 @@ Analysis analyse_project(const std::filesystem::path& project_file, const RunCon
   control.report("project", 0);
   auto project = read_project(project_file);
   spdlog::info("project {}: model {}", project_file.string(), project.model.string());
-  // The report's pictures need an offscreen OpenGL context, whose first preparation takes about a third
-  // of a second: it is prepared on the spare core while the STEP file is read on one.
-  auto pictures = project.outputs.pictures ? std::make_shared<viz::PictureRenderer>() : nullptr;
-
   control.report("geometry", 0);
   geometry::StepReadOptions read;
   read.two_processes_from = control.two_process_read_from;
   geometry::StepModel step = geometry::read_step(project.model, read);
+  // The report's pictures need an offscreen OpenGL context, whose first preparation takes about a third
+  // of a second: it is prepared on the core the factorisation leaves idle (its BLAS gains nothing from a
+  // second thread at 10,000 members), not during the read, which uses both cores for a large file (and
+  // forks: no other thread of the run is then at work).
+  auto pictures = project.outputs.pictures ? std::make_shared<viz::PictureRenderer>() : nullptr;
   Analysis a = analyse_model(std::move(project), std::move(step), control);
   a.pictures = std::move(pictures);
   return a;
