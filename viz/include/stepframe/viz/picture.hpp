@@ -73,8 +73,8 @@ std::vector<Picture> draw_frame_pictures(const analysis::FrameModel& model, cons
 /// starts preparing the moment it is made, on a thread of its own: Mesa's
 /// software renderer takes about a quarter of a second to load the first time
 /// in a process, and VTK about a tenth to compile its shaders for a new
-/// window. A run makes its renderer before it reads the STEP file, so the
-/// report's pictures wait for neither. Where no context can be had, pictures
+/// window. A run makes its renderer once it has read the STEP file (the read
+/// may use both cores), so the report's pictures wait for neither. Where no context can be had, pictures
 /// are drawn on the image canvas.
 class PictureRenderer {
  public:
