@@ -68,6 +68,7 @@ struct Variant {
   bool style_across = false;        // one styled item names a member of each half
   bool second_usage = false;        // a second assembly usage of the part
   bool loose_curve = false;         // a curve outside the members' representation
+  bool broken_line = false;         // a line of the second half names a direction for its vector
 };
 
 // An invented yard of `n` posts in one part placed in an assembly, in millimetres: every third post an
@@ -133,7 +134,8 @@ SHAPE_REPRESENTATION_RELATIONSHIP() );
           "#{} = TRIMMED_CURVE('',#{},({}),(#{}),.T.,.CARTESIAN.);\n#{} = LINE('',#{},#{});\n"
           "#{} = CARTESIAN_POINT('',({},0.,0.));\n#{} = VECTOR('',#{},1.);\n#{} = DIRECTION('',(0.,0.,1.));\n"
           "#{} = CARTESIAN_POINT('foot {}',({},0.,0.));\n#{} = CARTESIAN_POINT('',({},0.,{}));\n",
-          b + 1, b + 2, foot, b + 7, b + 2, b + 3, b + 4, b + 3, x, b + 4, b + 5, b + 5, b + 6, k, x, b + 7, x, top);
+          b + 1, b + 2, foot, b + 7, b + 2, b + 3, v.broken_line && k == n - 2 ? b + 5 : b + 4, b + 3, x, b + 4, b + 5,
+          b + 5, b + 6, k, x, b + 7, x, top);
     }
     if (k % 4 == 1) {
       styled.push_back(fmt::format("#{}", b + 10));
@@ -236,6 +238,21 @@ TEST_CASE("a frame whose halves cannot be read apart exactly is read whole", "[s
       CHECK(std::any_of(model.diagnostics.begin(), model.diagnostics.end(),
                         [](const sg::Diagnostic& d) { return d.code == "zero-length-edge"; }));
   }
+  // The child's half fails to read (OCCT refuses a line of it) while this process's half reads: the file
+  // is read whole, and refused as the whole read refuses it, word for word.
+  Variant broken;
+  broken.broken_line = true;
+  const std::string text = yard(30, broken);
+  REQUIRE(sd::step_split_part(text, 20, 1).has_value());
+  const auto file = write(scratch.path() / "broken.stp", text);
+  std::string refused;
+  try {
+    sg::read_step(file);
+  } catch (const sg::StepReadError& e) {
+    refused = e.what();
+  }
+  CHECK_THAT(refused, Catch::Contains("OCCT could not read entity"));
+  CHECK_THROWS_WITH(read_split(file, 20), refused);
 }
 
 TEST_CASE("a large written wireframe is read in two processes as it is read whole", "[step][two-processes]") {
