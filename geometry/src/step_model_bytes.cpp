@@ -8,6 +8,7 @@ namespace stepframe::geometry::detail {
 
 namespace {
 
+// Appends values as their bytes; sizes as 64-bit counts.
 class Writer {
  public:
   template <class T>
@@ -15,22 +16,25 @@ class Writer {
     static_assert(std::is_trivially_copyable_v<T>);
     out_.append(reinterpret_cast<const char*>(&value), sizeof value);
   }
-  void text(std::string_view s) {
+  void operator()(double value) { raw(value); }
+  void operator()(Severity value) { raw(static_cast<std::int32_t>(value)); }
+  void operator()(const Eigen::Vector3d& v) { out_.append(reinterpret_cast<const char*>(v.data()), 3 * sizeof(double)); }
+  void operator()(const std::string& s) {
     raw(static_cast<std::uint64_t>(s.size()));
     out_.append(s);
   }
-  void vector(const Eigen::Vector3d& v) { out_.append(reinterpret_cast<const char*>(v.data()), 3 * sizeof(double)); }
-  void texts(const std::vector<std::string>& list) {
-    raw(static_cast<std::uint64_t>(list.size()));
-    for (const std::string& s : list) text(s);
+  void operator()(const std::filesystem::path& p) { (*this)(p.string()); }
+  void operator()(const std::optional<Eigen::Vector3d>& v) {
+    raw(static_cast<std::uint8_t>(v.has_value()));
+    if (v) (*this)(*v);
   }
-  void source(const SourceInfo& s) {
-    text(s.entity);
-    text(s.name);
-    texts(s.layers);
-    text(s.product);
-    text(s.colour);
-    text(s.assembly_path);
+  void operator()(const std::vector<std::string>& list) {
+    list_of(list, [&](const std::string& s) { (*this)(s); });
+  }
+  template <class T, class Each>
+  void list_of(const std::vector<T>& list, Each each) {
+    raw(static_cast<std::uint64_t>(list.size()));
+    for (const T& item : list) each(item);
   }
   std::string take() { return std::move(out_); }
 
@@ -38,52 +42,52 @@ class Writer {
   std::string out_;
 };
 
-// Reads what Writer wrote; every read checks the length left, and a short or overlong message fails.
+// Reads what Writer wrote into the same fields; a short or overlong message fails (ok() false).
 class Reader {
  public:
   explicit Reader(std::string_view in) : in_(in) {}
-  bool ok() const { return ok_; }
   bool at_end() const { return ok_ && in_.empty(); }
 
   template <class T>
   T raw() {
     T value{};
-    if (!take(sizeof value)) return value;
-    std::memcpy(&value, in_.data() - sizeof value, sizeof value);
+    if (take(sizeof value)) std::memcpy(&value, in_.data() - sizeof value, sizeof value);
     return value;
   }
+  void operator()(double& value) { value = raw<double>(); }
+  void operator()(Severity& value) { value = static_cast<Severity>(raw<std::int32_t>()); }
+  void operator()(Eigen::Vector3d& v) {
+    if (take(3 * sizeof(double))) std::memcpy(v.data(), in_.data() - 3 * sizeof(double), 3 * sizeof(double));
+  }
+  void operator()(std::string& s) {
+    const std::size_t n = count();
+    if (take(n)) s.assign(in_.data() - n, n);
+  }
+  void operator()(std::filesystem::path& p) {
+    std::string s;
+    (*this)(s);
+    p = s;
+  }
+  void operator()(std::optional<Eigen::Vector3d>& v) {
+    v.reset();
+    if (raw<std::uint8_t>() == 0) return;
+    (*this)(v.emplace());
+  }
+  void operator()(std::vector<std::string>& list) {
+    list_of(list, [&](std::string& s) { (*this)(s); });
+  }
+  template <class T, class Each>
+  void list_of(std::vector<T>& list, Each each) {
+    list.resize(count());
+    for (T& item : list) each(item);
+  }
+
+ private:
   std::size_t count() {
     const auto n = raw<std::uint64_t>();
     if (n > in_.size()) ok_ = false;  // every item takes at least one byte
     return ok_ ? static_cast<std::size_t>(n) : 0;
   }
-  std::string text() {
-    const std::size_t n = count();
-    if (!take(n)) return {};
-    return std::string(in_.data() - n, n);
-  }
-  Eigen::Vector3d vector() {
-    Eigen::Vector3d v = Eigen::Vector3d::Zero();
-    if (take(3 * sizeof(double))) std::memcpy(v.data(), in_.data() - 3 * sizeof(double), 3 * sizeof(double));
-    return v;
-  }
-  std::vector<std::string> texts() {
-    std::vector<std::string> list(count());
-    for (std::string& s : list) s = text();
-    return list;
-  }
-  SourceInfo source() {
-    SourceInfo s;
-    s.entity = text();
-    s.name = text();
-    s.layers = texts();
-    s.product = text();
-    s.colour = text();
-    s.assembly_path = text();
-    return s;
-  }
-
- private:
   bool take(std::size_t n) {
     if (!ok_ || n > in_.size()) return ok_ = false;
     in_.remove_prefix(n);
@@ -93,80 +97,63 @@ class Reader {
   bool ok_ = true;
 };
 
+// Every field, in one order for both directions (`Read` and `Source` are const for the writer).
+template <class Io, class Source>
+void source_fields(Io& io, Source& s) {
+  io(s.entity);
+  io(s.name);
+  io(s.layers);
+  io(s.product);
+  io(s.colour);
+  io(s.assembly_path);
+}
+
+template <class Io, class Read>
+void fields(Io& io, Read& read) {
+  auto& m = read.model;
+  io(m.file);
+  io(m.length_unit);
+  io(m.metres_per_unit);
+  io.list_of(m.edges, [&](auto& e) {
+    io(e.start);
+    io(e.end);
+    source_fields(io, e.source);
+    io.list_of(e.curve, [&](auto& s) {
+      io(s.point);
+      io(s.turn);
+    });
+  });
+  io.list_of(m.points, [&](auto& p) {
+    io(p.at);
+    source_fields(io, p.source);
+  });
+  io.list_of(m.diagnostics, [&](auto& d) {
+    io(d.severity);
+    io(d.code);
+    io(d.message);
+    io(d.entities);
+    io(d.at);
+  });
+  io(read.occt_messages);
+}
+
 constexpr std::uint64_t tag = 0x5354'4550'4652'4d31ULL;  // marks a message of this layout
 
 }  // namespace
 
 std::string to_bytes(const ModelWithMessages& read) {
-  const StepModel& m = read.model;
   Writer w;
   w.raw(tag);
-  w.text(m.file.string());
-  w.text(m.length_unit);
-  w.raw(m.metres_per_unit);
-  w.raw(static_cast<std::uint64_t>(m.edges.size()));
-  for (const WireEdge& e : m.edges) {
-    w.vector(e.start);
-    w.vector(e.end);
-    w.source(e.source);
-    w.raw(static_cast<std::uint64_t>(e.curve.size()));
-    for (const CurveSample& s : e.curve) {
-      w.vector(s.point);
-      w.raw(s.turn);
-    }
-  }
-  w.raw(static_cast<std::uint64_t>(m.points.size()));
-  for (const LabelledPoint& p : m.points) {
-    w.vector(p.at);
-    w.source(p.source);
-  }
-  w.raw(static_cast<std::uint64_t>(m.diagnostics.size()));
-  for (const Diagnostic& d : m.diagnostics) {
-    w.raw(static_cast<std::int32_t>(d.severity));
-    w.text(d.code);
-    w.text(d.message);
-    w.texts(d.entities);
-    w.raw(static_cast<std::uint8_t>(d.at.has_value()));
-    if (d.at) w.vector(*d.at);
-  }
-  w.texts(read.occt_messages);
+  fields(w, read);
   w.raw(tag);
   return w.take();
 }
 
 std::optional<ModelWithMessages> from_bytes(std::string_view bytes) {
   Reader r(bytes);
-  ModelWithMessages read;
-  StepModel& m = read.model;
   if (r.raw<std::uint64_t>() != tag) return std::nullopt;
-  m.file = r.text();
-  m.length_unit = r.text();
-  m.metres_per_unit = r.raw<double>();
-  m.edges.resize(r.count());
-  for (WireEdge& e : m.edges) {
-    e.start = r.vector();
-    e.end = r.vector();
-    e.source = r.source();
-    e.curve.resize(r.count());
-    for (CurveSample& s : e.curve) {
-      s.point = r.vector();
-      s.turn = r.raw<double>();
-    }
-  }
-  m.points.resize(r.count());
-  for (LabelledPoint& p : m.points) {
-    p.at = r.vector();
-    p.source = r.source();
-  }
-  m.diagnostics.resize(r.count());
-  for (Diagnostic& d : m.diagnostics) {
-    d.severity = static_cast<Severity>(r.raw<std::int32_t>());
-    d.code = r.text();
-    d.message = r.text();
-    d.entities = r.texts();
-    if (r.raw<std::uint8_t>() != 0) d.at = r.vector();
-  }
-  read.occt_messages = r.texts();
+  ModelWithMessages read;
+  fields(r, read);
   if (r.raw<std::uint64_t>() != tag || !r.at_end()) return std::nullopt;
   return read;
 }
