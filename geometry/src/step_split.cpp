@@ -71,7 +71,8 @@ std::optional<Scan> scan(std::string_view t) {
   auto digits = [&](std::uint64_t& value) {
     const std::size_t from = i;
     value = 0;
-    while (i < n && t[i] >= '0' && t[i] <= '9' && i - from < 18) value = value * 10 + static_cast<std::uint64_t>(t[i++] - '0');
+    while (i < n && t[i] >= '0' && t[i] <= '9' && i - from < 18)
+      value = value * 10 + static_cast<std::uint64_t>(t[i++] - '0');
     return i > from;
   };
   while (i < n) {
@@ -181,7 +182,8 @@ bool is_set(std::string_view type) { return type == "GEOMETRIC_CURVE_SET" || typ
 // Whether an entity outside the members could become an edge, a point or a body when OCCT reads it.
 bool could_be_shape(std::string_view type, std::string_view text) {
   if (type.empty()) {  // a complex instance: contexts, units and relationships only
-    for (std::string_view word : {"CURVE", "SURFACE", "EDGE", "VERTEX", "SHAPE_REPRESENTATION(", "SHAPE_REPRESENTATION ("})
+    for (std::string_view word :
+         {"CURVE", "SURFACE", "EDGE", "VERTEX", "SHAPE_REPRESENTATION(", "SHAPE_REPRESENTATION ("})
       if (text.find(word) != std::string_view::npos) return true;
     return false;
   }
@@ -227,7 +229,9 @@ std::optional<std::string> step_split_part(std::string_view text, std::size_t mi
   auto type_of = [&](std::uint64_t k) { return s.entities[k].type; };
   // A list of references standing as one parameter of a simple instance: the only kind a part shortens.
   auto plain = [&](std::uint32_t l) { return l != none && s.lists[l].pure && s.lists[l].depth == 2; };
-  auto body_of = [&](std::size_t k) { return text.substr(s.entities[k].begin, s.entities[k].end - s.entities[k].begin); };
+  auto body_of = [&](std::size_t k) {
+    return text.substr(s.entities[k].begin, s.entities[k].end - s.entities[k].begin);
+  };
 
   // The representation with the longest plain list of references: the members' list.
   std::vector<std::uint32_t> list_refs(s.lists.size(), 0);
@@ -280,7 +284,8 @@ std::optional<std::string> step_split_part(std::string_view text, std::size_t mi
       if (owner[e] == half_of) continue;
       if (owner[e] != 0 || e == holder) return refuse("members of the two halves share entities");
       owner[e] = half_of;
-      for (std::uint32_t r = s.entities[e].first_ref; r < s.ref_end(e); ++r) stack.push_back(static_cast<std::uint32_t>(s.refs[r].target));
+      for (std::uint32_t r = s.entities[e].first_ref; r < s.ref_end(e); ++r)
+        stack.push_back(static_cast<std::uint32_t>(s.refs[r].target));
     }
   }
 
@@ -292,14 +297,16 @@ std::optional<std::string> step_split_part(std::string_view text, std::size_t mi
     usages += type == "NEXT_ASSEMBLY_USAGE_OCCURRENCE" ? 1 : 0;
     if (owner[k] != 0 || k == holder) continue;
     if (type == "SHAPE_DEFINITION_REPRESENTATION")
-      for (std::uint32_t r = s.entities[k].first_ref; r < s.ref_end(k); ++r) definitions += s.refs[r].target == holder ? 1 : 0;
+      for (std::uint32_t r = s.entities[k].first_ref; r < s.ref_end(k); ++r)
+        definitions += s.refs[r].target == holder ? 1 : 0;
     if (could_be_shape(type, body_of(k))) return refuse("an entity outside the members could be read as a shape");
     if (ends_with(type, "SHAPE_REPRESENTATION"))
       for (std::uint32_t r = s.entities[k].first_ref; r < s.ref_end(k); ++r)
         if (plain(s.refs[r].list) && type_of(s.refs[r].target) != "AXIS2_PLACEMENT_3D")
           return refuse("another shape representation lists items");
   }
-  if (products > 2 || usages > 1 || definitions > 1) return refuse("the members' representation may be placed more than once");
+  if (products > 2 || usages > 1 || definitions > 1)
+    return refuse("the members' representation may be placed more than once");
 
   // Where every other entity goes, from what it names (references first: an explicit stack).
   std::vector<Place> place(count, Place::unknown);
@@ -330,8 +337,10 @@ std::optional<std::string> step_split_part(std::string_view text, std::size_t mi
         touched |= h;
         listed = listed && (h == 0 || plain(s.refs[r].list));
       }
-      if (touched == 3 && !listed) return refuse(fmt::format("#{} names members of both halves outside a list", s.entities[e].id));
-      place[e] = touched == 0 ? Place::both : touched == 1 ? Place::first : touched == 2 ? Place::second : Place::filtered;
+      if (touched == 3 && !listed)
+        return refuse(fmt::format("#{} names members of both halves outside a list", s.entities[e].id));
+      constexpr std::array<Place, 4> by_halves{Place::both, Place::first, Place::second, Place::filtered};
+      place[e] = by_halves[touched];
       walk.pop_back();
     }
   }
