@@ -147,11 +147,14 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
 // `input` is a STEP file or a project file; a tolerance given on the command
 // line overrides the project's.
 int inspect_command(const std::filesystem::path& input, std::optional<double> tolerance_mm, bool json) {
+  stepframe::geometry::StepReadOptions read;
+  read.two_processes_from = two_process_read_from;
   try {
     const auto inspection =
         stepframe::is_project_file(input)
-            ? stepframe::inspect_project(input, tolerance_mm ? std::optional<double>(*tolerance_mm * 1e-3) : std::nullopt)
-            : stepframe::inspect_step(input, tolerance_mm.value_or(1.0) * 1e-3);
+            ? stepframe::inspect_project(
+                  input, tolerance_mm ? std::optional<double>(*tolerance_mm * 1e-3) : std::nullopt, read)
+            : stepframe::inspect_step(input, tolerance_mm.value_or(1.0) * 1e-3, read);
     if (json) std::cout << stepframe::inspection_json(inspection).dump(1) << '\n';
     else std::cout << stepframe::inspection_text(inspection) << "\n" << stepframe::caution << "\n";
     return 0;

@@ -60,16 +60,18 @@ std::vector<std::string> missing(const UnassignedMember& u) {
 
 }  // namespace
 
-Inspection inspect_step(const std::filesystem::path& file, double merge_tolerance) {
+Inspection inspect_step(const std::filesystem::path& file, double merge_tolerance,
+                        const geometry::StepReadOptions& read) {
   geometry::WireframeOptions options;
   options.merge_tolerance = merge_tolerance;
-  return inspect_read(geometry::read_step(file), options);
+  return inspect_read(geometry::read_step(file, read), options);
 }
 
-Inspection inspect_project(const std::filesystem::path& project_file, std::optional<double> merge_tolerance) {
+Inspection inspect_project(const std::filesystem::path& project_file, std::optional<double> merge_tolerance,
+                           const geometry::StepReadOptions& read) {
   Project project = read_project(project_file);
   if (merge_tolerance) project.merge_tolerance = *merge_tolerance;
-  Inspection inspection = inspect_read(geometry::read_step(project.model), wireframe_options(project));
+  Inspection inspection = inspect_read(geometry::read_step(project.model, read), wireframe_options(project));
   inspection.project = project_file;
   inspection.properties = member_properties(project, inspection.wireframe);
   for (std::size_t m = 0; m < inspection.properties.size(); ++m) {

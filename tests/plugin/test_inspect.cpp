@@ -7,6 +7,8 @@
 #include "stepframe/project_reader.hpp"
 #include "test_helpers.hpp"
 
+#include "building_model.hpp"
+
 #include <catch2/catch.hpp>
 #include <nlohmann/json.hpp>
 
@@ -186,4 +188,21 @@ TEST_CASE("inspect through a project shows each member's section and material an
   CHECK(j["supports"][1]["nodes"].empty());
   CHECK_THAT(j["supports"][1]["problem"].get<std::string>(), Contains("point_name 'BASE'"));
   CHECK(j["warnings"].size() == 4);
+}
+
+TEST_CASE("inspecting a large frame gives the same whether its file is read in one process or in two",
+          "[inspect][two-processes]") {
+  // The benchmark's generated building (bench/building_model.hpp), 1,000 members or more.
+  test::ScratchDir dir;
+  REQUIRE(stepframe::bench::write_building_model(dir.path(), stepframe::bench::building_size_for(1200)) >= 1000);
+  const auto file = dir / "building.stp";
+  const std::string whole = inspection_json(inspect_step(file)).dump(1);
+  geometry::StepReadOptions two;
+  two.two_processes_from = 1000;
+  CHECK(inspection_json(inspect_step(file, 1e-3, two)).dump(1) == whole);
+  // The command line reads it in two processes (its log says so), and prints the same JSON.
+  const auto r = test::run_stepframe("-v inspect --json \"" + file.string() + "\"", dir);
+  CHECK(r.status == 0);
+  CHECK_THAT(r.err, Contains("read in two processes"));
+  CHECK(r.out == whole + "\n");
 }

@@ -2,6 +2,7 @@
 // `stepframe inspect`: what a STEP file holds, before any project exists or
 // through one (then also which members its rules leave without properties).
 
+#include "stepframe/geometry/step_reader.hpp"
 #include "stepframe/geometry/wireframe.hpp"
 #include "stepframe/model_builder.hpp"
 
@@ -37,8 +38,10 @@ struct Inspection {
   std::vector<std::string> warnings;
 };
 
-/// Reads the file and merges its nodes. Throws geometry::StepReadError.
-Inspection inspect_step(const std::filesystem::path& file, double merge_tolerance = 1e-3);
+/// Reads the file (the way `read` says: geometry::StepReadOptions) and merges its nodes. Throws
+/// geometry::StepReadError.
+Inspection inspect_step(const std::filesystem::path& file, double merge_tolerance = 1e-3,
+                        const geometry::StepReadOptions& read = {});
 
 /// Reads a project file and its STEP file, builds the wireframe with the
 /// project's options (`merge_tolerance` overrides the project's when given),
@@ -47,7 +50,8 @@ Inspection inspect_step(const std::filesystem::path& file, double merge_toleranc
 /// InputError for a bad project file or a rule naming an unknown section or
 /// material, geometry::StepReadError for a bad STEP file.
 Inspection inspect_project(const std::filesystem::path& project_file,
-                           std::optional<double> merge_tolerance = std::nullopt);
+                           std::optional<double> merge_tolerance = std::nullopt,
+                           const geometry::StepReadOptions& read = {});
 
 /// True for a path that names a project file (.yaml or .yml) rather than a STEP file.
 bool is_project_file(const std::filesystem::path& path);
