@@ -8,7 +8,10 @@
 
 #include <algorithm>
 #include <cerrno>
+#include <chrono>
 #include <csignal>
+#include <optional>
+#include <string>
 #include <poll.h>
 #include <sys/types.h>
 #include <sys/wait.h>
