@@ -126,10 +126,10 @@ std::optional<StepModel> read_in_two_processes(std::string_view text, std::size_
   }
 
   const Clock::time_point start = Clock::now();
-  const std::optional<std::string> part = step_split_part(text, min_members, 0);
-  if (!part) return std::nullopt;
   StepModel first;
   try {
+    const std::optional<std::string> part = step_split_part(text, min_members, 0);
+    if (!part) return std::nullopt;
     first = read_part(*part);
   } catch (const std::exception& e) {
     spdlog::debug("the first half of the STEP text failed to read ({}); reading the whole text", e.what());
