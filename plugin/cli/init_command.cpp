@@ -293,7 +293,7 @@ std::string starter_project(const Inspection& in, const std::filesystem::path& p
 }
 
 int init_command(const std::filesystem::path& model, std::filesystem::path project_file, bool force,
-                 double tolerance_mm) {
+                 double tolerance_mm, const geometry::StepReadOptions& read) {
   if (project_file.empty()) project_file = std::filesystem::path(model).replace_extension(".yaml");
   if (std::filesystem::exists(project_file) && !force) {
     spdlog::error("{}: the file exists already; choose another name with --output or overwrite it with --force",
@@ -301,7 +301,7 @@ int init_command(const std::filesystem::path& model, std::filesystem::path proje
     return static_cast<int>(ExitStatus::bad_input);
   }
   try {
-    const auto inspection = inspect_step(model, tolerance_mm * 1e-3);
+    const auto inspection = inspect_step(model, tolerance_mm * 1e-3, read);
     const auto text = starter_project(inspection, project_file);
     const auto temporary = project_file.string() + ".tmp";
     {

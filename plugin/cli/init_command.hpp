@@ -21,8 +21,8 @@ std::string starter_project(const Inspection& inspection, const std::filesystem:
 
 /// Writes the starter project for `model` to `project_file` (default: the
 /// model's name with .yaml, beside it). Refuses to overwrite an existing file
-/// unless `force`. Returns the exit status (0, or 2 for bad input).
+/// unless `force`; reads the model the way `read` says. Returns the exit status (0, or 2 for bad input).
 int init_command(const std::filesystem::path& model, std::filesystem::path project_file, bool force,
-                 double tolerance_mm);
+                 double tolerance_mm, const geometry::StepReadOptions& read);
 
 }  // namespace stepframe::cli

@@ -146,9 +146,8 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
 
 // `input` is a STEP file or a project file; a tolerance given on the command
 // line overrides the project's.
-int inspect_command(const std::filesystem::path& input, std::optional<double> tolerance_mm, bool json) {
-  stepframe::geometry::StepReadOptions read;
-  read.two_processes_from = two_process_read_from;
+int inspect_command(const std::filesystem::path& input, std::optional<double> tolerance_mm, bool json,
+                    const stepframe::geometry::StepReadOptions& read) {
   try {
     const auto inspection =
         stepframe::is_project_file(input)
@@ -295,6 +294,9 @@ int main(int argc, char** argv) {
   }
   spdlog::set_level(quiet ? spdlog::level::warn : verbose ? spdlog::level::debug : spdlog::level::info);
 
+  // The STEP read of the commands that read a model themselves (run passes its limit through RunControl).
+  stepframe::geometry::StepReadOptions read;
+  read.two_processes_from = two_process_read_from;
   try {
     if (*run)
       return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk,
@@ -303,8 +305,8 @@ int main(int argc, char** argv) {
     if (*suggest) return stepframe::cli::suggest_command(suggest_options);
     if (*sections) return stepframe::cli::sections_command(sections_options);
     if (*batch) return stepframe::cli::batch_command(batch_options, terminal && !quiet);
-    if (*init) return stepframe::cli::init_command(init_model, init_output, init_force, init_tolerance_mm);
-    return inspect_command(model, tolerance_mm, inspect_json);
+    if (*init) return stepframe::cli::init_command(init_model, init_output, init_force, init_tolerance_mm, read);
+    return inspect_command(model, tolerance_mm, inspect_json, read);
   } catch (const std::exception& e) {
     spdlog::critical("internal error: {} (please report it with the input files)", e.what());
     return internal_error;

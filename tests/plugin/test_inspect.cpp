@@ -205,4 +205,12 @@ TEST_CASE("inspecting a large frame gives the same whether its file is read in o
   CHECK(r.status == 0);
   CHECK_THAT(r.err, Contains("read in two processes"));
   CHECK(r.out == whole + "\n");
+  // So does `stepframe init`; the starter project it writes reads back (in one process) to the same frame.
+  const auto init = test::run_stepframe("-v init \"" + file.string() + "\"", dir);
+  CHECK(init.status == 0);
+  CHECK_THAT(init.err, Contains("read in two processes"));
+  const Inspection back = inspect_project(dir / "building.yaml");
+  const Inspection alone = inspect_step(file);
+  CHECK(back.wireframe.members.size() == alone.wireframe.members.size());
+  CHECK(back.wireframe.nodes.size() == alone.wireframe.nodes.size());
 }
