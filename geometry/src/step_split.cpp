@@ -240,14 +240,15 @@ std::optional<std::string> step_split_part(std::string_view text, std::size_t mi
     return text.substr(s.entities[k].begin, s.entities[k].end - s.entities[k].begin);
   };
 
-  // The representation with the longest plain list of references: the members' list.
+  // The shape representation with the longest plain list of references: the members' list (not a
+  // presentation representation, whose list of styled items can be as long).
   std::vector<std::uint32_t> list_refs(s.lists.size(), 0);
   for (const Ref& r : s.refs)
     if (plain(r.list)) ++list_refs[r.list];
   std::size_t holder = count;
   std::uint32_t members_list = none;
   for (std::size_t k = 0; k < count; ++k) {
-    if (!ends_with(s.entities[k].type, "REPRESENTATION")) continue;
+    if (!ends_with(s.entities[k].type, "SHAPE_REPRESENTATION")) continue;
     for (std::uint32_t l = s.entities[k].first_list; l < s.list_end(k); ++l)
       if (list_refs[l] >= min_members && (members_list == none || list_refs[l] > list_refs[members_list])) {
         members_list = l;

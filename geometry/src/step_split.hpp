@@ -5,8 +5,9 @@
 //
 // A split is made only where reading the two parts gives, joined, exactly what reading the whole gives
 // (step_two_processes.hpp joins them and checks the rest):
-// - one representation lists the members: its list of items holds at least `min_members` curve sets or
-//   curves (GEOMETRIC_CURVE_SET, GEOMETRIC_SET, TRIMMED_CURVE, POLYLINE, ...), besides axis placements;
+// - one shape representation lists the members: its list of items holds at least `min_members` curve
+//   sets or curves (GEOMETRIC_CURVE_SET, GEOMETRIC_SET, TRIMMED_CURVE, POLYLINE, ...), besides axis
+//   placements;
 //   the sets hold curves only (no loose points);
 // - the members of the two halves share no entity (each point, line and name belongs to one member);
 // - every other entity that names a member does so from plain lists of references (layers, the
