@@ -63,7 +63,7 @@ std::filesystem::path write(const std::filesystem::path& file, const std::string
 
 // What may be changed in the invented frame below to test a refusal.
 struct Variant {
-  bool share_point = false;         // the last member of the first half and the first of the second share a point
+  bool share_point = false;         // the first post of the second half stands on a foot of the first half
   bool zero_length = false;         // a post of the second half ends where it starts
   bool style_across = false;        // one styled item names a member of each half
   bool second_usage = false;        // a second assembly usage of the part
