@@ -35,12 +35,12 @@ CLI::App* add_compare_command(CLI::App& app, CompareCommandOptions& options) {
   return compare;
 }
 
-int compare_command(CompareCommandOptions options) {
+int compare_command(CompareCommandOptions options, const RunControl& control) {
   options.compare.tolerance = options.tolerance_mm * 1e-3;
   options.compare.move_limit = options.move_limit_mm * 1e-3;
   try {
-    const Revision old_side = read_revision(options.old_side);
-    const Revision new_side = read_revision(options.new_side);
+    const Revision old_side = read_revision(options.old_side, control);
+    const Revision new_side = read_revision(options.new_side, control);
     const Comparison comparison = compare_revisions(old_side, new_side, options.compare);
     std::filesystem::path out = options.out;
     if (out.empty()) {

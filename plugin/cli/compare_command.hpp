@@ -22,8 +22,8 @@ struct CompareCommandOptions {
 CLI::App* add_compare_command(CLI::App& app, CompareCommandOptions& options);
 
 /// Runs it: 0 nothing got worse beyond the threshold, 1 a member newly fails or a utilisation rose past
-/// --max-increase, 2 bad input (nothing written).
-int compare_command(CompareCommandOptions options);
+/// --max-increase, 2 bad input (nothing written). A side given as a project file is analysed with `control`.
+int compare_command(CompareCommandOptions options, const RunControl& control = {});
 
 /// The options `run --baseline` adds to `run` (the threshold).
 void add_baseline_options(CLI::App& run, std::filesystem::path& baseline, double& max_increase);

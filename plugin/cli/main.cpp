@@ -76,6 +76,16 @@ void finish_if_signalled(bool results_written) {
   std::raise(signal_number);
 }
 
+// What every command that analyses a project runs with: a large STEP file read in two processes, and the
+// factorisation on the cores the run leaves idle (unless OpenBLAS's threads are set by the user). `run`
+// adds its progress display and its stop on a signal.
+stepframe::RunControl analysis_control() {
+  stepframe::RunControl control;
+  control.idle_cores_for_factorisation = std::getenv("OPENBLAS_NUM_THREADS") == nullptr;
+  control.two_process_read_from = two_process_read_from;
+  return control;
+}
+
 // Each stage's wall time on stderr, as `--timings` asks.
 void print_timings(stepframe::cli::ProgressDisplay& display) {
   std::string table = "stage           seconds\n";
@@ -94,18 +104,16 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   std::optional<stepframe::Revision> baseline;
   if (!baseline_path.empty()) {
     try {
-      baseline = stepframe::read_revision(baseline_path);
+      baseline = stepframe::read_revision(baseline_path, analysis_control());
     } catch (const stepframe::InputError& e) {
       spdlog::error("--baseline {}", e.what());
       return static_cast<int>(stepframe::ExitStatus::bad_input);
     }
   }
   stepframe::cli::ProgressDisplay display(show_progress);
-  stepframe::RunControl control;
+  stepframe::RunControl control = analysis_control();
   control.progress = display.callback();
   control.cancel_flag = &stop_requested;
-  control.idle_cores_for_factorisation = std::getenv("OPENBLAS_NUM_THREADS") == nullptr;
-  control.two_process_read_from = two_process_read_from;
   catch_stop_signals();
   const auto outcome = stepframe::run_project(project, out, control, vtk, result_details, check_details);
   display.clear();
@@ -133,7 +141,7 @@ int run_command(const std::filesystem::path& project, const std::filesystem::pat
   const auto run_out = out.empty() ? stepframe::default_out_dir(project) : out;
   // The suggestion is advice: it leaves the run's status alone unless it could not be made.
   if (suggest) {
-    const int made = stepframe::cli::suggest_after_run(*outcome.analysis, run_out, !json);
+    const int made = stepframe::cli::suggest_after_run(*outcome.analysis, run_out, !json, analysis_control());
     if (made != 0) return made;
   }
   if (baseline) {
@@ -301,8 +309,8 @@ int main(int argc, char** argv) {
     if (*run)
       return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk,
                          run_result_details, run_check_details, run_baseline, run_max_increase, run_suggest);
-    if (*compare) return stepframe::cli::compare_command(compare_options);
-    if (*suggest) return stepframe::cli::suggest_command(suggest_options);
+    if (*compare) return stepframe::cli::compare_command(compare_options, analysis_control());
+    if (*suggest) return stepframe::cli::suggest_command(suggest_options, analysis_control());
     if (*sections) return stepframe::cli::sections_command(sections_options);
     if (*batch) return stepframe::cli::batch_command(batch_options, terminal && !quiet);
     if (*init) return stepframe::cli::init_command(init_model, init_output, init_force, init_tolerance_mm, read);

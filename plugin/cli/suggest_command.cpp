@@ -12,11 +12,14 @@
 namespace stepframe::cli {
 namespace {
 
-// The suggestion for an analysed project, written into out; its files' folder is printed.
+// The suggestion for an analysed project, written into out; its files' folder is printed. The model is read
+// (again: the analysis let go of it) and analysed with `control`.
 Suggestion suggest_and_write(const Analysis& first, const SuggestOptions& options, const std::filesystem::path& out,
-                             bool print) {
-  const auto step = geometry::read_step(first.project.model);
-  const Suggestion s = suggest_sections(first.project, step, first, options);
+                             bool print, const RunControl& control) {
+  geometry::StepReadOptions read;
+  read.two_processes_from = control.two_process_read_from;
+  const auto step = geometry::read_step(first.project.model, read);
+  const Suggestion s = suggest_sections(first.project, step, first, options, control);
   write_suggestion(s, out);
   if (print) std::cout << suggestion_text(s) << "suggestion: " << (out / "suggest.yaml").string() << "\n";
   return s;
@@ -43,14 +46,14 @@ CLI::App* add_suggest_command(CLI::App& app, SuggestCommandOptions& options) {
   return suggest;
 }
 
-int suggest_command(SuggestCommandOptions options) {
+int suggest_command(SuggestCommandOptions options, const RunControl& control) {
   if (options.lighten_below > 0) options.suggest.lighten_below = options.lighten_below;
   const auto out = options.out.empty()
                        ? options.project.parent_path() / (options.project.stem().string() + "-suggest")
                        : options.out;
   try {
-    const Analysis first = analyse_project(options.project);
-    const Suggestion s = suggest_and_write(first, options.suggest, out, true);
+    const Analysis first = analyse_project(options.project, control);
+    const Suggestion s = suggest_and_write(first, options.suggest, out, true, control);
     std::cout << "\n" << caution << "\n";
     return static_cast<int>(s.status());
   } catch (const InputError& e) {
@@ -65,10 +68,11 @@ int suggest_command(SuggestCommandOptions options) {
   }
 }
 
-int suggest_after_run(const Analysis& analysis, const std::filesystem::path& run_out, bool print) {
+int suggest_after_run(const Analysis& analysis, const std::filesystem::path& run_out, bool print,
+                      const RunControl& control) {
   try {
     if (print) std::cout << "\n";
-    suggest_and_write(analysis, {}, run_out / "suggest", print);
+    suggest_and_write(analysis, {}, run_out / "suggest", print, control);
     return 0;
   } catch (const InputError& e) {
     spdlog::error("{}", e.what());

@@ -21,11 +21,13 @@ struct SuggestCommandOptions {
 CLI::App* add_suggest_command(CLI::App& app, SuggestCommandOptions& options);
 
 /// Runs it: 0 with the suggested sections every check passes, 1 some still fail, 2 bad input, 3 unstable.
-int suggest_command(SuggestCommandOptions options);
+/// Every analysis (and the model's read) runs with `control`.
+int suggest_command(SuggestCommandOptions options, const RunControl& control = {});
 
 /// After `run --suggest`: suggests sections from the run's analysis and writes <out>/suggest/. Returns
 /// 0 when written, 2 or 3 when the suggestion could not be made (the message is logged). `print`: its
-/// summary on stdout.
-int suggest_after_run(const Analysis& analysis, const std::filesystem::path& run_out, bool print);
+/// summary on stdout. The model is read again, and analysed, with `control`.
+int suggest_after_run(const Analysis& analysis, const std::filesystem::path& run_out, bool print,
+                      const RunControl& control = {});
 
 }  // namespace stepframe::cli
