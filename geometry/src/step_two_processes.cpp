@@ -12,6 +12,7 @@
 #include <csignal>
 #include <optional>
 #include <string>
+#include <fcntl.h>
 #include <poll.h>
 #include <sys/types.h>
 #include <sys/wait.h>
@@ -83,9 +84,12 @@ struct Child {
     if (pid <= 0) return -1;
     if (kill) ::kill(pid, SIGKILL);
     int status = 0;
-    while (::waitpid(pid, &status, 0) < 0 && errno == EINTR) {
+    pid_t waited = -1;
+    while ((waited = ::waitpid(pid, &status, 0)) < 0 && errno == EINTR) {
     }
     pid = -1;
+    // Not collected (a host that ignores SIGCHLD has its children reaped for it): no status to trust.
+    if (waited < 0) return -1;
     return WIFEXITED(status) ? WEXITSTATUS(status) : -1;
   }
   ~Child() { end(true); }
@@ -110,8 +114,10 @@ bool one_placement(const StepModel& first, const StepModel& second) {
 
 std::optional<StepModel> read_in_two_processes(std::string_view text, std::size_t min_members,
                                                const PartReader& read_part) {
+  // Close-on-exec: a program another thread of the process starts meanwhile must not hold the write end
+  // open (the parent would wait for the end of the child's bytes until the deadline).
   int pipe_ends[2];
-  if (::pipe(pipe_ends) != 0) return std::nullopt;
+  if (::pipe2(pipe_ends, O_CLOEXEC) != 0) return std::nullopt;
   Child other;
   other.pid = ::fork();
   if (other.pid == 0) {

@@ -18,6 +18,7 @@
 #include <spdlog/spdlog.h>
 
 #include <algorithm>
+#include <csignal>
 #include <memory>
 #include <utility>
 
@@ -253,6 +254,21 @@ TEST_CASE("a frame whose halves cannot be read apart exactly is read whole", "[s
   }
   CHECK_THAT(refused, Catch::Contains("OCCT could not read entity"));
   CHECK_THROWS_WITH(read_split(file, 20), refused);
+}
+
+TEST_CASE("a process whose children are reaped for it reads the file whole", "[step][two-processes]") {
+  // With SIGCHLD ignored the system collects the child itself: its exit status is lost, so its half is
+  // not trusted and the whole text is read (POSIX, waitpid: ECHILD when children are not kept).
+  ScratchFolder scratch;
+  const auto file = write(scratch.path() / "yard.stp", yard(30));
+  const sg::StepModel whole = sg::read_step(file);
+  const auto before = std::signal(SIGCHLD, SIG_IGN);
+  const auto [model, two] = read_split_logged(file, 20);
+  std::signal(SIGCHLD, before);
+  CHECK_FALSE(two);
+  sg::test::require_same_model(model, whole);
+  // With SIGCHLD as it was, the same file is joined from its halves.
+  CHECK(read_split_logged(file, 20).second);
 }
 
 TEST_CASE("a large written wireframe is read in two processes as it is read whole", "[step][two-processes]") {
