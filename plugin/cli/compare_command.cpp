@@ -1,5 +1,7 @@
 #include "compare_command.hpp"
 
+#include "progress_display.hpp"
+
 #include "stepframe/errors.hpp"
 #include "stepframe/run.hpp"
 
@@ -38,9 +40,13 @@ CLI::App* add_compare_command(CLI::App& app, CompareCommandOptions& options) {
 int compare_command(CompareCommandOptions options, const RunControl& control) {
   options.compare.tolerance = options.tolerance_mm * 1e-3;
   options.compare.move_limit = options.move_limit_mm * 1e-3;
+  ProgressDisplay display(options.progress);
+  RunControl analysing = control;
+  analysing.progress = display.callback();
   try {
-    const Revision old_side = read_revision(options.old_side, control);
-    const Revision new_side = read_revision(options.new_side, control);
+    const Revision old_side = read_revision(options.old_side, analysing);
+    const Revision new_side = read_revision(options.new_side, analysing);
+    display.clear();
     const Comparison comparison = compare_revisions(old_side, new_side, options.compare);
     std::filesystem::path out = options.out;
     if (out.empty()) {

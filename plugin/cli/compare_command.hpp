@@ -16,6 +16,7 @@ struct CompareCommandOptions {
   double tolerance_mm = 10;
   double move_limit_mm = 1000;
   bool json = false;
+  bool progress = false;  ///< a progress line on stderr while a project file is analysed (a terminal's)
 };
 
 /// Registers the `compare` subcommand on `app`, storing its options in `options`.

@@ -309,6 +309,7 @@ int main(int argc, char** argv) {
     if (*run)
       return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk,
                          run_result_details, run_check_details, run_baseline, run_max_increase, run_suggest);
+    compare_options.progress = suggest_options.progress = terminal && !quiet;
     if (*compare) return stepframe::cli::compare_command(compare_options, analysis_control());
     if (*suggest) return stepframe::cli::suggest_command(suggest_options, analysis_control());
     if (*sections) return stepframe::cli::sections_command(sections_options);

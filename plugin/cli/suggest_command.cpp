@@ -1,5 +1,7 @@
 #include "suggest_command.hpp"
 
+#include "progress_display.hpp"
+
 #include "stepframe/analysis/solve.hpp"
 #include "stepframe/errors.hpp"
 #include "stepframe/geometry/step_reader.hpp"
@@ -13,13 +15,15 @@ namespace stepframe::cli {
 namespace {
 
 // The suggestion for an analysed project, written into out; its files' folder is printed. The model is read
-// (again: the analysis let go of it) and analysed with `control`.
+// (again: the analysis let go of it) and analysed with `control`; `display` (if any) is cleared before the
+// summary is printed.
 Suggestion suggest_and_write(const Analysis& first, const SuggestOptions& options, const std::filesystem::path& out,
-                             bool print, const RunControl& control) {
+                             bool print, const RunControl& control, ProgressDisplay* display = nullptr) {
   geometry::StepReadOptions read;
   read.two_processes_from = control.two_process_read_from;
   const auto step = geometry::read_step(first.project.model, read);
   const Suggestion s = suggest_sections(first.project, step, first, options, control);
+  if (display) display->clear();
   write_suggestion(s, out);
   if (print) std::cout << suggestion_text(s) << "suggestion: " << (out / "suggest.yaml").string() << "\n";
   return s;
@@ -51,9 +55,12 @@ int suggest_command(SuggestCommandOptions options, const RunControl& control) {
   const auto out = options.out.empty()
                        ? options.project.parent_path() / (options.project.stem().string() + "-suggest")
                        : options.out;
+  ProgressDisplay display(options.progress);
+  RunControl analysing = control;
+  analysing.progress = display.callback();
   try {
-    const Analysis first = analyse_project(options.project, control);
-    const Suggestion s = suggest_and_write(first, options.suggest, out, true, control);
+    const Analysis first = analyse_project(options.project, analysing);
+    const Suggestion s = suggest_and_write(first, options.suggest, out, true, analysing, &display);
     std::cout << "\n" << caution << "\n";
     return static_cast<int>(s.status());
   } catch (const InputError& e) {

@@ -15,6 +15,7 @@ struct SuggestCommandOptions {
   std::filesystem::path project, out;
   SuggestOptions suggest;
   double lighten_below = 0;  ///< 0: the project's suggest.lighten_below, if any
+  bool progress = false;     ///< a progress line on stderr while analysing (a terminal's)
 };
 
 /// Registers the `suggest` subcommand on `app`.

@@ -1,6 +1,7 @@
-// `stepframe compare` and `stepframe suggest` read a large frame's STEP file as `run` does: in two
-// processes (the CLI's limit, 1,000 members). Consistency tests (no published values): what they write
-// is what the library gives reading the same file in one process.
+// `stepframe compare` and `stepframe suggest` analyse a project as `run` does: a large frame's STEP file
+// read in two processes (the CLI's limit, 1,000 members), and the stages reported (a progress line on a
+// terminal; elsewhere each stage's time in the debug log). Consistency tests (no published values): what
+// they write is what the library gives reading the same file in one process.
 
 #include "stepframe/analysis/blas_info.hpp"
 #include "stepframe/compare.hpp"
@@ -62,6 +63,7 @@ TEST_CASE("compare analyses two large project revisions, each read in two proces
                                      dir);
   CHECK(r.status == 0);  // the same revision twice: nothing got worse
   CHECK(occurrences(r.err, "read in two processes") == 2);
+  CHECK(occurrences(r.err, "factorisation took") == 2);  // each side's analysis reports its stages
   CHECK(r.out == comparison_json(alone).dump(1) + "\n");
 }
 
@@ -81,6 +83,7 @@ TEST_CASE("suggest reads a large frame in two processes and suggests what the li
   CHECK(r.status == static_cast<int>(alone.status()));
   // The analysis reads the file, and so does the suggestion (the analysis let go of the model).
   CHECK(occurrences(r.err, "read in two processes") == 2);
+  CHECK_THAT(r.err, Contains("factorisation took"));  // the analyses report their stages
   std::ifstream written(dir / "sug" / "suggest.json");
   REQUIRE(written);
   CHECK(nlohmann::json::parse(written) == suggestion_json(alone));
