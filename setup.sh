@@ -73,10 +73,11 @@ case "${1:-demo}" in
     install_packages
     seconds=${2:-60}
     cmake --preset fuzz
-    cmake --build build-fuzz -j "$JOBS" --target fuzz_step_structure fuzz_step_import fuzz_designation \
-      fuzz_project_reader fuzz_c_api_text
+    cmake --build build-fuzz -j "$JOBS" --target fuzz_step_structure fuzz_step_import fuzz_step_split \
+      fuzz_designation fuzz_project_reader fuzz_c_api_text
     tests/fuzz/seed_corpora.sh build-fuzz/corpus
-    for target in step_structure:step step_import:step designation:designation project_reader:project c_api_text:c_api; do
+    for target in step_structure:step step_import:step step_split:step designation:designation \
+                  project_reader:project c_api_text:c_api; do
       name=${target%%:*}
       echo "== fuzz_$name for $seconds s"
       (cd build-fuzz && "tests/fuzz/fuzz_$name" "corpus/${target##*:}" -max_total_time="$seconds" -rss_limit_mb=4096 \
