@@ -220,7 +220,11 @@ StiffnessFactor::StiffnessFactor(const Sparse& k_free, const DofNumbering& dofs,
   const int threads_before = blas_threads();
   const bool widen = offered_threads > threads_before && common.fl > widen_above_flops;
   if (widen) {
-    spdlog::debug("factorising on {} BLAS threads ({:.3g} flops)", offered_threads, common.fl);
+    // OpenBLAS on more threads sums in another order: the results' last digits can move with the load
+    // that decided the threads. Said where a user reads it.
+    spdlog::info("factorising on {} BLAS threads ({:.3g} flops): the results' last digits can differ from a run "
+                 "on a busier machine; OPENBLAS_NUM_THREADS=1 keeps them the same",
+                 offered_threads, common.fl);
     set_blas_threads(offered_threads);
   }
   cholmod_factorize(&a, impl_->factor, &common);
