@@ -302,9 +302,8 @@ int main(int argc, char** argv) {
   }
   spdlog::set_level(quiet ? spdlog::level::warn : verbose ? spdlog::level::debug : spdlog::level::info);
 
-  // The STEP read of the commands that read a model themselves (run passes its limit through RunControl).
-  stepframe::geometry::StepReadOptions read;
-  read.two_processes_from = two_process_read_from;
+  // The STEP read of the commands that read a model themselves, as the analysing ones read it.
+  const stepframe::geometry::StepReadOptions read = analysis_control().step_read_options();
   try {
     if (*run)
       return run_command(project, out, run_json, terminal && !quiet && !no_progress, run_timings, run_vtk,

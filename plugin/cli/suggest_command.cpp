@@ -19,9 +19,7 @@ namespace {
 // summary is printed.
 Suggestion suggest_and_write(const Analysis& first, const SuggestOptions& options, const std::filesystem::path& out,
                              bool print, const RunControl& control, ProgressDisplay* display = nullptr) {
-  geometry::StepReadOptions read;
-  read.two_processes_from = control.two_process_read_from;
-  const auto step = geometry::read_step(first.project.model, read);
+  const auto step = geometry::read_step(first.project.model, control.step_read_options());
   const Suggestion s = suggest_sections(first.project, step, first, options, control);
   if (display) display->clear();
   write_suggestion(s, out);

@@ -63,9 +63,7 @@ Analysis analyse_project(const std::filesystem::path& project_file, const RunCon
   auto project = read_project(project_file);
   spdlog::info("project {}: model {}", project_file.string(), project.model.string());
   control.report("geometry", 0);
-  geometry::StepReadOptions read;
-  read.two_processes_from = control.two_process_read_from;
-  geometry::StepModel step = geometry::read_step(project.model, read);
+  geometry::StepModel step = geometry::read_step(project.model, control.step_read_options());
   // The report's pictures need an offscreen OpenGL context, whose first preparation takes about a third
   // of a second: it is prepared on the core the factorisation leaves idle (its BLAS gains nothing from a
   // second thread at 10,000 members), not during the read, which uses both cores for a large file (and

@@ -1,8 +1,16 @@
 #include "stepframe/run_control.hpp"
 
+#include "stepframe/geometry/step_reader.hpp"
+
 #include <spdlog/spdlog.h>
 
 namespace stepframe {
+
+geometry::StepReadOptions RunControl::step_read_options() const {
+  geometry::StepReadOptions read;
+  read.two_processes_from = two_process_read_from;
+  return read;
+}
 
 ScopedLogSink::ScopedLogSink(spdlog::sink_ptr sink, spdlog::level::level_enum level) {
   if (!sink) return;

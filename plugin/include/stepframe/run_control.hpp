@@ -43,6 +43,10 @@ class Cancelled : public std::runtime_error {
   Cancelled() : std::runtime_error("the run was cancelled by the caller") {}
 };
 
+namespace geometry {
+struct StepReadOptions;
+}
+
 /// Everything a caller can hook into a run. All members are optional.
 struct RunControl {
   ProgressCallback progress;
@@ -64,6 +68,9 @@ struct RunControl {
   /// process with no other thread that could hold a lock the child takes: the command line sets it,
   /// a host leaves it at 0.
   std::size_t two_process_read_from = 0;
+  /// How the run reads a STEP file: geometry::StepReadOptions with `two_process_read_from`
+  /// (stepframe/geometry/step_reader.hpp has the type).
+  geometry::StepReadOptions step_read_options() const;
   /// The most memory [bytes] a pending buckling analysis (its factorised
   /// stiffness) may hold for the checks to run beside it; above it the checks
   /// wait for it, so that their memory and the factor's do not add up (some
