@@ -89,6 +89,43 @@ TEST_CASE("a lower bound on Mcr from the member's last diagram, and the exact va
   }
 }
 
+TEST_CASE("the Mcr bound of a diagram of the reference's shape at another size is its own Mcr",
+          "[analysis][en1993][ltb]") {
+  // Mcr depends on the diagram's shape, not its size: S is linear in the diagram (Timoshenko & Gere 1961, 6.3;
+  // a factor on every load scales M and leaves Mcr as it is). The bound compares S with the reference's S
+  // scaled to the diagram's size, so such a diagram is bounded by its own Mcr (to the rounding margin), where
+  // comparing with S_ref as it is gives a bound that falls with the change of size.
+  std::vector<double> x;
+  for (const auto& p : diagram(0, 0, 0)) x.push_back(p.x);
+  const DiagramIntegrals integrals = diagram_integrals(x);
+  for (double zg : {0.0, 0.15}) {
+    const auto first = diagram(80e3, -30e3, 12e3);
+    CriticalMomentReference reference;
+    const double exact = critical_moment_or_bound(ipe300_like, integrals, first, zg, reference, nullptr).value;
+    for (double size : {0.5, 0.9, 1.3, 3.0}) {
+      INFO("zg " << zg << ", size " << size);
+      const auto scaled = diagram(80e3 * size, -30e3 * size, 12e3 * size);
+      const double scaled_exact = critical_moment_for_diagram(ipe300_like, integrals, scaled, zg);
+      CHECK(scaled_exact == Approx(exact).epsilon(1e-12));
+      std::vector<double> offers;
+      const auto bounded = critical_moment_or_bound(ipe300_like, integrals, scaled, zg, reference, [&](double lower) {
+        offers.push_back(lower);
+        return true;
+      });
+      CHECK_FALSE(bounded.exact);
+      REQUIRE(offers.size() == 1);  // the first bound, from the weights alone
+      CHECK(offers[0] <= scaled_exact);
+      CHECK(offers[0] == Approx(scaled_exact).epsilon(1e-9));
+    }
+    // A diagram of another shape still gets a bound below its Mcr, as in the test above.
+    const auto other = diagram(80e3, 60e3, 12e3);
+    const double other_exact = critical_moment_for_diagram(ipe300_like, integrals, other, zg);
+    const auto bounded = critical_moment_or_bound(ipe300_like, integrals, other, zg, reference, [](double) { return true; });
+    CHECK(bounded.value <= other_exact);
+    CHECK(bounded.value > 0.1 * other_exact);
+  }
+}
+
 TEST_CASE("member checks over many results keep the same worst results with Mcr bounds as checked one by one",
           "[analysis][en1993][ltb]") {
   // A fork-supported IPE 300 in S355 over 6 m under a uniform load, an end moment and compression, in

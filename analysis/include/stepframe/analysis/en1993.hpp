@@ -199,6 +199,7 @@ struct CriticalMomentReference {
   std::vector<double> s;  ///< S, 2 terms x 2 terms, column-major; empty: nothing solved yet
   double mu = 0;          ///< lambda_max(S)
   double size = 0;        ///< ||S||_F
+  double peak = 0;        ///< max|M| of its diagram [N m]
   std::vector<double> x;  ///< the points' positions
   /// S is linear in these weights (the diagram's M at each point, then Q zg on each interval) ...
   std::vector<double> weights;
@@ -218,10 +219,13 @@ struct CriticalMomentEstimate {
 /// the norm of the change of S (Weyl's inequality, lambda_max(A + E) <=
 /// lambda_max(A) + ||E||_2 <= lambda_max(A) + ||E||_F; Golub & Van Loan,
 /// Matrix Computations, 4th ed. 2013, 8.1.2; from memory), so Mcr >= max|M| /
-/// (mu_ref + ||S - S_ref||_F) with a margin of 1e-12 ||S||_F for rounding.
-/// ||S - S_ref||_F is first bounded without building S, by the weights'
-/// changes times their unit changes (the triangle inequality), then taken
-/// from S itself. An exact solution replaces `reference`; a bound leaves it.
+/// (t mu_ref + ||S - t S_ref||_F) for any t > 0 (lambda_max(t S_ref) = t mu_ref),
+/// with a margin of 1e-12 ||S||_F for rounding; the smaller of t = 1 and
+/// t = max|M| / max|M|_ref is taken, so a diagram of the reference's shape at
+/// another size is bounded by its own Mcr. ||S - t S_ref||_F is first bounded
+/// without building S, by the weights' changes times their unit changes (the
+/// triangle inequality), then taken from S itself. An exact solution replaces
+/// `reference`; a bound leaves it.
 /// A reference belongs to one member: its stiffness, length and stations.
 CriticalMomentEstimate critical_moment_or_bound(const LateralTorsionalStiffness& stiffness,
                                                 const DiagramIntegrals& integrals,
