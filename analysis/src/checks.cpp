@@ -67,17 +67,16 @@ Eigen::Vector3d translation(const LoadResult& result, std::size_t node) {
 
 std::vector<CheckResult> check_stress(const FrameModel& model, const std::vector<const LoadResult*>& results,
                                       double gamma_M0) {
+  const std::vector<double> fy = member_yield_strengths(model, member_chains(model));
   return worst_over(
       model, results,
-      [&](std::size_t, const Member& member, const LineSummary& line, const LoadResult&) {
-        const FrameElement& first = model.elements[member.elements.front()];
-        const Material material = material_for_section(model.materials[first.material], model.sections[first.section]);
+      [&](std::size_t m, const Member&, const LineSummary& line, const LoadResult&) {
         CheckResult r;
         r.check = "stress";
         r.unit = "Pa";
         r.station = line.max_von_mises_at;
         r.value = line.max_von_mises;
-        r.limit = material.fy / gamma_M0;
+        r.limit = fy[m] / gamma_M0;
         return r;
       },
       [&](std::size_t, const Member&, const CheckResult& r) {

@@ -89,7 +89,9 @@ Eigen::Vector3d load_intensity(const LocalLoads& loads, double x) {
 }
 
 std::vector<double> load_breakpoints(const LocalLoads& loads, double length) {
-  std::vector<double> xs{0.0, length};
+  std::vector<double> xs;
+  xs.reserve(2 + 2 * loads.size());
+  xs.assign({0.0, length});
   for (const LocalLoad& l : loads) {
     xs.push_back(std::clamp(l.a, 0.0, length));
     if (!l.point) xs.push_back(std::clamp(l.b, 0.0, length));

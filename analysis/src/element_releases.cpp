@@ -36,6 +36,10 @@ DofList released_dofs(const EndReleases& r) {
   return out;
 }
 
+// At most 12 x 12: on the stack (this runs for every released element of every recovery).
+using Small = Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, 0, 12, 12>;
+using SmallVector = Eigen::Matrix<double, Eigen::Dynamic, 1, 0, 12, 1>;
+
 // The rows and columns of k that the lists name, as a matrix of type M.
 template <class M = Eigen::MatrixXd>
 M pick(const Matrix12d& k, const DofList& rows, const DofList& cols) {
@@ -89,12 +93,12 @@ CondensedElement condense_releases(const Matrix12d& k, const Vector12d& fixed_en
   const DofList r = released_dofs(releases);
   if (r.empty()) return out;
   const DofList c = complement(r);
-  const Eigen::LDLT<Eigen::MatrixXd> krr(pick(k, r, r));
-  const Eigen::MatrixXd kcr = pick(k, c, r);
-  Eigen::VectorXd fr(static_cast<Eigen::Index>(r.size()));
+  const Eigen::LDLT<Small> krr(pick<Small>(k, r, r));
+  const Small kcr = pick<Small>(k, c, r);
+  SmallVector fr(static_cast<Eigen::Index>(r.size()));
   for (std::size_t i = 0; i < r.size(); ++i) fr(static_cast<Eigen::Index>(i)) = fixed_end(r[i]);
-  const Eigen::MatrixXd kc = pick(k, c, c) - kcr * krr.solve(kcr.transpose());
-  const Eigen::VectorXd fc = -kcr * krr.solve(fr);
+  const Small kc = pick<Small>(k, c, c) - kcr * krr.solve(kcr.transpose());
+  const SmallVector fc = -kcr * krr.solve(fr);
   out.k.setZero();
   out.fixed_end.setZero();
   for (std::size_t i = 0; i < c.size(); ++i) {
@@ -111,9 +115,6 @@ Vector12d element_end_displacements(const Matrix12d& k, const Vector12d& fixed_e
   const DofList r = released_dofs(releases);
   if (r.empty()) return u;
   const DofList c = complement(r);
-  // At most 12 x 12: on the stack (this runs for every released element of every recovery).
-  using Small = Eigen::Matrix<double, Eigen::Dynamic, Eigen::Dynamic, 0, 12, 12>;
-  using SmallVector = Eigen::Matrix<double, Eigen::Dynamic, 1, 0, 12, 1>;
   SmallVector uc(static_cast<Eigen::Index>(c.size())), fr(static_cast<Eigen::Index>(r.size()));
   for (std::size_t i = 0; i < c.size(); ++i) uc(static_cast<Eigen::Index>(i)) = node_displacements(c[i]);
   for (std::size_t i = 0; i < r.size(); ++i) fr(static_cast<Eigen::Index>(i)) = fixed_end(r[i]);

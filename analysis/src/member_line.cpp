@@ -40,6 +40,9 @@ LocalLoads element_loads(const LoadResult& result, std::size_t element) {
   // Loads over the same stretch (or at the same point) are summed into one: the recovery then
   // evaluates one term where a combination of several cases would give several (superposition).
   LocalLoads loads;
+  std::size_t most = 0;
+  for (const LoadTerm& term : result.element_loads) most += (*term.loads)[element].size();
+  loads.reserve(most);
   for (const LoadTerm& term : result.element_loads)
     for (const LocalLoad& load : (*term.loads)[element]) {
       auto same = std::find_if(loads.begin(), loads.end(), [&](const LocalLoad& l) {
@@ -100,6 +103,9 @@ LineResult join_elements(const std::vector<LineResult>& parts) {
   if (parts.empty()) throw std::invalid_argument("join_elements: a member needs at least one element");
   if (parts.size() == 1) return parts.front();  // the element's own (local-axis) measures are the member's
   LineResult joined;
+  std::size_t stations = 0;
+  for (const LineResult& part : parts) stations += part.stations.size();
+  joined.stations.reserve(stations);
   double offset = 0;
   bool first = true;
   for (const LineResult& part : parts) {
