@@ -1,6 +1,10 @@
 #include "stepframe/analysis/blas_info.hpp"
 
+#include "stepframe/analysis/blas_kernels.hpp"
+
 #include <fmt/format.h>
+
+#include <strings.h>
 
 #ifdef STEPFRAME_HAVE_OPENBLAS
 // OpenBLAS' own query functions (its cblas.h names them; declared here so that no
@@ -33,6 +37,28 @@ std::string blas_description() {
 #else
   return "the reference BLAS (this build found no OpenBLAS: large factorisations are several times slower; "
          "install libopenblas-dev and rebuild)";
+#endif
+}
+
+std::string blas_core_name() {
+#ifdef STEPFRAME_HAVE_OPENBLAS
+  return openblas_get_corename();
+#else
+  return {};
+#endif
+}
+
+std::string blas_kernel_advice() {
+#ifdef STEPFRAME_HAVE_OPENBLAS
+  const std::string_view best = openblas_core_for(this_processor());
+  const std::string used = blas_core_name();
+  if (best.empty() || strcasecmp(used.c_str(), "Prescott") != 0) return {};
+  return fmt::format("OpenBLAS does not know this processor and runs its oldest kernels ({}): the factorisation "
+                     "takes about twice as long; set OPENBLAS_CORETYPE={} in the environment before the process "
+                     "starts (the stepframe command does this itself)",
+                     used, best);
+#else
+  return {};
 #endif
 }
 

@@ -101,6 +101,8 @@ Analysis analyse_wireframe(Analysis a, const RunControl& control) {
   a.wireframe.diagnostics.insert(a.wireframe.diagnostics.end(), a.built.diagnostics.begin(), a.built.diagnostics.end());
   if (analysis::optimised_blas()) spdlog::info("linear algebra: CHOLMOD on {}", analysis::blas_description());
   else spdlog::warn("linear algebra: CHOLMOD on {}", analysis::blas_description());
+  if (const std::string advice = analysis::blas_kernel_advice(); !advice.empty())
+    spdlog::info("linear algebra: {}", advice);
 
   analysis::SolveOptions options;
   options.progress = [&](std::string_view stage, double f) { report(stage, f); };

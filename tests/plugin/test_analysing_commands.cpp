@@ -17,6 +17,7 @@
 
 #include <cstdlib>
 #include <fstream>
+#include <optional>
 #include <string>
 
 using namespace stepframe;
@@ -33,18 +34,28 @@ std::size_t occurrences(const std::string& text, const std::string& what) {
 
 // The command line runs OpenBLAS on one thread unless OPENBLAS_NUM_THREADS says otherwise (its main);
 // the library in this process does the same while one lives, so that both round alike (OpenBLAS on two
-// threads rounds differently in the last bits).
+// threads rounds differently in the last bits). Likewise the command lines started meanwhile run the
+// kernels this process runs (their launcher names the processor's best ones, which this process, started
+// by ctest, may not run).
 class BlasAsTheCommandLine {
  public:
   BlasAsTheCommandLine() {
     if (std::getenv("OPENBLAS_NUM_THREADS") == nullptr) analysis::set_blas_threads(1);
+    if (const char* given = std::getenv("OPENBLAS_CORETYPE")) coretype_before_ = given;
+    const std::string core = analysis::blas_core_name();
+    if (!core.empty()) setenv("OPENBLAS_CORETYPE", core.c_str(), 1);
   }
-  ~BlasAsTheCommandLine() { analysis::set_blas_threads(before_); }
+  ~BlasAsTheCommandLine() {
+    analysis::set_blas_threads(before_);
+    if (coretype_before_) setenv("OPENBLAS_CORETYPE", coretype_before_->c_str(), 1);
+    else unsetenv("OPENBLAS_CORETYPE");
+  }
   BlasAsTheCommandLine(const BlasAsTheCommandLine&) = delete;
   BlasAsTheCommandLine& operator=(const BlasAsTheCommandLine&) = delete;
 
  private:
   int before_ = analysis::blas_threads();
+  std::optional<std::string> coretype_before_;
 };
 
 }  // namespace

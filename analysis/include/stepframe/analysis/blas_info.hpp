@@ -14,6 +14,16 @@ std::string blas_description();
 /// True when OpenBLAS is linked.
 bool optimised_blas();
 
+/// The kernel set OpenBLAS runs in this process, by the name OPENBLAS_CORETYPE takes ("SkylakeX",
+/// "Haswell", ...); "" without OpenBLAS. Chosen when OpenBLAS loads: a child process started with
+/// OPENBLAS_CORETYPE set to it rounds as this one does.
+std::string blas_core_name();
+
+/// "" or, when OpenBLAS did not know this processor and runs its oldest kernels (SSE3, "Prescott") where
+/// the processor has better ones, what to set before the process starts (see blas_kernels.hpp). The
+/// `stepframe` command sets it itself; a host of the library sets it in its own environment.
+std::string blas_kernel_advice();
+
 /// Runs OpenBLAS' kernels on `threads` threads from now on. Process-wide (OpenBLAS
 /// keeps one setting), so a library leaves this to its host; the command line
 /// calls it. No effect without OpenBLAS.
