@@ -53,9 +53,9 @@ std::string blas_kernel_advice() {
   const std::string_view best = openblas_core_for(this_processor());
   const std::string used = blas_core_name();
   if (best.empty() || strcasecmp(used.c_str(), "Prescott") != 0) return {};
-  return fmt::format("OpenBLAS does not know this processor and runs its oldest kernels ({}): the factorisation "
-                     "takes about twice as long; set OPENBLAS_CORETYPE={} in the environment before the process "
-                     "starts (the stepframe command does this itself)",
+  return fmt::format("OpenBLAS runs its oldest kernels ({}, SSE3) on a processor with better ones, and the "
+                     "factorisation takes about twice as long: set OPENBLAS_CORETYPE={} in the environment before "
+                     "the process starts (the stepframe command does so unless it is set already)",
                      used, best);
 #else
   return {};

@@ -19,9 +19,10 @@ bool optimised_blas();
 /// OPENBLAS_CORETYPE set to it rounds as this one does.
 std::string blas_core_name();
 
-/// "" or, when OpenBLAS did not know this processor and runs its oldest kernels (SSE3, "Prescott") where
-/// the processor has better ones, what to set before the process starts (see blas_kernels.hpp). The
-/// `stepframe` command sets it itself; a host of the library sets it in its own environment.
+/// "" or, when OpenBLAS runs its oldest kernels (SSE3, "Prescott": its choice on a processor newer than
+/// its release) where the processor has better ones, what to set before the process starts (see
+/// blas_kernels.hpp). The `stepframe` command sets it itself; a host of the library sets it in its own
+/// environment.
 std::string blas_kernel_advice();
 
 /// Runs OpenBLAS' kernels on `threads` threads from now on. Process-wide (OpenBLAS
