@@ -33,7 +33,7 @@ std::string blas_description() {
   const int parallel = openblas_get_parallel();  // 0 sequential, 1 pthreads, 2 OpenMP
   const char* how = parallel == 1 ? "pthreads" : parallel == 2 ? "OpenMP" : "sequential";
   return fmt::format("OpenBLAS ({}; {}, {} thread(s), core {})", openblas_get_config(), how,
-                     openblas_get_num_threads(), openblas_get_corename());
+                     openblas_get_num_threads(), blas_core_name());
 #else
   return "the reference BLAS (this build found no OpenBLAS: large factorisations are several times slower; "
          "install libopenblas-dev and rebuild)";

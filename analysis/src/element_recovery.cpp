@@ -214,9 +214,9 @@ LineResult recover_element(const ElementState& s, std::size_t stations, LineDeta
   // crossings of the shears (for moments) and of the load intensity (for
   // shears), found from the exact quadratic / linear pieces between breakpoints.
   const std::vector<double> breaks = load_breakpoints(s.loads, L);
-  // Per piece at most two shear roots, two intensity roots and two points just inside it.
+  // Each breakpoint, and per piece at most two shear roots, two intensity roots and two points just inside it.
   std::vector<double> candidates;
-  candidates.reserve(breaks.size() + 6 * breaks.size());
+  candidates.reserve(7 * breaks.size());
   candidates.assign(breaks.begin(), breaks.end());
   for (std::size_t i = 0; i + 1 < breaks.size(); ++i) {
     const double lo = breaks[i], hi = breaks[i + 1], h = hi - lo;
