@@ -61,37 +61,57 @@ int part_class(const SectionPart& part, double fy, double alpha, double psi) {
   return class_within(part.ratio(), part_limits(part, fy, alpha, psi));
 }
 
-Classification classify(const Section& s, double fy, double N, double My) {
+Classification classify(const Section& s, double fy, double N, double My) { return SectionClassifier(s, fy)(N, My); }
+
+SectionClassifier::SectionClassifier(const Section& s, double fy) : section_(&s), fy_(fy), eps_(epsilon(fy)) {
+  plates_.reserve(s.parts.size());
+  for (const SectionPart& part : s.parts) {
+    Plate p;
+    p.part = &part;
+    p.web = part.kind == PartKind::internal && is_web(part);
+    if (!p.web) {
+      // Taken in uniform compression (alpha = psi = 1), whatever the forces.
+      const auto limits = limits_for(part, eps_, 1.0, 1.0);
+      p.section_class = class_within(part.ratio(), limits);
+      p.class3 = part.ratio() / limits[2];
+    }
+    plates_.push_back(p);
+  }
+}
+
+Classification SectionClassifier::operator()(double N, double My) const {
+  const Section& s = *section_;
   Classification result;
-  if (s.parts.empty()) {
+  if (plates_.empty()) {
     result.section_class = 3;
     result.governing_part = "section given by properties: elastic resistance";
     return result;
   }
   const double compression = -N;  // compression positive from here on
-  const double eps = epsilon(fy);
-  for (const SectionPart& part : s.parts) {
-    double alpha = 1.0, psi = 1.0;
-    if (part.kind == PartKind::internal && is_web(part)) {
+  for (const Plate& plate : plates_) {
+    int cls = plate.section_class;
+    double class3 = plate.class3;
+    if (plate.web) {
+      const SectionPart& part = *plate.part;
       // Plastic neutral axis of a symmetric web under N and M: alpha = 0.5 (1 + N / (fy c t)).
-      alpha = std::clamp(0.5 * (1.0 + compression / (fy * part.c * part.t)), 0.0, 1.0);
+      double alpha = std::clamp(0.5 * (1.0 + compression / (fy_ * part.c * part.t)), 0.0, 1.0);
       // Elastic stresses at the web ends, compression positive: N/A +- M (c/2) / Iy.
       const double axial = compression / s.A;
       const double bending = s.Iy > 0 ? std::abs(My) * 0.5 * part.c / s.Iy : 0.0;
       const double sigma1 = axial + bending, sigma2 = axial - bending;
       if (sigma1 <= 0) alpha = 0.0;  // the whole web is in tension
-      psi = sigma1 > 0 ? sigma2 / sigma1 : 1.0;
+      double psi = sigma1 > 0 ? sigma2 / sigma1 : 1.0;
       if (std::abs(compression) < 1e-9 && std::abs(My) < 1e-9) alpha = 1.0, psi = 1.0;  // unloaded: take compression
+      // As part_class, with the class 3 margin kept.
+      const bool in_tension = alpha <= 0;
+      const double ratio = part.ratio();
+      const auto limits = in_tension ? std::array<double, 3>{} : limits_for(part, eps_, alpha, psi);
+      cls = in_tension ? 1 : class_within(ratio, limits);
+      class3 = in_tension ? 0.0 : ratio / limits[2];
     }
-    // As part_class, with the limits worked out once for the class and the class 3 margin (per station).
-    const bool in_tension = part.kind == PartKind::internal && alpha <= 0;
-    const double ratio = part.ratio();
-    const auto limits = in_tension ? std::array<double, 3>{} : limits_for(part, eps, alpha, psi);
-    const int cls = in_tension ? 1 : class_within(ratio, limits);
-    const double class3 = in_tension ? 0.0 : ratio / limits[2];
     if (cls > result.section_class || (cls == result.section_class && class3 > result.class3_utilisation)) {
       result.section_class = std::max(cls, result.section_class);
-      result.governing_part = part.name;  // a view: no copy per part and station
+      result.governing_part = plate.part->name;  // a view: no copy per part and station
       result.class3_utilisation = class3;
     }
   }

@@ -133,6 +133,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   const Section& s = *in.section;
   const double fy = in.material.fy, E = in.material.E, G = in.material.G;
   const double L = in.length;
+  const SectionClassifier classify_under(s, fy);  // the class at each station, and the member's
   std::vector<CheckResult> out;
 
   // 5.5 classification and 6.2 cross-section resistance, station by station. The class shows in
@@ -154,7 +155,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
   for (const Station& st : line.stations) {
     const double N = st.forces(N_), My = st.forces(My_), Mz = st.forces(Mz_);
     const double Vy = std::abs(st.forces(Vy_)), Vz = std::abs(st.forces(Vz_));
-    const Classification cls = classify(s, fy, N, My);
+    const Classification cls = classify_under(N, My);
     if (cls.section_class == 4 && cls.class3_utilisation > worst_class)
       worst_class = cls.class3_utilisation, class_station = &st, class_worst = cls;
     const double NRd = s.A * fy / f.gamma_M0;  // (6.6) and (6.10)
@@ -265,7 +266,7 @@ std::vector<CheckResult> check_member(const MemberInput& in, const LineResult& l
                  line.stations[n_station].x, NEd, chi_t * NRk / f.gamma_M1, "N"));
   }
 
-  const int cls_member = classify(s, fy, -NEd, my.peak).section_class;
+  const int cls_member = classify_under(-NEd, my.peak).section_class;
   const double Wy = modulus_y(s, cls_member), Wz = modulus_z(s, cls_member);
   // 6.3.3 (6.61), (6.62) with the interaction factors of Annex B (method 2), for members in compression;
   // everything but chi_LT is known here.

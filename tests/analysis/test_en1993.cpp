@@ -71,6 +71,28 @@ TEST_CASE("cross-section classes from the limits of EN 1993-1-1 Table 5.2") {
     // Flange c/t = (200 - 9 - 36)/2/15 = 5.2 <= 9 epsilon = 7.3; web 134/9 = 14.9 <= 33 epsilon = 26.9.
     CHECK(classify(*heb200, 355e6, -1000e3, 0.0).section_class == 1);
   }
+  SECTION("one classifier along a member gives each station's class as Table 5.2 does") {
+    // IPE 300 in S355 from pure bending to pure compression: the web alone moves (flange c/t =
+    // (150 - 7.1 - 30)/2/10.7 = 5.3 <= 9 epsilon, class 1 throughout); its class is that of part_class
+    // for the web's own alpha (plastic) and psi (elastic), and the station before does not carry over.
+    const SectionClassifier at_station(*ipe300, 355e6);
+    const SectionPart& web = ipe300->parts.front();
+    REQUIRE(web.name == "web");
+    for (const double N : {0.0, -50e3, -150e3, -300e3, -500e3, 200e3, -150e3, 0.0}) {
+      const double My = 60e3;
+      const Classification c = at_station(N, My);
+      const double compression = -N, A = ipe300->A, Iy = ipe300->Iy;
+      const double alpha = std::clamp(0.5 * (1 + compression / (355e6 * web.c * web.t)), 0.0, 1.0);  // Table 5.2
+      const double bending = My * 0.5 * web.c / Iy;
+      const double s1 = compression / A + bending, s2 = compression / A - bending;
+      const int expected = s1 <= 0 ? 1 : std::max(1, part_class(web, 355e6, alpha, s2 / s1));
+      CAPTURE(N);
+      CHECK(c.section_class == expected);
+      CHECK(c.section_class == classify(*ipe300, 355e6, N, My).section_class);
+    }
+    CHECK(at_station(0.0, 100e3).section_class == 1);
+    CHECK(at_station(-500e3, 0.0).section_class == 4);
+  }
   SECTION("limits of an internal part under bending and compression") {
     const SectionPart web{"web", PartKind::internal, 0.3, 0.01};
     const double eps = 1.0;  // S235

@@ -68,6 +68,28 @@ struct Classification {
 /// properties) are taken as class 3 (elastic resistance).
 Classification classify(const Section& section, double fy, double N, double My);
 
+/// classify() for one section and yield strength at many stations: what does
+/// not change with the forces (epsilon, and the class of every plate but the
+/// webs, which are taken in compression whatever the forces) is worked out
+/// once. Gives what classify() gives, to the bit. Keeps references to the
+/// section, which must outlive it.
+class SectionClassifier {
+ public:
+  SectionClassifier(const Section& section, double fy);
+  Classification operator()(double N, double My) const;
+
+ private:
+  struct Plate {
+    const SectionPart* part = nullptr;
+    bool web = false;   ///< alpha and psi from the forces (classify)
+    int section_class = 1;  ///< the class of any other plate
+    double class3 = 0;      ///< and its c/t over its class 3 limit
+  };
+  const Section* section_;
+  double fy_ = 0, eps_ = 0;
+  std::vector<Plate> plates_;
+};
+
 /// Design plastic resistances of a cross-section, shear reductions (6.2.8) included [N, N m].
 struct PlasticResistances {
   double N = 0;   ///< Npl,Rd
