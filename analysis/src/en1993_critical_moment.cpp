@@ -247,56 +247,76 @@ CriticalMomentEstimate critical_moment_or_bound(const LateralTorsionalStiffness&
                                                 const std::function<bool(double)>& bound_suffices) {
   constexpr double infinite = std::numeric_limits<double>::infinity();
   auto lower_from = [&](double peak, double mu_above) { return mu_above > 0 ? peak / mu_above : infinite; };
-  // The bounds compare S with the reference's S scaled by t = max|M| / max|M|_ref as well as with it as it is:
+  // The bounds compare S with a reference's S scaled by t = max|M| / max|M|_ref as well as with it as it is:
   // lambda_max(t S_ref) = t mu_ref for t > 0, so mu <= t mu_ref + ||S - t S_ref||_F for any t > 0, and a diagram
-  // of the reference's shape at another size (a case's share in similar combinations) is bounded by its own Mcr.
+  // of a reference's shape at another size (a case's share in similar combinations) is bounded by its own Mcr.
   double peak = 0;
   for (const auto& p : diagram) peak = std::max(peak, std::abs(p.M));
-  const double t = reference.peak > 0 ? peak / reference.peak : 1.0, t_most = std::max(1.0, t);
-  if (bound_suffices && !reference.s.empty() && lie_at(diagram, reference.x)) {
+  auto scale_to = [&](const CriticalMomentReference::Solved& ref) { return ref.peak > 0 ? peak / ref.peak : 1.0; };
+  const CriticalMomentReference::Solved* closest = nullptr;  // the reference of the least first bound
+  if (bound_suffices && !reference.solved.empty() && lie_at(diagram, reference.x)) {
     // Without building S: ||S - t S_ref||_F <= sum |w - t w_ref| (unit change). The margin covers the
     // rounding of both S's sums (a few units in the last place of sum |w| (unit change) each) and of
     // both eigenvalues (of ||S||).
-    double change = 0, change_scaled = 0, scale = 0;
-    for (std::size_t i = 0; i < reference.weights.size(); ++i) {
-      const double w = weight(diagram, load_height, i), w_ref = reference.weights[i], u = reference.unit_changes[i];
-      change += std::abs(w - w_ref) * u;
-      change_scaled += std::abs(w - t * w_ref) * u;
-      scale += (std::abs(w) + t_most * std::abs(w_ref)) * u;
+    const std::size_t count = reference.unit_changes.size();
+    std::vector<double>& weights = reference.scratch;  // this diagram's, worked out once for every reference
+    weights.resize(count);
+    for (std::size_t i = 0; i < count; ++i) weights[i] = weight(diagram, load_height, i);
+    double least = infinite;
+    for (const CriticalMomentReference::Solved& ref : reference.solved) {
+      const double t = scale_to(ref), t_most = std::max(1.0, t);
+      double change = 0, change_scaled = 0, scale = 0;
+      for (std::size_t i = 0; i < count; ++i) {
+        const double w = weights[i], w_ref = ref.weights[i], u = reference.unit_changes[i];
+        change += std::abs(w - w_ref) * u;
+        change_scaled += std::abs(w - t * w_ref) * u;
+        scale += (std::abs(w) + t_most * std::abs(w_ref)) * u;
+      }
+      const double mu_above = std::min(ref.mu + change, t * ref.mu + change_scaled) +
+                              1e-12 * (scale + t_most * ref.size + std::max(change, change_scaled));
+      if (mu_above < least) least = mu_above, closest = &ref;
     }
-    const double mu_above = std::min(reference.mu + change, t * reference.mu + change_scaled) +
-                            1e-12 * (scale + t_most * reference.size + std::max(change, change_scaled));
-    if (peak > 0 && bound_suffices(lower_from(peak, mu_above))) return {lower_from(peak, mu_above), false};
+    if (peak > 0 && bound_suffices(lower_from(peak, least))) return {lower_from(peak, least), false};
   }
   const ScaledProblem problem = scaled_problem(k, integrals, diagram, load_height);
   if (problem.s.size() == 0) return {infinite, true};  // no moment, or no length
   const auto entries = static_cast<std::size_t>(problem.s.size());
-  if (bound_suffices && reference.s.size() == entries) {
+  if (bound_suffices && closest && closest->s.size() == entries) {
     // lambda_max(S) <= t lambda_max(S_ref) + ||S - t S_ref||_F, plus a margin far above the rounding of
     // either eigenvalue (a few units in the last place of ||S||).
+    const double t = scale_to(*closest), t_most = std::max(1.0, t);
     double change = 0, change_scaled = 0, size = 0;
     for (std::size_t i = 0; i < entries; ++i) {
-      const double s = problem.s.data()[i], s_ref = reference.s[i];
+      const double s = problem.s.data()[i], s_ref = closest->s[i];
       change += (s - s_ref) * (s - s_ref);
       change_scaled += (s - t * s_ref) * (s - t * s_ref);
       size += s * s + t_most * t_most * s_ref * s_ref;
     }
     const double mu_above =
-        std::min(reference.mu + std::sqrt(change), t * reference.mu + std::sqrt(change_scaled)) + 1e-12 * std::sqrt(size);
+        std::min(closest->mu + std::sqrt(change), t * closest->mu + std::sqrt(change_scaled)) + 1e-12 * std::sqrt(size);
     const double lower = lower_from(problem.peak, mu_above);
     if (bound_suffices(lower)) return {lower, false};
   }
   const double mu = largest_mu(problem, load_height != 0);
-  reference.s.assign(problem.s.data(), problem.s.data() + entries);
-  reference.mu = mu;
-  reference.peak = problem.peak;
-  reference.size = problem.s.norm();
   if (reference.x != integrals.x) {
+    reference.solved.clear();  // another member's stations: its references do not apply
     reference.x = integrals.x;
     reference.unit_changes = unit_changes(problem.r, integrals);
   }
-  reference.weights.resize(reference.unit_changes.size());
-  for (std::size_t i = 0; i < reference.weights.size(); ++i) reference.weights[i] = weight(diagram, load_height, i);
+  if (reference.keep > 0) {
+    // Full: the oldest leaves, its place (and its buffers) taken by this one.
+    if (reference.solved.size() >= reference.keep)
+      std::rotate(reference.solved.begin(), reference.solved.begin() + 1, reference.solved.end());
+    else
+      reference.solved.emplace_back();
+    CriticalMomentReference::Solved& solved = reference.solved.back();
+    solved.s.assign(problem.s.data(), problem.s.data() + entries);
+    solved.mu = mu;
+    solved.peak = problem.peak;
+    solved.size = problem.s.norm();
+    solved.weights.resize(reference.unit_changes.size());
+    for (std::size_t i = 0; i < solved.weights.size(); ++i) solved.weights[i] = weight(diagram, load_height, i);
+  }
   return {mu > 0 ? problem.peak / mu : infinite, true};
 }
 

@@ -76,7 +76,7 @@ double modulus_z(const Section& s, int cls) { return cls <= 2 && s.Wpl_z > 0 ? s
 // Mcr of the diagram (critical_moment_for_diagram), with the integrals of its positions that the member
 // keeps (its load results share its stations) or shares with members at the same positions; or only a
 // lower bound on it when `bound_suffices` says that settles the check (critical_moment_or_bound, from the
-// member's last Mcr solved exactly).
+// member's latest Mcr solved exactly).
 CriticalMomentEstimate critical_moment_of(const LateralTorsionalStiffness& k, const MemberInput& in,
                                           const std::vector<DiagramPoint>& points, double load_height,
                                           const std::function<bool(double)>& bound_suffices = nullptr) {
