@@ -34,13 +34,18 @@ std::vector<DiagramPoint> diagram(double m0, double m1, double w) {
   return d;
 }
 
+// The integrals of the 21 points every diagram here has.
+DiagramIntegrals integrals_at_points() {
+  std::vector<double> x;
+  for (const auto& p : diagram(0, 0, 0)) x.push_back(p.x);
+  return diagram_integrals(x);
+}
+
 }  // namespace
 
 TEST_CASE("a lower bound on Mcr from the member's last diagram, and the exact value when it does not suffice",
           "[analysis][en1993][ltb]") {
-  std::vector<double> x;
-  for (const auto& p : diagram(0, 0, 0)) x.push_back(p.x);
-  const DiagramIntegrals integrals = diagram_integrals(x);
+  const DiagramIntegrals integrals = integrals_at_points();
   std::mt19937 random(11);
   std::uniform_real_distribution<double> share(-0.3, 0.3);
   for (double zg : {0.0, 0.15}) {
@@ -98,9 +103,7 @@ TEST_CASE("the Mcr bound of a diagram of the reference's shape at another size i
   // a factor on every load scales M and leaves Mcr as it is). The bound compares S with the reference's S
   // scaled to the diagram's size, so such a diagram is bounded by its own Mcr (to the rounding margin), where
   // comparing with S_ref as it is gives a bound that falls with the change of size.
-  std::vector<double> x;
-  for (const auto& p : diagram(0, 0, 0)) x.push_back(p.x);
-  const DiagramIntegrals integrals = diagram_integrals(x);
+  const DiagramIntegrals integrals = integrals_at_points();
   for (double zg : {0.0, 0.15}) {
     const auto first = diagram(80e3, -30e3, 12e3);
     CriticalMomentReference reference;
@@ -134,9 +137,7 @@ TEST_CASE("the Mcr bound takes the closest of the member's latest solved diagram
   // Results come combination by combination and then each one's sway variants, so the diagram closest to a
   // variant's is often not the one solved last. The bound is Weyl's inequality against each kept diagram
   // (as above); the least is offered, and it can only be closer than the last one's alone.
-  std::vector<double> x;
-  for (const auto& p : diagram(0, 0, 0)) x.push_back(p.x);
-  const DiagramIntegrals integrals = diagram_integrals(x);
+  const DiagramIntegrals integrals = integrals_at_points();
   for (double zg : {0.0, 0.15}) {
     INFO("zg " << zg);
     const auto a = diagram(80e3, -30e3, 12e3), b = diagram(-50e3, 70e3, 0.0), near_a = diagram(82e3, -29e3, 12.2e3);
